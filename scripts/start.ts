@@ -1,0 +1,34 @@
+// `npm start` (after scripts/ensure.mjs): serves the app and the API from one process, prints the URL and the
+// demo sign-ins. Ctrl-C stops the server and the PostgreSQL that the scripts started.
+import { existsSync } from 'node:fs';
+import { DEMO_PASSWORD, demoUsers } from '../db/demo';
+import { startServer } from '../server/main';
+// @ts-expect-error plain JavaScript helpers shared with ensure.mjs
+import { APP_PORT, DB_NAME, databaseUrl, findPgBin, log, pgStartedMarker, pgStop } from './lib.mjs';
+
+async function main() {
+  const app = await startServer({ databaseUrl: databaseUrl(DB_NAME), port: APP_PORT, logLevel: process.env.LOG_LEVEL ?? 'warn' });
+  log(`Falloff is running at ${app.url}`);
+  log(`demo sign-ins, password "${DEMO_PASSWORD}" for each:`);
+  for (const [role, u] of Object.entries(demoUsers)) log(`  ${role.padEnd(11)} ${u.email.padEnd(26)} ${u.name}`);
+  log('Ctrl-C stops the server and its database.');
+
+  let stopping = false;
+  const stop = async () => {
+    if (stopping) return;
+    stopping = true;
+    await app.close().catch(() => {});
+    if (existsSync(pgStartedMarker)) {
+      pgStop(findPgBin());
+      log('PostgreSQL stopped.');
+    }
+    process.exit(0);
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}
+
+main().catch((err) => {
+  process.stderr.write(`[falloff] the server did not start: ${err?.stack ?? err}\n`);
+  process.exit(1);
+});

@@ -1,0 +1,58 @@
+// The one Express app: better-auth at /api/auth/*, the JSON API at /api/*, and the built web app.
+import express from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import { toNodeHandler } from 'better-auth/node';
+import type { Db } from '../db/client';
+import type { Auth } from './auth';
+import { apiNotFound, errorHandler } from './errors';
+import { healthRoutes } from './routes/health';
+import { meRoutes } from './routes/me';
+import { setupRoutes } from './routes/setups';
+import { requireUser } from './session';
+
+export type AppDeps = { db: Db; auth: Auth; logger: Logger; webDir?: string };
+
+export const BODY_LIMIT = '1mb';
+
+export function createApp({ db, auth, logger, webDir }: AppDeps) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') } }));
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // Expo's web build inlines a small bootstrap and style tags; react-native-web sets inline styles.
+          'script-src': ["'self'", "'unsafe-inline'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+        },
+      },
+    }),
+  );
+
+  // better-auth reads its own body, so it is mounted before the JSON parser.
+  app.all('/api/auth/{*any}', toNodeHandler(auth));
+
+  app.use('/api', express.json({ limit: BODY_LIMIT }));
+  app.use('/api', healthRoutes(db));
+  app.use('/api', requireUser(auth));
+  app.use('/api', meRoutes(db));
+  app.use('/api', setupRoutes(db));
+  app.use('/api', apiNotFound);
+
+  if (webDir && existsSync(join(webDir, 'index.html'))) {
+    app.use(express.static(webDir, { index: false, maxAge: '1h' }));
+    // A single-page app: every other path is the app, which routes on the client.
+    app.get('/{*any}', (_req, res) => res.sendFile(join(webDir, 'index.html')));
+  }
+
+  app.use(errorHandler);
+  return app;
+}

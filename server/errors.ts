@@ -1,0 +1,53 @@
+// Every error the API sends is JSON: { error: { code, message, fields? } }.
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ZodError } from 'zod';
+
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly extra: Record<string, unknown> = {},
+  ) {
+    super(message);
+  }
+}
+
+export const notFound = (what = 'not found') => new HttpError(404, 'not_found', what);
+
+/** Field path → first message, e.g. { "document.items.0.x": "Too big: expected number to be <=200" }. */
+export function zodFields(err: ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of err.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '(body)';
+    if (!(key in fields)) fields[key] = issue.message;
+  }
+  return fields;
+}
+
+export function validationError(err: ZodError, where: 'body' | 'query' | 'params' = 'body'): HttpError {
+  const fields = zodFields(err);
+  const names = Object.keys(fields);
+  const first = names[0]!;
+  const message = `invalid ${where}: ${first === '(body)' ? '' : `${first}: `}${fields[first]}${names.length > 1 ? ` (and ${names.length - 1} more)` : ''}`;
+  return new HttpError(400, 'invalid_input', message, { fields });
+}
+
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(new HttpError(404, 'no_route', `no API route ${req.method} ${req.path}`));
+};
+
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  if (err instanceof HttpError) {
+    const { fields, ...extra } = err.extra as { fields?: Record<string, string> };
+    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(fields ? { fields } : {}), ...extra } });
+    return;
+  }
+  // Errors from body-parser carry a status (413 too large, 400 bad JSON).
+  const status = typeof err?.status === 'number' && err.status >= 400 && err.status < 500 ? err.status : 500;
+  if (status === 500) req.log?.error({ err }, 'unhandled error');
+  const code = status === 413 ? 'too_large' : status === 400 ? 'bad_request' : status === 500 ? 'internal' : 'error';
+  const message =
+    status === 413 ? 'the request body is too large' : status === 400 ? `the request body is not valid JSON` : status === 500 ? 'something went wrong on the server' : String(err?.message ?? 'error');
+  res.status(status).json({ error: { code, message } });
+};
