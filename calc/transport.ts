@@ -1,0 +1,167 @@
+/**
+ * Light transport between lights, bounce patches and receptors: occlusion, direct exposure, light on the
+ * patches and the patch → receptor form factor. Shared by the meter and the light map.
+ */
+import { polygonIrradiancePerLuminance } from './bounce';
+import { type Rgb, relativeLuminance } from './colour';
+import { lookupProfile } from './modifiers';
+import { type Occluders, type Patches, type PreparedLight, MIN_DISTANCE_SQ_M2 } from './prepare';
+import type { Vec3 } from './vec';
+
+/** A receptor (meter cell): position (plan metres, z up) and unit normal. */
+export type Receptor = { x: number; y: number; z: number; nx: number; ny: number; nz: number };
+
+/**
+ * Fraction of light passing along the segment P→Q (1 = clear). A plan segment crossing counts only when the
+ * ray's height at the crossing lies within the occluder's height range. Crossings at the very ends of P→Q are
+ * ignored, so a point on a surface is not shadowed by that surface. skipSurface: a surface index to ignore.
+ */
+export function transmissionAlong(
+  o: Occluders,
+  px: number,
+  py: number,
+  pz: number,
+  qx: number,
+  qy: number,
+  qz: number,
+  skipSurface = -1,
+): number {
+  const dx = qx - px;
+  const dy = qy - py;
+  let trans = 1;
+  for (let i = 0; i < o.count; i++) {
+    if (o.surface[i] === skipSurface && skipSurface >= 0) continue;
+    const ex = o.ex[i]!;
+    const ey = o.ey[i]!;
+    const denom = dx * ey - dy * ex;
+    if (denom === 0) continue; // parallel
+    const apx = o.ax[i]! - px;
+    const apy = o.ay[i]! - py;
+    const t = (apx * ey - apy * ex) / denom; // along P→Q
+    if (t <= 1e-9 || t >= 1 - 1e-9) continue;
+    const s = (apx * dy - apy * dx) / denom; // along the occluder
+    if (s < 0 || s > 1) continue;
+    const z = pz + t * (qz - pz);
+    if (z < o.zLo[i]! || z > o.zHi[i]!) continue;
+    trans *= o.transmission[i]!;
+    if (trans === 0) return 0;
+  }
+  return trans;
+}
+
+/** Direct result of one light at one receptor, with the geometry the meter reports. */
+export type DirectSample = {
+  luxSeconds: number;
+  distanceM: number;
+  /** Angle between the receptor normal and the direction to the light, degrees. */
+  incidenceDeg: number;
+  /** Angle between the beam axis and the direction to the receptor, degrees. */
+  offAxisDeg: number;
+  /** Fraction passed by flags and walls. */
+  transmission: number;
+};
+
+/**
+ * Direct luminous exposure (lux·s) from a light at receptor Q with unit normal N:
+ *   H = I·p(θ)·max(0, cos i)·T / (d² + R²)
+ * I the on-axis cd·s, p the beam profile, i the incidence on the receptor, T the occluders' transmission,
+ * R the face radius (near-field term; R = 0 is the inverse-square law).
+ */
+export function directAt(
+  L: PreparedLight,
+  occ: Occluders,
+  qx: number,
+  qy: number,
+  qz: number,
+  nx: number,
+  ny: number,
+  nz: number,
+): DirectSample {
+  const dx = qx - L.px;
+  const dy = qy - L.py;
+  const dz = qz - L.pz;
+  const d2 = dx * dx + dy * dy + dz * dz;
+  const d = Math.sqrt(d2);
+  const inv = d > 0 ? 1 / d : 0;
+  const cosInc = -(dx * nx + dy * ny + dz * nz) * inv;
+  const cosOff = d > 0 ? (dx * L.ax + dy * L.ay + dz * L.az) * inv : 1;
+  const incidenceDeg = (Math.acos(Math.max(-1, Math.min(1, d > 0 ? cosInc : 1))) * 180) / Math.PI;
+  const offAxisDeg = (Math.acos(Math.max(-1, Math.min(1, cosOff))) * 180) / Math.PI;
+  const geo = d > 0 ? cosInc : 1;
+  if (geo <= 0 || L.axialCdS <= 0) return { luxSeconds: 0, distanceM: d, incidenceDeg, offAxisDeg, transmission: 1 };
+  const transmission = transmissionAlong(occ, L.px, L.py, L.pz, qx, qy, qz);
+  const luxSeconds =
+    (L.axialCdS * lookupProfile(L.lut, cosOff) * geo * transmission) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
+  return { luxSeconds, distanceM: d, incidenceDeg, offAxisDeg, transmission };
+}
+
+/** Luminance factor of light colour c reflected by a surface side of rgb reflectance ρ: Y(c ⊙ ρ). */
+export function reflectedLuminance(c: Rgb, rho: Rgb): number {
+  return relativeLuminance([c[0] * rho[0], c[1] * rho[1], c[2] * rho[2]]);
+}
+/**
+ * Bounce form factor from patch i to receptor q: irradiance per unit patch luminance (π × view factor),
+ * signed: positive when q is on the patch's front side, negative on its back, 0 when not seen.
+ * Near the patch (within four patch sizes) the exact polygon integral is used; farther away the point form
+ * A·cosθe·cosθr/(r² + A/π), whose A/π term makes it exact on the axis of a disc of the same area.
+ */
+export function patchFormFactor(P: Patches, i: number, q: Receptor, exactWithin: number): number {
+  const vx = q.x - P.cx[i]!;
+  const vy = q.y - P.cy[i]!;
+  const vz = q.z - P.cz[i]!;
+  const nd = vx * P.nx[i]! + vy * P.ny[i]!; // patch normal is horizontal
+  if (nd === 0) return 0;
+  const side = nd > 0 ? 1 : -1;
+  const r2 = vx * vx + vy * vy + vz * vz;
+  const hw = P.halfW[i]!;
+  const hh = P.halfH[i]!;
+  const size = 2 * Math.max(hw, hh);
+  if (r2 < exactWithin * exactWithin * size * size) {
+    const wx = P.wx[i]!;
+    const wy = P.wy[i]!;
+    const corner = (sw: number, sh: number): Vec3 => ({
+      x: -vx + wx * hw * sw,
+      y: -vy + wy * hw * sw,
+      z: -vz + hh * sh,
+    });
+    const f = polygonIrradiancePerLuminance([corner(-1, -1), corner(1, -1), corner(1, 1), corner(-1, 1)], {
+      x: q.nx,
+      y: q.ny,
+      z: q.nz,
+    });
+    return side * f;
+  }
+  const r = Math.sqrt(r2);
+  const cosE = Math.abs(nd) / r;
+  const cosR = -(vx * q.nx + vy * q.ny + vz * q.nz) / r;
+  if (cosR <= 0) return 0;
+  const a = P.area[i]!;
+  return (side * a * cosE * cosR) / (r2 + a / Math.PI);
+}
+
+/**
+ * Illuminance-time on every patch from one light, signed by the side it lights (+ front, − back).
+ * The patch's own surface does not shadow it.
+ */
+export function patchIncident(L: PreparedLight, P: Patches, occ: Occluders, out: Float64Array): void {
+  for (let i = 0; i < P.count; i++) {
+    out[i] = 0;
+    if (L.axialCdS <= 0) continue;
+    const dx = P.cx[i]! - L.px;
+    const dy = P.cy[i]! - L.py;
+    const dz = P.cz[i]! - L.pz;
+    const d2 = dx * dx + dy * dy + dz * dz;
+    const d = Math.sqrt(d2);
+    if (d === 0) continue;
+    const nd = -(dx * P.nx[i]! + dy * P.ny[i]!) / d; // cos of incidence on the front
+    if (nd === 0) continue;
+    const cosOff = (dx * L.ax + dy * L.ay + dz * L.az) / d;
+    const prof = lookupProfile(L.lut, cosOff);
+    if (prof <= 0) continue;
+    const t = transmissionAlong(occ, L.px, L.py, L.pz, P.cx[i]!, P.cy[i]!, P.cz[i]!, P.surface[i]!);
+    if (t <= 0) continue;
+    const e = (L.axialCdS * prof * Math.abs(nd) * t) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
+    out[i] = nd > 0 ? e : -e;
+  }
+}
+
