@@ -61,7 +61,7 @@ function ensurePostgres() {
       const tail = readText(join(pgRunDir, 'server.log'))?.split('\n').slice(-15).join('\n') ?? '';
       fail(`PostgreSQL did not start:\n${r.stdout}${r.stderr}\n${tail}`);
     }
-    writeText(pgStartedMarker, String(Date.now()));
+    writeText(pgStartedMarker, forTest ? 'test' : 'start'); // who may stop it: see start.ts and test.mjs
   }
   return pgBin;
 }

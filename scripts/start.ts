@@ -3,7 +3,6 @@
 import { existsSync } from 'node:fs';
 import { DEMO_PASSWORD, demoUsers } from '../db/demo';
 import { startServer } from '../server/main';
-// @ts-expect-error plain JavaScript helpers shared with ensure.mjs
 import { APP_PORT, DB_NAME, databaseUrl, findPgBin, log, pgStartedMarker, pgStop } from './lib.mjs';
 
 async function main() {

@@ -1,0 +1,5 @@
+import { SetupLibrary } from '../../../components/SetupLibrary';
+
+export default function SetupsScreen() {
+  return <SetupLibrary />;
+}

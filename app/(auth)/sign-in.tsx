@@ -1,0 +1,38 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Link, useRouter } from 'expo-router';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { AuthFrame } from '../../components/AuthFrame';
+import { FormField } from '../../components/FormField';
+import { Body, Button, ErrorText } from '../../components/ui';
+import { authClient } from '../../hooks/auth';
+import { signInBody } from '../../model/api';
+
+type Values = z.infer<typeof signInBody>;
+
+export default function SignIn() {
+  const router = useRouter();
+  const [failure, setFailure] = useState<string | null>(null);
+  const { control, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(signInBody), defaultValues: { email: '', password: '' } });
+  const submit = handleSubmit(async (v) => {
+    setFailure(null);
+    const { error } = await authClient.signIn.email({ email: v.email, password: v.password });
+    if (error) return setFailure(error.status === 401 ? 'That e-mail and password do not match an account.' : (error.message ?? 'Sign-in failed.'));
+    router.replace('/setups');
+  });
+  return (
+    <AuthFrame title="Sign in">
+      <FormField control={control} name="email" label="E-mail" error={formState.errors.email?.message} autoComplete="email" keyboardType="email-address" autoCapitalize="none" testID="email" />
+      <FormField control={control} name="password" label="Password" error={formState.errors.password?.message} secureTextEntry autoComplete="current-password" onSubmitEditing={submit} testID="password" />
+      {failure ? <ErrorText>{failure}</ErrorText> : null}
+      <Button label="Sign in" onPress={submit} busy={formState.isSubmitting} testID="submit" />
+      <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
+        New here?{' '}
+        <Link href="/sign-up" style={{ color: '#f0b24a' }}>
+          Create an account
+        </Link>
+      </Body>
+    </AuthFrame>
+  );
+}

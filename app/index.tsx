@@ -1,0 +1,9 @@
+import { Redirect } from 'expo-router';
+import { Loading } from '../components/Loading';
+import { useSession } from '../hooks/auth';
+
+export default function Index() {
+  const { data, isPending } = useSession();
+  if (isPending) return <Loading />;
+  return <Redirect href={data ? '/setups' : '/sign-in'} />;
+}

@@ -1,0 +1,51 @@
+// Sign up, land on the empty library, sign out, sign in as a demo owner and see the demo setups:
+// on a phone and on a wide screen.
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { freshEmail } from '../support/http';
+import { launch, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
+
+const base = inject('baseUrl');
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launch());
+});
+afterAll(async () => close?.());
+
+describe.each(Object.keys(viewports) as ViewportName[])('on a %s viewport', (vp) => {
+  it('signs up, signs out, and signs in as a demo user', async () => {
+    const context = await browser.newContext({ viewport: viewports[vp] });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+
+    await page.goto(`${base}/`);
+    await page.getByRole('link', { name: 'Create an account' }).click();
+    await page.getByLabel('Name').fill('Noor Ellery');
+    await page.getByLabel('E-mail').fill(freshEmail('e2e'));
+    await page.getByLabel('Password (8 characters or more)').fill('e2e-password-1');
+    await page.getByRole('button', { name: 'Create account' }).click();
+
+    await expect.poll(() => page.getByText('No setups yet').isVisible(), { timeout: 15_000 }).toBe(true);
+    expect(page.url()).toMatch(/\/setups$/);
+    await shot(page, `smoke-${vp}-empty-library`);
+
+    await page.getByRole('link', { name: 'Account' }).click();
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await expect.poll(() => page.getByRole('button', { name: 'Sign in' }).isVisible(), { timeout: 15_000 }).toBe(true);
+
+    await page.getByLabel('E-mail').fill(demoUsers.owner.email);
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect.poll(() => page.getByText('Clamshell headshot on grey').isVisible(), { timeout: 15_000 }).toBe(true);
+    for (const title of ['Twin rims on black for a runner', 'Teal backdrop, warm key']) {
+      await expect.poll(() => page.getByText(title).isVisible()).toBe(true);
+    }
+    await shot(page, `smoke-${vp}-demo-library`);
+    if (vp === 'wide') expect(await page.getByText('Falloff', { exact: true }).isVisible()).toBe(true); // the side rail
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});

@@ -1,0 +1,45 @@
+// Debian's Chromium driven by playwright-core (never a downloaded browser), with the flags this machine needs.
+// playwright gives every launch a fresh, empty profile of its own.
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+
+export const viewports = {
+  phone: { width: 390, height: 844 },
+  wide: { width: 1440, height: 900 },
+} as const;
+export type ViewportName = keyof typeof viewports;
+
+export const artifactsDir = join(__dirname, '..', '.artifacts');
+
+export async function launch(): Promise<{ browser: Browser; close: () => Promise<void> }> {
+  const browser = await chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+  return {
+    browser,
+    close: () => browser.close(),
+  };
+}
+
+/** A screenshot for a person to look at (tests/.artifacts is git-ignored). */
+export async function shot(page: Page, name: string) {
+  mkdirSync(artifactsDir, { recursive: true });
+  await page.screenshot({ path: join(artifactsDir, `${name}.png`) });
+}
+
+/** Fail the test on any uncaught error in the page. */
+export function watchErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  return errors;
+}
