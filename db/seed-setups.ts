@@ -60,7 +60,7 @@ const tealWarm = {
     { id: 'wallR', kind: 'wall', label: 'Studio wall', a: { x: 7.6, y: 0.4 }, b: { x: 7.6, y: 5.6 }, heightM: 3.2, colour: '#c9c2b4' },
     { id: 'singer', kind: 'subject', label: 'Singer', x: 4, y: 3.0, facingDeg: 100, faceHeightM: 1.65 },
     { id: 'key', kind: 'light', label: 'Key — warm softbox', x: 2.9, y: 4.0, heightM: 1.9, aimDeg: -42, tiltDeg: -12, source: { type: 'strobe', energyWs: 600 }, power: 1 / 4, modifier: 'softbox', gel: 'quarter-cto', role: 'key' },
-    { id: 'bg', kind: 'light', label: 'Background — teal', x: 4.2, y: 2.1, heightM: 0.4, aimDeg: -90, tiltDeg: 20, source: { type: 'speedlight', guideNumberM: 42 }, power: 1 / 2, modifier: 'bare', gel: 'teal', role: 'background', stand: 'floor' },
+    { id: 'bg', kind: 'light', label: 'Background — teal', x: 4.2, y: 2.1, heightM: 0.4, aimDeg: -90, tiltDeg: 20, source: { type: 'speedlight', guideNumberM: 42 }, power: 1 / 2, modifier: 'bare-reflector', gel: 'teal', role: 'background', stand: 'floor' },
     { id: 'cam', kind: 'camera', label: 'Camera', x: 4.3, y: 5.5, heightM: 1.6, aimDeg: -95, focalMm: 50, iso: 200, aperture: 5.6, shutterS: 1 / 200 },
     { id: 'n1', kind: 'note', x: 6.2, y: 4.8, text: 'Practicals off; window blinds half down' },
   ],

@@ -1,5 +1,6 @@
 // A light: strobe head, speedlight or continuous lamp, with its modifier, gel and power setting.
 import { z } from 'zod';
+import { GEL_IDS, MODIFIER_IDS } from '../../calc';
 import { degrees, itemBase, metres, positiveMetres } from '../geometry';
 
 export const lightSourceSchema = z.discriminatedUnion('type', [
@@ -36,16 +37,25 @@ export const lightSchema = z
     source: lightSourceSchema,
     /** Fraction of full output, 1/256 … 1 (for continuous lamps: the dimmer). */
     power: z.number().min(1 / 1024).max(1).default(1),
-    /** Modifier id from the meter's table (calc/), with an optional grid. */
-    modifier: z.string().max(40).default('bare'),
+    /** Modifier from the meter's table (calc/modifiers.ts). */
+    modifier: z.enum(MODIFIER_IDS).default('bare-reflector'),
+    /** A fabric grid on the modifier's face, degrees (common sizes 10°–40°), or none. */
     gridDeg: z.number().min(5).max(60).nullable().default(null),
-    /** Gel id from the meter's table, or null. */
-    gel: z.string().max(40).nullable().default(null),
+    /** Gel from the meter's table. */
+    gel: z.enum(GEL_IDS).default('none'),
     role: z.enum(lightRoles).default('key'),
     on: z.boolean().default(true),
     /** A real meter reading that anchors this light's prediction. */
     calibration: z
-      .object({ aperture: z.number().min(0.7).max(128), distanceM: positiveMetres(50), iso: z.number().min(25).max(409600) })
+      .object({
+        aperture: z.number().min(0.7).max(128),
+        distanceM: positiveMetres(50),
+        iso: z.number().min(25).max(409600),
+        /** Shutter of the reading; needed for continuous lights. */
+        shutterS: z.number().positive().max(60).nullable().default(null),
+        /** Power the light was at for the reading (default: its power now). */
+        power: z.number().min(1 / 1024).max(1).nullable().default(null),
+      })
       .strict()
       .nullable()
       .default(null),

@@ -3,25 +3,27 @@
 import { z } from 'zod';
 import { degrees, itemBase, metres, positiveMetres } from '../geometry';
 
-const panel = {
+/** A panel stands upright on the plan, centred at (x, y), its working face pointing along rotationDeg. */
+const panel = (d: { widthM: number; heightM: number; baseM: number }) => ({
   ...itemBase,
   x: metres(),
   y: metres(),
-  /** The way the panel's working face points on the plan. */
   rotationDeg: degrees.default(0),
-  widthM: positiveMetres(10).default(1),
-  heightM: positiveMetres(10).default(1),
-};
+  widthM: positiveMetres(10).default(d.widthM),
+  heightM: positiveMetres(10).default(d.heightM),
+  /** Height of the panel's lower edge above the floor. */
+  baseM: z.number().min(0).max(10).default(d.baseM),
+});
 
 export const reflectorSchema = z
-  .object({ ...panel, kind: z.literal('reflector'), finish: z.enum(['white', 'silver', 'gold']).default('white') })
+  .object({ ...panel({ widthM: 1, heightM: 1, baseM: 0.5 }), kind: z.literal('reflector'), finish: z.enum(['white', 'silver', 'gold']).default('white') })
   .strict();
-export const flagSchema = z.object({ ...panel, kind: z.literal('flag') }).strict();
+export const flagSchema = z.object({ ...panel({ widthM: 0.6, heightM: 0.9, baseM: 1 }), kind: z.literal('flag') }).strict();
 export const vflatSchema = z
-  .object({ ...panel, kind: z.literal('vflat'), face: z.enum(['white', 'black']).default('white') })
+  .object({ ...panel({ widthM: 1.2, heightM: 2.4, baseM: 0 }), kind: z.literal('vflat'), face: z.enum(['white', 'black']).default('white') })
   .strict();
 export const scrimSchema = z
-  .object({ ...panel, kind: z.literal('scrim'), lossStops: z.number().min(0).max(6).default(1) })
+  .object({ ...panel({ widthM: 1.2, heightM: 1.2, baseM: 0.8 }), kind: z.literal('scrim'), lossStops: z.number().min(0).max(6).default(1) })
   .strict();
 
 export type Reflector = z.infer<typeof reflectorSchema>;
