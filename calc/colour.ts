@@ -36,10 +36,16 @@ export function isColour(s: string): boolean {
 
 /** Linear sRGB of a CSS colour string; throws on an unreadable colour (the scene schema rejects those first). */
 export function linearRgbOf(colour: string): Rgb {
+  const hit = colourCache.get(colour);
+  if (hit) return hit;
   const c = toLrgb(colour);
   if (!c) throw new Error(`not a colour: ${colour}`);
-  return [c.r, c.g, c.b];
+  const rgb: Rgb = [c.r, c.g, c.b];
+  if (colourCache.size > 512) colourCache.clear();
+  colourCache.set(colour, rgb);
+  return rgb;
 }
+const colourCache = new Map<string, Rgb>();
 
 /**
  * Real paints and papers reflect roughly 5–85 % of light (light reflectance values; from memory), so a
@@ -138,11 +144,17 @@ export function normaliseLuminance(rgb: Rgb): Rgb {
   return y > 1e-12 ? [rgb[0] / y, rgb[1] / y, rgb[2] / y] : [0, 0, 0];
 }
 
-/** Linear sRGB (Y = 1) of a Planckian source at `kelvin`. */
+/** Linear sRGB (Y = 1) of a Planckian source at `kelvin`. Memoised: the meter asks for a few values per frame. */
 export function kelvinToLinearRgb(kelvin: number): Rgb {
+  const hit = kelvinCache.get(kelvin);
+  if (hit) return hit;
   const { x, y } = planckianXy(kelvin);
-  return linearRgbFromXy(x, y);
+  const rgb = linearRgbFromXy(x, y);
+  if (kelvinCache.size > 512) kelvinCache.clear();
+  kelvinCache.set(kelvin, rgb);
+  return rgb;
 }
+const kelvinCache = new Map<number, Rgb>();
 
 /**
  * Hex of a colour's hue and saturation, brightness removed (largest channel scaled to 1). With whiteBalanceK
@@ -161,5 +173,24 @@ export function hueHex(rgb: Rgb, whiteBalanceK?: number): string {
   }
   const m = Math.max(r, g, b);
   if (!(m > 0)) return '#000000';
-  return formatHex({ mode: 'lrgb', r: r / m, g: g / m, b: b / m });
+  return linearRgbToHex([r / m, g / m, b / m]);
+}
+
+/**
+ * Hex of a linear sRGB colour (channels clamped to 0–1), encoded per IEC 61966-2-1. Written out because
+ * culori's formatHex costs ~15 µs a call, a sizeable share of a meter frame; the tests check it against culori.
+ */
+export function linearRgbToHex(rgb: Rgb): string {
+  let s = '#';
+  for (let i = 0; i < 3; i++) {
+    const c = Math.min(1, Math.max(0, rgb[i]!));
+    const v = Math.round(linearToSrgb(c) * 255);
+    s += (v < 16 ? '0' : '') + v.toString(16);
+  }
+  return s;
+}
+
+/** culori's hex of a linear sRGB colour; the reference linearRgbToHex is tested against. */
+export function culoriHexOfLinear(rgb: Rgb): string {
+  return formatHex({ mode: 'lrgb', r: rgb[0], g: rgb[1], b: rgb[2] });
 }

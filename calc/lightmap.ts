@@ -12,7 +12,9 @@
  *   behind flags, where the interpolation blurs it over one coarse cell.
  */
 import { contourLines, type ContourLevel, type GridFrame } from './contours';
-import { lookupProfile } from './modifiers';
+import { contourLinesD3 } from './contours-d3';
+import { PROFILE_LUT_SIZE } from './modifiers';
+import { castShadows } from './shadows';
 import {
   type Occluders,
   type Patches,
@@ -51,8 +53,15 @@ export type LightMapGrid = {
   floorStops?: number;
   /** Contour spacing in stops (default 1). */
   contourStepStops?: number;
+  /** Lowest contour level drawn, stops (default −6: darker than that reads as black in a frame). */
+  contourMinStops?: number;
   /** Skip contour extraction (default false). */
   skipContours?: boolean;
+  /**
+   * 'fast' (default): the one-pass line tracer; 'd3': d3-contour (same vertices, slower, about 3 ms more for
+   * 128 × 128; closed rings on the border are cut into lines).
+   */
+  contourEngine?: 'fast' | 'd3';
 };
 
 export type LightMapResult = {
@@ -120,18 +129,31 @@ type LightEntry = {
 };
 
 const DEFAULT_BOUNCE_STEP = 4;
+const DEFAULT_CONTOUR_MIN_STOPS = -6;
 const DEFAULT_MAP_PATCH_M = 1;
 const MAP_MAX_PATCHES_PER_SURFACE = 24;
 
-function receptorNormal(facing: LightMapGrid['facing'], scene: Scene, x: number, y: number): [number, number] {
+/** Writes the receptor normal at (x, y) into nxs[k], nys[k] (horizontal, unit). */
+function receptorNormal(
+  facing: LightMapGrid['facing'],
+  scene: Scene,
+  x: number,
+  y: number,
+  nxs: Float64Array,
+  nys: Float64Array,
+  k: number,
+): void {
   if (facing === 'camera') {
     const dx = scene.camera.x - x;
     const dy = scene.camera.y - y;
     const l = Math.hypot(dx, dy);
-    return l > 0 ? [dx / l, dy / l] : [1, 0];
+    nxs[k] = l > 0 ? dx / l : 1;
+    nys[k] = l > 0 ? dy / l : 0;
+    return;
   }
   const deg = typeof facing === 'number' ? facing : scene.subject.facingDeg;
-  return [Math.cos(deg * DEG), Math.sin(deg * DEG)];
+  nxs[k] = Math.cos(deg * DEG);
+  nys[k] = Math.sin(deg * DEG);
 }
 
 function buildGeometry(scene: Scene, grid: LightMapGrid, key: string): Geometry {
@@ -150,9 +172,7 @@ function buildGeometry(scene: Scene, grid: LightMapGrid, key: string): Geometry 
       const k = j * nx + i;
       px[k] = grid.x0 + i * dx;
       py[k] = grid.y0 + j * dy;
-      const [a, b] = receptorNormal(grid.facing, scene, px[k]!, py[k]!);
-      nxs[k] = a;
-      nys[k] = b;
+      receptorNormal(grid.facing, scene, px[k]!, py[k]!, nxs, nys, k);
     }
   }
   const occ = buildOccluders(scene);
@@ -162,21 +182,43 @@ function buildGeometry(scene: Scene, grid: LightMapGrid, key: string): Geometry 
   const kx = Math.ceil((nx - 1) / step) + 1;
   const ky = Math.ceil((ny - 1) / step) + 1;
   const nK = kx * ky;
-  const kernel = new Float64Array(patches.count * nK);
+  const coarseFrame: GridFrame = { nx: kx, ny: ky, x0: grid.x0, y0: grid.y0, dx: dx * step, dy: dy * step };
+  const cx = new Float64Array(nK);
+  const cy = new Float64Array(nK);
+  const cnx = new Float64Array(nK);
+  const cny = new Float64Array(nK);
   for (let b = 0; b < ky; b++) {
     for (let a = 0; a < kx; a++) {
-      const x = grid.x0 + a * step * dx;
-      const y = grid.y0 + b * step * dy;
-      const [rnx, rny] = receptorNormal(grid.facing, scene, x, y);
-      const r = { x, y, z, nx: rnx, ny: rny, nz: 0 };
       const k = b * kx + a;
-      for (let p = 0; p < patches.count; p++) {
-        // exactWithin 0: the point form everywhere (its A/π term keeps it bounded next to a patch).
-        const f = patchFormFactor(patches, p, r, 0);
-        if (f === 0) continue;
-        const t = transmissionAlong(occ, patches.cx[p]!, patches.cy[p]!, patches.cz[p]!, x, y, z, patches.surface[p]!);
-        kernel[p * nK + k] = f * t;
-      }
+      cx[k] = grid.x0 + a * coarseFrame.dx;
+      cy[k] = grid.y0 + b * coarseFrame.dy;
+      receptorNormal(grid.facing, scene, cx[k]!, cy[k]!, cnx, cny, k);
+    }
+  }
+  const kernel = new Float64Array(patches.count * nK);
+  const shade = new Float32Array(nK);
+  for (let p = 0; p < patches.count; p++) {
+    const pcx = patches.cx[p]!;
+    const pcy = patches.cy[p]!;
+    const pnx = patches.nx[p]!;
+    const pny = patches.ny[p]!;
+    const area = patches.area[p]!;
+    const soft = area / Math.PI;
+    const vz = z - patches.cz[p]!;
+    const vz2 = vz * vz;
+    shade.fill(1);
+    castShadows(occ, pcx, pcy, patches.cz[p]!, z, coarseFrame, shade, patches.surface[p]!);
+    const base = p * nK;
+    for (let k = 0; k < nK; k++) {
+      // Point form A·cosθe·cosθr/(r² + A/π), signed by the side of the patch the point is on.
+      const vx = cx[k]! - pcx;
+      const vy = cy[k]! - pcy;
+      const nd = vx * pnx + vy * pny;
+      if (nd === 0) continue;
+      const cosRr = -(vx * cnx[k]! + vy * cny[k]!); // × r
+      if (cosRr <= 0) continue;
+      const r2 = vx * vx + vy * vy + vz2;
+      kernel[base + k] = (nd * cosRr * area * shade[k]!) / (r2 * (r2 + soft));
     }
   }
   return {
@@ -198,33 +240,32 @@ function buildGeometry(scene: Scene, grid: LightMapGrid, key: string): Geometry 
   };
 }
 
-/** Direct exposure of one light at every grid point (hot loop: no allocation, no acos/pow). */
+/** Direct exposure of one light at every grid point (hot loop: no allocation, no acos/pow, no ray tests). */
 function directGrid(L: PreparedLight, g: Geometry, out: Float32Array): void {
-  const occ = g.occ;
-  const m = occ.count;
-  // Per light, the occluder terms that do not depend on the point.
-  const apx = new Float64Array(m);
-  const apy = new Float64Array(m);
-  const tNum = new Float64Array(m);
-  for (let i = 0; i < m; i++) {
-    apx[i] = occ.ax[i]! - L.px;
-    apy[i] = occ.ay[i]! - L.py;
-    tNum[i] = apx[i]! * occ.ex[i]! - apy[i]! * occ.ey[i]!;
-  }
-  const { px, py, nxs, nys, n } = g;
-  const dz = g.z - L.pz;
-  const dz2 = dz * dz;
-  const azdz = L.az * dz;
   const I = L.axialCdS;
-  const R2 = L.faceR2;
-  const lut = L.lut;
   if (I <= 0) {
     out.fill(0);
     return;
   }
+  // Shadows first, as a transmission grid; then the geometry per point.
+  out.fill(1);
+  castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
+  const { px, py, nxs, nys, n } = g;
+  const lpx = L.px;
+  const lpy = L.py;
+  const lax = L.ax;
+  const lay = L.ay;
+  const dz = g.z - L.pz;
+  const dz2 = dz * dz;
+  const azdz = L.az * dz;
+  const R2 = L.faceR2;
+  const lut = L.lut;
+  const last = PROFILE_LUT_SIZE - 1;
   for (let k = 0; k < n; k++) {
-    const dx = px[k]! - L.px;
-    const dy = py[k]! - L.py;
+    const t = out[k]!;
+    if (t === 0) continue;
+    const dx = px[k]! - lpx;
+    const dy = py[k]! - lpy;
     const d2 = dx * dx + dy * dy + dz2;
     const invD = 1 / Math.sqrt(d2);
     const cosInc = -(dx * nxs[k]! + dy * nys[k]!) * invD;
@@ -232,27 +273,14 @@ function directGrid(L: PreparedLight, g: Geometry, out: Float32Array): void {
       out[k] = 0;
       continue;
     }
-    const prof = lookupProfile(lut, (dx * L.ax + dy * L.ay + azdz) * invD);
-    if (prof <= 0) {
-      out[k] = 0;
-      continue;
-    }
-    let trans = 1;
-    for (let i = 0; i < m; i++) {
-      const ex = occ.ex[i]!;
-      const ey = occ.ey[i]!;
-      const denom = dx * ey - dy * ex;
-      if (denom === 0) continue;
-      const t = tNum[i]! / denom;
-      if (t <= 1e-9 || t >= 1 - 1e-9) continue;
-      const s = (apx[i]! * dy - apy[i]! * dx) / denom;
-      if (s < 0 || s > 1) continue;
-      const z = L.pz + t * dz;
-      if (z < occ.zLo[i]! || z > occ.zHi[i]!) continue;
-      trans *= occ.transmission[i]!;
-      if (trans === 0) break;
-    }
-    out[k] = (I * prof * cosInc * trans) / Math.max(MIN_DISTANCE_SQ_M2, d2 + R2);
+    // Beam profile from the table indexed by sin(θ/2) (see modifiers.profileLut), inlined.
+    const u2 = (1 - (dx * lax + dy * lay + azdz) * invD) * 0.5;
+    const f = (u2 > 0 ? Math.sqrt(u2) : 0) * last;
+    const j = f | 0;
+    const a = lut[j]!;
+    const prof = a + (lut[j + 1]! - a) * (f - j);
+    const e2 = d2 + R2;
+    out[k] = (I * prof * cosInc * t) / (e2 > MIN_DISTANCE_SQ_M2 ? e2 : MIN_DISTANCE_SQ_M2);
   }
 }
 
@@ -320,7 +348,7 @@ export function createLightMapCache(): LightMapCache {
     stats.geometryRebuilt = false;
     stats.lightsRecomputed = 0;
     stats.lightsReused = 0;
-    const { skipContours: _s, floorStops: _f, contourStepStops: _c, ...gridGeom } = grid;
+    const { skipContours: _s, floorStops: _f, contourStepStops: _c, contourMinStops: _m, contourEngine: _e, ...gridGeom } = grid;
     const gKey = JSON.stringify([
       scene.surfaces,
       scene.flags,
@@ -432,7 +460,15 @@ export function createLightMapCache(): LightMapCache {
       if (v < minS) minS = v;
       if (v > maxS) maxS = v;
     }
-    const contours = grid.skipContours ? [] : contourLines(stops, g.frame, grid.contourStepStops ?? 1, floorStops);
+    const contours = grid.skipContours
+      ? []
+      : (grid.contourEngine === 'd3' ? contourLinesD3 : contourLines)(
+          stops,
+          g.frame,
+          grid.contourStepStops ?? 1,
+          floorStops,
+          grid.contourMinStops ?? DEFAULT_CONTOUR_MIN_STOPS,
+        );
     return {
       nx: g.frame.nx,
       ny: g.frame.ny,

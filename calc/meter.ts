@@ -265,6 +265,7 @@ export function meter(input: SceneInput | Scene): MeterResult {
   // Patch → receptor form factors with occlusion, shared by all lights.
   const nP = patches.count;
   const ff = new Float64Array(nP * nQ);
+  const seen = new Uint8Array(nP); // patches some receptor sees; the others need no light computed
   for (let q = 0; q < nQ; q++) {
     const r = receptors[q]!;
     for (let i = 0; i < nP; i++) {
@@ -272,6 +273,7 @@ export function meter(input: SceneInput | Scene): MeterResult {
       if (f === 0) continue;
       const t = transmissionAlong(occ, patches.cx[i]!, patches.cy[i]!, patches.cz[i]!, r.x, r.y, r.z, patches.surface[i]!);
       ff[i * nQ + q] = f * t;
+      if (t > 0) seen[i] = 1;
     }
   }
 
@@ -292,7 +294,7 @@ export function meter(input: SceneInput | Scene): MeterResult {
       a.rgb[2] += d.luxSeconds * L.rgb[2];
     }
     if (nP === 0 || L.axialCdS <= 0) return;
-    patchIncident(L, patches, occ, incident);
+    patchIncident(L, patches, occ, incident, seen);
     for (let i = 0; i < nP; i++) {
       const e = incident[i]!;
       if (e === 0) continue;
@@ -310,7 +312,7 @@ export function meter(input: SceneInput | Scene): MeterResult {
         a.rgb[0] += cr;
         a.rgb[1] += cg;
         a.rgb[2] += cb;
-        a.bounce += relativeLuminance([cr, cg, cb]);
+        a.bounce += 0.2126 * cr + 0.7152 * cg + 0.0722 * cb; // relative luminance, inlined
       }
     }
   });

@@ -111,6 +111,19 @@ export const PROFILE_LUT_SIZE = 1024;
  * loops avoid acos and pow. Entry j is the profile at θ = 2·asin(j/(N−1)).
  */
 export function profileLut(spec: Pick<ModifierSpec, 'halfAngleDeg' | 'edgeSoftness' | 'backSpill'>): Float64Array {
+  // Tabulating costs ~1000 pow() calls; a drag frame re-prepares lights, so reuse tables by beam shape.
+  const key = `${spec.halfAngleDeg}|${spec.edgeSoftness}|${spec.backSpill}`;
+  const hit = lutCache.get(key);
+  if (hit) return hit;
+  if (lutCache.size > 256) lutCache.clear();
+  const lut = buildProfileLut(spec);
+  lutCache.set(key, lut);
+  return lut;
+}
+
+const lutCache = new Map<string, Float64Array>();
+
+function buildProfileLut(spec: Pick<ModifierSpec, 'halfAngleDeg' | 'edgeSoftness' | 'backSpill'>): Float64Array {
   const lut = new Float64Array(PROFILE_LUT_SIZE + 1);
   for (let j = 0; j < PROFILE_LUT_SIZE; j++) {
     const theta = (2 * Math.asin(j / (PROFILE_LUT_SIZE - 1))) / DEG;

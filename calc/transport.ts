@@ -28,20 +28,26 @@ export function transmissionAlong(
 ): number {
   const dx = qx - px;
   const dy = qy - py;
+  const { ax, ay, ex, ey, surface } = o;
   let trans = 1;
   for (let i = 0; i < o.count; i++) {
-    if (o.surface[i] === skipSurface && skipSurface >= 0) continue;
-    const ex = o.ex[i]!;
-    const ey = o.ey[i]!;
-    const denom = dx * ey - dy * ex;
+    if (surface[i] === skipSurface) continue;
+    const exi = ex[i]!;
+    const eyi = ey[i]!;
+    let denom = dx * eyi - dy * exi;
     if (denom === 0) continue; // parallel
-    const apx = o.ax[i]! - px;
-    const apy = o.ay[i]! - py;
-    const t = (apx * ey - apy * ex) / denom; // along P→Q
-    if (t <= 1e-9 || t >= 1 - 1e-9) continue;
-    const s = (apx * dy - apy * dx) / denom; // along the occluder
-    if (s < 0 || s > 1) continue;
-    const z = pz + t * (qz - pz);
+    const apx = ax[i]! - px;
+    const apy = ay[i]! - py;
+    // t = tn/denom along P→Q, s = sn/denom along the occluder; compare without dividing.
+    let tn = apx * eyi - apy * exi;
+    let sn = apx * dy - apy * dx;
+    if (denom < 0) {
+      denom = -denom;
+      tn = -tn;
+      sn = -sn;
+    }
+    if (sn < 0 || sn > denom || tn <= 1e-9 * denom || tn >= (1 - 1e-9) * denom) continue;
+    const z = pz + (tn / denom) * (qz - pz);
     if (z < o.zLo[i]! || z > o.zHi[i]!) continue;
     trans *= o.transmission[i]!;
     if (trans === 0) return 0;
@@ -141,12 +147,19 @@ export function patchFormFactor(P: Patches, i: number, q: Receptor, exactWithin:
 
 /**
  * Illuminance-time on every patch from one light, signed by the side it lights (+ front, − back).
- * The patch's own surface does not shadow it.
+ * The patch's own surface does not shadow it. `needed`: patches to compute (others get 0), e.g. those
+ * that some receptor sees.
  */
-export function patchIncident(L: PreparedLight, P: Patches, occ: Occluders, out: Float64Array): void {
+export function patchIncident(
+  L: PreparedLight,
+  P: Patches,
+  occ: Occluders,
+  out: Float64Array,
+  needed?: Uint8Array,
+): void {
   for (let i = 0; i < P.count; i++) {
     out[i] = 0;
-    if (L.axialCdS <= 0) continue;
+    if (L.axialCdS <= 0 || (needed && needed[i] === 0)) continue;
     const dx = P.cx[i]! - L.px;
     const dy = P.cy[i]! - L.py;
     const dz = P.cz[i]! - L.pz;

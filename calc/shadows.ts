@@ -1,0 +1,118 @@
+/**
+ * Shadows cast on a grid, by rasterising each occluder's shadow instead of testing every ray.
+ *
+ * Seen from a source S, the points Q of the plane z = zQ whose ray S→Q crosses the plan segment AB at a
+ * fraction t of the way (with the ray's height there inside the occluder's height range, t ∈ [tMin, tMax])
+ * are exactly Q = S + (C − S)/t for C on AB: the quadrilateral between the copies of AB scaled about S by
+ * 1/tMax and 1/tMin. So one shadow is one convex quadrilateral, filled row by row. This gives the same
+ * answer as transport.transmissionAlong for every grid point, at a cost per shadowed cell instead of per
+ * (point × occluder) ray test.
+ */
+import type { GridFrame } from './contours';
+import type { Occluders } from './prepare';
+
+const qu = new Float64Array(4);
+const qv = new Float64Array(4);
+
+/**
+ * Multiply into `trans` (row-major, frame.nx × frame.ny) the transmission of every occluder's shadow cast
+ * from source (sx, sy, sz) onto the grid plane at height zQ. skipSurface: a surface index that casts nothing
+ * (the surface a bounce patch sits on).
+ */
+export function castShadows(
+  occ: Occluders,
+  sx: number,
+  sy: number,
+  sz: number,
+  zQ: number,
+  frame: GridFrame,
+  trans: Float32Array,
+  skipSurface = -1,
+): void {
+  const { nx, ny, x0, y0, dx, dy } = frame;
+  const gridSpan = Math.hypot((nx - 1) * dx, (ny - 1) * dy);
+  const toGrid = Math.hypot(x0 + ((nx - 1) * dx) / 2 - sx, y0 + ((ny - 1) * dy) / 2 - sy);
+  const dzQ = zQ - sz;
+  for (let o = 0; o < occ.count; o++) {
+    if (skipSurface >= 0 && occ.surface[o] === skipSurface) continue;
+    const T = occ.transmission[o]!;
+    if (T === 1) continue;
+    // Range of the crossing fraction t for which the ray's height is inside the occluder.
+    let tMin: number;
+    let tMax: number;
+    const lo = occ.zLo[o]!;
+    const hi = occ.zHi[o]!;
+    if (dzQ === 0) {
+      if (sz < lo || sz > hi) continue;
+      tMin = 0;
+      tMax = 1;
+    } else {
+      const ta = (lo - sz) / dzQ;
+      const tb = (hi - sz) / dzQ;
+      tMin = Math.max(0, Math.min(ta, tb));
+      tMax = Math.min(1 - 1e-9, Math.max(ta, tb));
+    }
+    if (!(tMax > tMin) || tMax <= 1e-9) continue;
+    const ax = occ.ax[o]! - sx;
+    const ay = occ.ay[o]! - sy;
+    const bx = ax + occ.ex[o]!;
+    const by = ay + occ.ey[o]!;
+    const cr = ax * by - ay * bx;
+    const segLen = Math.hypot(occ.ex[o]!, occ.ey[o]!);
+    if (Math.abs(cr) < 1e-12 || segLen === 0) continue; // source on the occluder's line: no area in shadow
+    const h = Math.abs(cr) / segLen; // distance from the source to the occluder's line
+    const kNear = 1 / tMax;
+    const kFar = tMin > 1e-9 ? Math.min(1 / tMin, (gridSpan + toGrid + 1) / h) : (gridSpan + toGrid + 1) / h;
+    if (!(kFar > kNear)) continue;
+    // Quadrilateral in grid index space (u, v), convex.
+    qu[0] = (sx + ax * kNear - x0) / dx;
+    qv[0] = (sy + ay * kNear - y0) / dy;
+    qu[1] = (sx + bx * kNear - x0) / dx;
+    qv[1] = (sy + by * kNear - y0) / dy;
+    qu[2] = (sx + bx * kFar - x0) / dx;
+    qv[2] = (sy + by * kFar - y0) / dy;
+    qu[3] = (sx + ax * kFar - x0) / dx;
+    qv[3] = (sy + ay * kFar - y0) / dy;
+    fillConvexQuad(trans, nx, ny, T);
+  }
+}
+
+/** Multiply cells (i, j) inside the quad (qu, qv) by T, edges included. */
+function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number): void {
+  let vMin = Infinity;
+  let vMax = -Infinity;
+  for (let k = 0; k < 4; k++) {
+    const v = qv[k]!;
+    if (v < vMin) vMin = v;
+    if (v > vMax) vMax = v;
+  }
+  const j0 = Math.max(0, Math.ceil(vMin - 1e-9));
+  const j1 = Math.min(ny - 1, Math.floor(vMax + 1e-9));
+  for (let j = j0; j <= j1; j++) {
+    let uMin = Infinity;
+    let uMax = -Infinity;
+    for (let k = 0; k < 4; k++) {
+      const ua = qu[k]!;
+      const va = qv[k]!;
+      const ub = qu[(k + 1) & 3]!;
+      const vb = qv[(k + 1) & 3]!;
+      if ((va - j) * (vb - j) > 0) continue; // edge does not reach this row
+      let u: number;
+      if (va === vb) {
+        // horizontal edge on this row: both ends count
+        if (ua < uMin) uMin = ua;
+        if (ua > uMax) uMax = ua;
+        u = ub;
+      } else {
+        u = ua + ((j - va) * (ub - ua)) / (vb - va);
+      }
+      if (u < uMin) uMin = u;
+      if (u > uMax) uMax = u;
+    }
+    if (!(uMax >= uMin)) continue;
+    const i0 = Math.max(0, Math.ceil(uMin - 1e-9));
+    const i1 = Math.min(nx - 1, Math.floor(uMax + 1e-9));
+    const row = j * nx;
+    for (let i = i0; i <= i1; i++) trans[row + i]! *= T;
+  }
+}
