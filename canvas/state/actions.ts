@@ -1,0 +1,225 @@
+// Every editor command is an action: a name, a label, a shortcut, when it applies, and a pure perform
+// that returns the next state. The toolbar, the keyboard, gestures and the tests all go through these.
+import type { Item, ItemKind, SetupDocument, Shot, Step } from '../../model/document';
+import type { Point } from '../../model/geometry';
+import { anchorOf, angleTo, createItem, isSegment, moveItem, withAngle, itemsInBox } from '../../model/kinds';
+import { itemSchema } from '../../model/document';
+import { commit, mapItems, nextId, redo, undo, type EditorState } from './editor';
+import { snapPoint, tidy } from './snap';
+
+type Perform<A> = (s: EditorState, arg: A) => EditorState;
+export type Action<A = void> = {
+  id: string;
+  label: string;
+  /** e.g. "Mod+Z", "Shift+ArrowUp", "Delete"; Mod is Ctrl, or Cmd on a Mac. */
+  shortcut?: string[];
+  enabled: (s: EditorState) => boolean;
+  perform: Perform<A>;
+};
+
+const writable = (s: EditorState) => !s.readOnly;
+const hasSelection = (s: EditorState) => !s.readOnly && s.selection.length > 0;
+const unlockedSelection = (s: EditorState) =>
+  new Set(s.doc.items.filter((i) => s.selection.includes(i.id) && !i.locked).map((i) => i.id));
+
+const tidyItem = (i: Item): Item =>
+  isSegment(i)
+    ? { ...i, a: { x: tidy(i.a.x), y: tidy(i.a.y) }, b: { x: tidy(i.b.x), y: tidy(i.b.y) } }
+    : ({ ...i, x: tidy((i as { x: number }).x), y: tidy((i as { y: number }).y) } as Item);
+
+function define<A = void>(a: Action<A>): Action<A> {
+  return a;
+}
+
+export const actions = {
+  addItem: define<{ kind: ItemKind; at: Point }>({
+    id: 'add-item',
+    label: 'Add to plan',
+    enabled: writable,
+    perform: (s, { kind, at }) => {
+      const item = createItem(kind, nextId(s.doc, kind), { x: tidy(at.x), y: tidy(at.y) });
+      const next = commit(s, { ...s.doc, items: [...s.doc.items, item] });
+      return { ...next, selection: [item.id] };
+    },
+  }),
+
+  /** Move the given items to where they were at the gesture's start plus (dx, dy), snapping the first. */
+  dragItems: define<{ origin: Item[]; dx: number; dy: number; gestureKey: string }>({
+    id: 'drag-items',
+    label: 'Move',
+    enabled: hasSelection,
+    perform: (s, { origin, dx, dy, gestureKey }) => {
+      const movable = origin.filter((i) => !i.locked);
+      const first = movable[0];
+      if (!first) return s;
+      const ids = new Set(movable.map((i) => i.id));
+      const a = anchorOf(first);
+      const target = { x: a.x + dx, y: a.y + dy };
+      const snapped = s.snap ? snapPoint(target, s.doc.items, ids) : target;
+      const ddx = snapped.x - a.x;
+      const ddy = snapped.y - a.y;
+      const byId = new Map(movable.map((i) => [i.id, i]));
+      return commit(s, mapItems(s.doc, ids, (i) => tidyItem(moveItem(byId.get(i.id)!, ddx, ddy))), gestureKey);
+    },
+  }),
+
+  /** Move one end of a wall, tape or arrow. */
+  dragEnd: define<{ id: string; end: 'a' | 'b'; to: Point; gestureKey: string }>({
+    id: 'drag-end',
+    label: 'Move end',
+    enabled: writable,
+    perform: (s, { id, end, to, gestureKey }) => {
+      const p = s.snap ? snapPoint(to, s.doc.items, new Set([id])) : to;
+      return commit(
+        s,
+        mapItems(s.doc, new Set([id]), (i) => (isSegment(i) && !i.locked ? { ...i, [end]: { x: tidy(p.x), y: tidy(p.y) } } : i)),
+        gestureKey,
+      );
+    },
+  }),
+
+  /** Turn an item to point at a plan point (the rotate handle); snaps to 5° steps while snapping is on. */
+  aimAt: define<{ id: string; at: Point; gestureKey: string }>({
+    id: 'aim-at',
+    label: 'Rotate',
+    enabled: writable,
+    perform: (s, { id, at, gestureKey }) =>
+      commit(
+        s,
+        mapItems(s.doc, new Set([id]), (i) => {
+          if (i.locked) return i;
+          const deg = angleTo(anchorOf(i), at);
+          return withAngle(i, s.snap ? Math.round(deg / 5) * 5 : deg);
+        }),
+        gestureKey,
+      ),
+  }),
+
+  /** Change fields of one item from the inspector; the result must pass the shared schema. */
+  updateItem: define<{ id: string; patch: Record<string, unknown>; gestureKey?: string }>({
+    id: 'update-item',
+    label: 'Change',
+    enabled: writable,
+    perform: (s, { id, patch, gestureKey }) =>
+      commit(
+        s,
+        mapItems(s.doc, new Set([id]), (i) => {
+          const r = itemSchema.safeParse({ ...i, ...patch, id: i.id, kind: i.kind });
+          return r.success ? r.data : i;
+        }),
+        gestureKey ?? null,
+      ),
+  }),
+
+  /** Change plan-wide fields (ambient EV, target aperture, stage). */
+  updateDocument: define<{ patch: Partial<Pick<SetupDocument, 'ambientEv100' | 'targetAperture' | 'stage'>>; gestureKey?: string }>({
+    id: 'update-document',
+    label: 'Change plan',
+    enabled: writable,
+    perform: (s, { patch, gestureKey }) => commit(s, { ...s.doc, ...patch }, gestureKey ?? null),
+  }),
+
+  nudge: define<{ dx: number; dy: number }>({
+    id: 'nudge',
+    label: 'Nudge',
+    shortcut: ['ArrowUp', 'ArrowDown', 'ArrowLeft', 'ArrowRight', 'Shift+Arrow…'],
+    enabled: hasSelection,
+    perform: (s, { dx, dy }) => commit(s, mapItems(s.doc, unlockedSelection(s), (i) => tidyItem(moveItem(i, dx, dy)))),
+  }),
+
+  deleteSelection: define({
+    id: 'delete',
+    label: 'Delete',
+    shortcut: ['Delete', 'Backspace'],
+    enabled: hasSelection,
+    perform: (s) => {
+      const gone = unlockedSelection(s);
+      if (!gone.size) return s;
+      const items = s.doc.items.filter((i) => !gone.has(i.id));
+      const steps = s.doc.steps.map((st) => ({ ...st, itemIds: st.itemIds.filter((id) => !gone.has(id)) }));
+      return commit(s, { ...s.doc, items, steps });
+    },
+  }),
+
+  duplicateSelection: define({
+    id: 'duplicate',
+    label: 'Duplicate',
+    shortcut: ['Mod+D'],
+    enabled: hasSelection,
+    perform: (s) => {
+      let doc = s.doc;
+      const copies: Item[] = [];
+      for (const i of s.doc.items.filter((it) => s.selection.includes(it.id))) {
+        const copy = tidyItem(moveItem({ ...i, id: nextId(doc, i.kind), locked: false }, 0.5, 0.5));
+        copies.push(copy);
+        doc = { ...doc, items: [...doc.items, copy] };
+      }
+      return { ...commit(s, doc), selection: copies.map((c) => c.id) };
+    },
+  }),
+
+  toggleLock: define({
+    id: 'lock',
+    label: 'Lock or unlock',
+    shortcut: ['Mod+L'],
+    enabled: hasSelection,
+    perform: (s) => {
+      const sel = new Set(s.selection);
+      const lock = s.doc.items.some((i) => sel.has(i.id) && !i.locked);
+      return commit(s, mapItems(s.doc, sel, (i) => (i.locked === lock ? i : { ...i, locked: lock })));
+    },
+  }),
+
+  undo: define({ id: 'undo', label: 'Undo', shortcut: ['Mod+Z'], enabled: (s) => !s.readOnly && s.past.length > 0, perform: (s) => undo(s) }),
+  redo: define({ id: 'redo', label: 'Redo', shortcut: ['Mod+Shift+Z', 'Mod+Y'], enabled: (s) => !s.readOnly && s.future.length > 0, perform: (s) => redo(s) }),
+
+  select: define<{ ids: string[]; additive?: boolean }>({
+    id: 'select',
+    label: 'Select',
+    enabled: () => true,
+    perform: (s, { ids, additive }) => {
+      if (!additive) return { ...s, selection: ids };
+      const set = new Set(s.selection);
+      for (const id of ids) set.has(id) ? set.delete(id) : set.add(id);
+      return { ...s, selection: [...set] };
+    },
+  }),
+
+  selectInBox: define<{ from: Point; to: Point; additive?: boolean }>({
+    id: 'select-box',
+    label: 'Select in box',
+    enabled: () => true,
+    perform: (s, { from, to, additive }) => {
+      const ids = itemsInBox(s.doc.items, from, to).map((i) => i.id);
+      return { ...s, selection: additive ? [...new Set([...s.selection, ...ids])] : ids };
+    },
+  }),
+
+  selectAll: define({ id: 'select-all', label: 'Select all', shortcut: ['Mod+A'], enabled: () => true, perform: (s) => ({ ...s, selection: s.doc.items.map((i) => i.id) }) }),
+  clearSelection: define({ id: 'clear-selection', label: 'Clear selection', shortcut: ['Escape'], enabled: () => true, perform: (s) => ({ ...s, selection: [] }) }),
+  toggleSnap: define({ id: 'snap', label: 'Snap to grid and walls', enabled: () => true, perform: (s) => ({ ...s, snap: !s.snap }) }),
+
+  // Steps and shot list.
+  setSteps: define<{ steps: Step[]; gestureKey?: string }>({
+    id: 'set-steps',
+    label: 'Change steps',
+    enabled: writable,
+    perform: (s, { steps, gestureKey }) => commit(s, { ...s.doc, steps }, gestureKey ?? null),
+  }),
+  setShots: define<{ shots: Shot[]; gestureKey?: string }>({
+    id: 'set-shots',
+    label: 'Change shot list',
+    enabled: writable,
+    perform: (s, { shots, gestureKey }) => commit(s, { ...s.doc, shots }, gestureKey ?? null),
+  }),
+};
+
+export type Actions = typeof actions;
+export type ActionName = keyof Actions;
+export type ActionArg<N extends ActionName> = Actions[N] extends Action<infer A> ? A : never;
+
+/** Run an action if it applies; otherwise the state is returned unchanged. */
+export function run<N extends ActionName>(s: EditorState, name: N, ...arg: ActionArg<N> extends void ? [] : [ActionArg<N>]): EditorState {
+  const a = actions[name] as unknown as Action<ActionArg<N>>;
+  return a.enabled(s) ? a.perform(s, arg[0] as ActionArg<N>) : s;
+}
