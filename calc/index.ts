@@ -65,6 +65,7 @@ export {
   beamSolidAngleSr,
 } from './modifiers';
 export * from './scene';
+export { BARE_REFLECTOR_BEAM_SR, MIN_DISTANCE_SQ_M2 } from './prepare';
 export {
   type ColourReading,
   type LightReading,

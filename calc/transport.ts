@@ -31,7 +31,7 @@ export function transmissionAlong(
   const { ax, ay, ex, ey, surface } = o;
   let trans = 1;
   for (let i = 0; i < o.count; i++) {
-    if (surface[i] === skipSurface) continue;
+    if (skipSurface >= 0 && surface[i] === skipSurface) continue;
     const exi = ex[i]!;
     const eyi = ey[i]!;
     let denom = dx * eyi - dy * exi;
