@@ -1,93 +1,308 @@
-// Setup queries. Callers (server/routes) have already checked the caller's role.
-import { and, desc, eq, ilike, isNull, lt, or, sql, inArray, arrayContains } from 'drizzle-orm';
-import type { SetupSummary } from '../model/api';
-import type { SetupDocument } from '../model/document';
+// Setup queries. Callers (server/routes) have already checked the caller's role. Every list is one query.
+import { and, arrayContains, asc, desc, eq, gt, ilike, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
+import type { SetupDetail, SetupSaved, SetupSort, SetupSummary, TagCount } from '../model/api';
+import { CURRENT_SCHEMA_VERSION, parseDocument, type SetupDocument } from '../model/document';
 import type { Db } from './client';
-import { setups, studioMembers, studios } from './schema';
+import { setups, setupVersions, studioMembers, studios, user } from './schema';
 
 export type SetupRow = typeof setups.$inferSelect;
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+type Conn = Db | Tx;
 
-type Cursor = { updatedAt: string; id: string };
-export function encodeCursor(c: Cursor): string {
-  return Buffer.from(`${c.updatedAt}|${c.id}`).toString('base64url');
+/** A deleted setup can be restored for this many days; after that only an explicit purge removes it. */
+export const RESTORE_DAYS = 30;
+const restoreWindow = sql`now() - make_interval(days => ${RESTORE_DAYS})`;
+
+// ---------------------------------------------------------------------------------------------
+// Lists
+
+export type ListMode = 'library' | 'templates' | 'deleted';
+export type ListOptions = { mode: ListMode; sort: SetupSort; studio?: string; q?: string; tag?: string; cursor?: string; limit: number };
+
+/** A page boundary: the last row's sort key (as PostgreSQL text, so timestamps keep their microseconds) and id. */
+type Cursor = { o: string; k: string; id: string };
+/** timestamptz as PostgreSQL prints it, e.g. 2026-12-01 18:26:03.188123+00 */
+const PG_TIMESTAMPTZ = /^\d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2}(\.\d{1,6})?[+-]\d{2}(:\d{2}){0,2}$/;
+const encodeCursor = (c: Cursor) => Buffer.from(JSON.stringify(c)).toString('base64url');
+function decodeCursor(s: string, order: string): Cursor | null {
+  try {
+    const c = JSON.parse(Buffer.from(s, 'base64url').toString('utf8')) as Partial<Cursor>;
+    if (c.o !== order || typeof c.k !== 'string' || typeof c.id !== 'string' || !/^[0-9a-f-]{36}$/.test(c.id)) return null;
+    if (c.o !== 'title' && !PG_TIMESTAMPTZ.test(c.k)) return null;
+    return c as Cursor;
+  } catch {
+    return null;
+  }
 }
-export function decodeCursor(s: string): Cursor | null {
-  const [updatedAt, id] = Buffer.from(s, 'base64url').toString('utf8').split('|');
-  if (!updatedAt || !id || Number.isNaN(Date.parse(updatedAt)) || !/^[0-9a-f-]{36}$/.test(id)) return null;
-  return { updatedAt, id };
-}
+export class BadCursor extends Error {}
+
+const orders = {
+  updated: { key: setups.updatedAt, text: sql`${setups.updatedAt}::text`, cast: 'timestamptz', dir: 'desc' },
+  created: { key: setups.createdAt, text: sql`${setups.createdAt}::text`, cast: 'timestamptz', dir: 'desc' },
+  title: { key: sql`lower(${setups.title})`, text: sql`lower(${setups.title})`, cast: 'text', dir: 'asc' },
+  deleted: { key: setups.deletedAt, text: sql`${setups.deletedAt}::text`, cast: 'timestamptz', dir: 'desc' },
+} as const;
 
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (m) => `\\${m}`);
+const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
-/** The setups a user may read (member of the studio), newest first, one page. One query. */
-export async function listSetups(
-  db: Db,
-  userId: string,
-  q: { studio?: string; q?: string; tag?: string; cursor?: Cursor | null; limit: number },
-): Promise<{ setups: SetupSummary[]; nextCursor: string | null }> {
-  const memberOf = db.select({ id: studioMembers.studioId }).from(studioMembers).where(eq(studioMembers.userId, userId));
-  const conds = [isNull(setups.deletedAt), inArray(setups.studioId, memberOf)];
-  if (q.studio) conds.push(eq(setups.studioId, q.studio));
-  if (q.q) {
-    const pat = `%${escapeLike(q.q)}%`;
-    conds.push(or(ilike(setups.title, pat), ilike(setups.notes, pat))!);
+/** One page of setups for a user: their studios' setups, every studio's templates, or their restorable deletions. */
+export async function listSetups(db: Db, userId: string, o: ListOptions): Promise<{ setups: SetupSummary[]; nextCursor: string | null }> {
+  const orderName = o.mode === 'deleted' ? 'deleted' : o.sort;
+  const order = orders[orderName];
+  const cursor = o.cursor ? decodeCursor(o.cursor, orderName) : null;
+  if (o.cursor && !cursor) throw new BadCursor();
+
+  const member = and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, userId));
+  const conds: (SQL | undefined)[] = [];
+  if (o.mode === 'templates') conds.push(eq(setups.isTemplate, true), isNull(setups.deletedAt));
+  else if (o.mode === 'deleted') conds.push(isNotNull(setups.deletedAt), gt(setups.deletedAt, restoreWindow), inArray(studioMembers.role, ['owner', 'editor']));
+  else conds.push(isNull(setups.deletedAt));
+  if (o.studio) conds.push(eq(setups.studioId, o.studio));
+  if (o.q) {
+    const pat = `%${escapeLike(o.q.trim())}%`;
+    conds.push(or(ilike(setups.title, pat), ilike(setups.notes, pat), arrayContains(setups.tags, [o.q.trim().toLowerCase()])));
   }
-  if (q.tag) conds.push(arrayContains(setups.tags, [q.tag]));
-  if (q.cursor) {
-    const at = new Date(q.cursor.updatedAt);
-    conds.push(or(lt(setups.updatedAt, at), and(eq(setups.updatedAt, at), lt(setups.id, q.cursor.id)))!);
+  if (o.tag) conds.push(arrayContains(setups.tags, [o.tag]));
+  if (cursor) {
+    const k = sql`${cursor.k}::${sql.raw(order.cast)}`;
+    conds.push(order.dir === 'desc' ? sql`(${order.key}, ${setups.id}) < (${k}, ${cursor.id}::uuid)` : sql`(${order.key}, ${setups.id}) > (${k}, ${cursor.id}::uuid)`);
   }
-  const rows = await db
+
+  const base = db
     .select({
       id: setups.id,
       studioId: setups.studioId,
       studioName: studios.name,
+      ownerName: user.name,
       title: setups.title,
       tags: setups.tags,
       version: setups.version,
       isTemplate: setups.isTemplate,
-      itemCount: sql<number>`coalesce(jsonb_array_length(${setups.document}->'items'), 0)`.mapWith(Number),
+      itemCount: setups.itemCount,
+      createdAt: setups.createdAt,
       updatedAt: setups.updatedAt,
+      deletedAt: setups.deletedAt,
+      role: studioMembers.role,
+      sortKey: sql<string>`${order.text}`,
     })
     .from(setups)
     .innerJoin(studios, eq(studios.id, setups.studioId))
+    .leftJoin(user, eq(user.id, setups.ownerId));
+  const joined = o.mode === 'templates' ? base.leftJoin(studioMembers, member) : base.innerJoin(studioMembers, member);
+  const dir = order.dir === 'desc' ? desc : asc;
+  const rows = await joined
     .where(and(...conds))
-    .orderBy(desc(setups.updatedAt), desc(setups.id))
-    .limit(q.limit + 1);
-  const page = rows.slice(0, q.limit);
+    .orderBy(dir(order.key), dir(setups.id))
+    .limit(o.limit + 1);
+
+  const page = rows.slice(0, o.limit);
   const last = page[page.length - 1];
   return {
-    setups: page.map((r) => ({ ...r, updatedAt: r.updatedAt.toISOString() })),
-    nextCursor: rows.length > q.limit && last ? encodeCursor({ updatedAt: last.updatedAt.toISOString(), id: last.id }) : null,
+    setups: page.map(({ sortKey: _k, ...r }) => ({
+      ...r,
+      createdAt: r.createdAt.toISOString(),
+      updatedAt: r.updatedAt.toISOString(),
+      deletedAt: iso(r.deletedAt),
+      restorableUntil: r.deletedAt ? new Date(r.deletedAt.getTime() + RESTORE_DAYS * 86_400_000).toISOString() : null,
+    })),
+    nextCursor: rows.length > o.limit && last ? encodeCursor({ o: orderName, k: last.sortKey, id: last.id }) : null,
   };
 }
 
-export async function createSetup(
-  db: Db,
-  v: { studioId: string; ownerId: string; title: string; document: SetupDocument; notes?: string; tags?: string[]; isTemplate?: boolean },
-): Promise<SetupRow> {
-  const [row] = await db
-    .insert(setups)
-    .values({
-      studioId: v.studioId,
-      ownerId: v.ownerId,
-      title: v.title,
-      notes: v.notes ?? '',
-      tags: v.tags ?? [],
-      document: v.document,
-      schemaVersion: v.document.schemaVersion,
-      isTemplate: v.isTemplate ?? false,
-    })
-    .returning();
-  return row!;
+/** The tags in use on the setups a user may read, most used first. One query. */
+export async function tagsInUse(db: Db, userId: string, studio?: string): Promise<TagCount[]> {
+  const r = await db.execute<{ tag: string; count: number }>(sql`
+    select t.tag, count(*)::int as count
+    from ${setups} s
+    join ${studioMembers} m on m.studio_id = s.studio_id and m.user_id = ${userId}
+    cross join lateral unnest(s.tags) as t(tag)
+    where s.deleted_at is null ${studio ? sql`and s.studio_id = ${studio}` : sql``}
+    group by t.tag order by count(*) desc, t.tag limit 60`);
+  return r.rows.map((x) => ({ tag: x.tag, count: Number(x.count) }));
 }
 
-/** A setup (not deleted) with the caller's role in its studio (null when not a member). One query. */
-export async function getSetupWithRole(db: Db, id: string, userId: string) {
+// ---------------------------------------------------------------------------------------------
+// One setup
+
+/** What a route needs to decide access, without reading the document. Deleted setups included. */
+export async function getSetupAccess(db: Conn, id: string, userId: string) {
   const [row] = await db
-    .select({ setup: setups, role: studioMembers.role })
+    .select({ id: setups.id, studioId: setups.studioId, isTemplate: setups.isTemplate, deletedAt: setups.deletedAt, version: setups.version, role: studioMembers.role })
     .from(setups)
     .leftJoin(studioMembers, and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, userId)))
-    .where(and(eq(setups.id, id), isNull(setups.deletedAt)));
+    .where(eq(setups.id, id));
   return row ?? null;
+}
+export type SetupAccess = NonNullable<Awaited<ReturnType<typeof getSetupAccess>>>;
+
+/**
+ * A setup with its document, for the caller (their role included). The document comes back as the JSON text
+ * PostgreSQL stores when it is at the current schema version, so the route can send it without parsing and
+ * re-serialising it; older documents are migrated and parsed here. One query.
+ */
+export async function getSetupDetail(db: Conn, id: string, userId: string): Promise<{ meta: Omit<SetupDetail, 'document'>; documentJson: string } | null> {
+  const [row] = await db
+    .select({
+      id: setups.id,
+      studioId: setups.studioId,
+      studioName: studios.name,
+      ownerId: setups.ownerId,
+      ownerName: user.name,
+      title: setups.title,
+      notes: setups.notes,
+      tags: setups.tags,
+      schemaVersion: setups.schemaVersion,
+      version: setups.version,
+      isTemplate: setups.isTemplate,
+      createdAt: setups.createdAt,
+      updatedAt: setups.updatedAt,
+      role: studioMembers.role,
+      documentJson: sql<string>`${setups.document}::text`,
+    })
+    .from(setups)
+    .innerJoin(studios, eq(studios.id, setups.studioId))
+    .leftJoin(user, eq(user.id, setups.ownerId))
+    .leftJoin(studioMembers, and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, userId)))
+    .where(eq(setups.id, id));
+  if (!row) return null;
+  const { documentJson, ...meta } = row;
+  const current = meta.schemaVersion === CURRENT_SCHEMA_VERSION;
+  return {
+    meta: { ...meta, schemaVersion: CURRENT_SCHEMA_VERSION, createdAt: meta.createdAt.toISOString(), updatedAt: meta.updatedAt.toISOString() },
+    documentJson: current ? documentJson : JSON.stringify(parseDocument(JSON.parse(documentJson))),
+  };
+}
+
+/** The detail as a plain object (tests, the 409 body). */
+export async function getSetupDetailObject(db: Conn, id: string, userId: string): Promise<SetupDetail | null> {
+  const d = await getSetupDetail(db, id, userId);
+  return d ? { ...d.meta, document: JSON.parse(d.documentJson) as SetupDocument } : null;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Writes
+
+/**
+ * Record the setup's current state as a history row, unless it equals the latest recorded one (a save that
+ * changed nothing, or only the template flag). Runs inside the writing transaction; copies inside PostgreSQL,
+ * so the document is not sent twice.
+ */
+export async function recordVersion(tx: Conn, setupId: string, userId: string | null) {
+  await tx.execute(sql`
+    insert into ${setupVersions} (setup_id, version, title, notes, tags, document, schema_version, item_count, saved_by, saved_at)
+    select s.id, s.version, s.title, s.notes, s.tags, s.document, s.schema_version, s.item_count, ${userId}, s.updated_at
+    from ${setups} s
+    where s.id = ${setupId}
+      and not exists (
+        select 1 from (select * from ${setupVersions} v where v.setup_id = s.id order by v.version desc limit 1) last
+        where last.document = s.document and last.title = s.title and last.notes = s.notes and last.tags = s.tags)`);
+}
+
+export async function createSetup(
+  db: Conn,
+  v: { studioId: string; ownerId: string; title: string; document: SetupDocument; notes?: string; tags?: string[]; isTemplate?: boolean },
+): Promise<SetupRow> {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(setups)
+      .values({
+        studioId: v.studioId,
+        ownerId: v.ownerId,
+        title: v.title,
+        notes: v.notes ?? '',
+        tags: v.tags ?? [],
+        document: v.document,
+        schemaVersion: v.document.schemaVersion,
+        itemCount: v.document.items.length,
+        isTemplate: v.isTemplate ?? false,
+      })
+      .returning();
+    await recordVersion(tx, row!.id, v.ownerId);
+    return row!;
+  });
+}
+
+export type SetupChanges = { title?: string; notes?: string; tags?: string[]; document?: SetupDocument; isTemplate?: boolean };
+
+const savedColumns = {
+  id: setups.id,
+  studioId: setups.studioId,
+  ownerId: setups.ownerId,
+  title: setups.title,
+  notes: setups.notes,
+  tags: setups.tags,
+  schemaVersion: setups.schemaVersion,
+  version: setups.version,
+  isTemplate: setups.isTemplate,
+  createdAt: setups.createdAt,
+  updatedAt: setups.updatedAt,
+};
+const savedOut = (r: { createdAt: Date; updatedAt: Date } & Omit<SetupSaved, 'createdAt' | 'updatedAt'>): SetupSaved => ({
+  ...r,
+  createdAt: r.createdAt.toISOString(),
+  updatedAt: r.updatedAt.toISOString(),
+});
+
+/**
+ * Save changes made from version `fromVersion`. Atomic: the UPDATE matches only while that version is the
+ * stored one (a concurrent save holding the row makes this one wait, then not match), and the history row is
+ * written in the same transaction. Returns null when nothing was saved (wrong version, deleted, missing).
+ */
+export async function saveSetup(db: Db, id: string, fromVersion: number, c: SetupChanges, userId: string): Promise<SetupSaved | null> {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(setups)
+      .set({
+        ...(c.title !== undefined ? { title: c.title } : {}),
+        ...(c.notes !== undefined ? { notes: c.notes } : {}),
+        ...(c.tags !== undefined ? { tags: c.tags } : {}),
+        ...(c.isTemplate !== undefined ? { isTemplate: c.isTemplate } : {}),
+        ...(c.document ? { document: c.document, schemaVersion: c.document.schemaVersion, itemCount: c.document.items.length } : {}),
+        version: sql`${setups.version} + 1`,
+        updatedAt: sql`now()`,
+      })
+      .where(and(eq(setups.id, id), eq(setups.version, fromVersion), isNull(setups.deletedAt)))
+      .returning(savedColumns);
+    if (!row) return null;
+    await recordVersion(tx, id, userId);
+    return savedOut(row);
+  });
+}
+
+/** Soft delete; false when it was not live. */
+export async function softDeleteSetup(db: Db, id: string): Promise<boolean> {
+  const r = await db.update(setups).set({ deletedAt: sql`now()` }).where(and(eq(setups.id, id), isNull(setups.deletedAt))).returning({ id: setups.id });
+  return r.length > 0;
+}
+
+/** Undo a soft delete within the restore window; false when it is live, past the window or missing. */
+export async function restoreDeletedSetup(db: Db, id: string): Promise<boolean> {
+  const r = await db
+    .update(setups)
+    .set({ deletedAt: null })
+    .where(and(eq(setups.id, id), isNotNull(setups.deletedAt), gt(setups.deletedAt, restoreWindow)))
+    .returning({ id: setups.id });
+  return r.length > 0;
+}
+
+/** Explicit clean-up (not run by any request): remove setups deleted longer ago than the restore window. */
+export async function purgeExpiredDeletions(db: Db): Promise<number> {
+  const r = await db.delete(setups).where(sql`${setups.deletedAt} < ${restoreWindow}`).returning({ id: setups.id });
+  return r.length;
+}
+
+/** Copy a setup (its current state, never its history or comments) into a studio, owned by the caller. */
+export async function duplicateSetup(db: Db, sourceId: string, to: { studioId: string; ownerId: string; title?: string }): Promise<string | null> {
+  return db.transaction(async (tx) => {
+    const r = await tx.execute<{ id: string }>(sql`
+      insert into ${setups} (studio_id, owner_id, title, notes, tags, document, schema_version, item_count, is_template)
+      select ${to.studioId}, ${to.ownerId}, ${to.title ?? sql`left(title, 193) || ' (copy)'`}, notes, tags, document, schema_version, item_count, false
+      from ${setups} where id = ${sourceId}
+      returning id`);
+    const id = r.rows[0]?.id;
+    if (!id) return null;
+    await recordVersion(tx, id, to.ownerId);
+    return id;
+  });
 }

@@ -9,9 +9,14 @@ import { toNodeHandler } from 'better-auth/node';
 import type { Db } from '../db/client';
 import type { Auth } from './auth';
 import { apiNotFound, errorHandler } from './errors';
+import { commentRoutes } from './routes/comments';
 import { healthRoutes } from './routes/health';
+import { historyRoutes } from './routes/history';
+import { invitationRoutes, publicInvitationRoutes, rememberInvitation } from './routes/invitations';
 import { meRoutes } from './routes/me';
+import { meterRoutes } from './routes/meter';
 import { setupRoutes } from './routes/setups';
+import { studioRoutes } from './routes/studios';
 import { requireUser } from './session';
 
 export type AppDeps = { db: Db; auth: Auth; logger: Logger; webDir?: string };
@@ -42,12 +47,20 @@ export function createApp({ db, auth, logger, webDir }: AppDeps) {
 
   app.use('/api', express.json({ limit: BODY_LIMIT }));
   app.use('/api', healthRoutes(db));
+  app.use('/api', publicInvitationRoutes(db));
   app.use('/api', requireUser(auth));
   app.use('/api', meRoutes(db));
   app.use('/api', setupRoutes(db));
+  app.use('/api', historyRoutes(db));
+  app.use('/api', commentRoutes(db));
+  app.use('/api', meterRoutes(db));
+  app.use('/api', studioRoutes(db));
+  app.use('/api', invitationRoutes(db));
   app.use('/api', apiNotFound);
 
   if (webDir && existsSync(join(webDir, 'index.html'))) {
+    // An invitation link opened signed out: remember its token through sign-up (see routes/invitations.ts).
+    app.get('/studios/join/:token', rememberInvitation);
     app.use(express.static(webDir, { index: false, maxAge: '1h' }));
     // A single-page app: every other path is the app, which routes on the client.
     app.get('/{*any}', (_req, res) => res.sendFile(join(webDir, 'index.html')));

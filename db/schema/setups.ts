@@ -1,6 +1,7 @@
-// A setup: the plan document (validated JSON, see model/document.ts) plus what is listed and searched.
+// A setup: the plan document (validated JSON, see model/document.ts) plus what is listed and searched;
+// its history of earlier versions and the comments on it.
 import { sql } from 'drizzle-orm';
-import { boolean, index, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import { user } from './auth';
 import { studios } from './studios';
 
@@ -15,17 +16,68 @@ export const setups = pgTable(
     tags: text('tags').array().notNull().default(sql`'{}'::text[]`),
     document: jsonb('document').notNull(),
     schemaVersion: integer('schema_version').notNull(),
+    /** document.items.length, kept beside the document so a list never has to read (detoast) documents. */
+    itemCount: integer('item_count').notNull().default(0),
     /** Bumped on every save; a save must name the version it started from (optimistic concurrency). */
     version: integer('version').notNull().default(1),
+    /** Templates are readable by every signed-in user (and copied, never edited, by non-members). */
     isTemplate: boolean('is_template').notNull().default(false),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
-    /** Soft delete: restorable for 30 days. */
+    /** Soft delete: restorable for 30 days (RESTORE_DAYS in db/setups.ts). */
     deletedAt: timestamp('deleted_at', { withTimezone: true }),
   },
   (t) => [
-    index('setups_studio_updated_idx').on(t.studioId, t.updatedAt.desc(), t.id),
+    // The library's three orders within a studio, live setups only.
+    index('setups_studio_updated_idx').on(t.studioId, t.updatedAt.desc(), t.id.desc()).where(sql`${t.deletedAt} is null`),
+    index('setups_studio_created_idx').on(t.studioId, t.createdAt.desc(), t.id.desc()).where(sql`${t.deletedAt} is null`),
+    index('setups_studio_title_idx').on(t.studioId, sql`lower(${t.title})`, t.id).where(sql`${t.deletedAt} is null`),
+    // The restore list.
+    index('setups_studio_deleted_idx').on(t.studioId, t.deletedAt.desc()).where(sql`${t.deletedAt} is not null`),
+    // The templates section, across studios.
+    index('setups_template_updated_idx').on(t.updatedAt.desc(), t.id.desc()).where(sql`${t.isTemplate} and ${t.deletedAt} is null`),
     index('setups_tags_idx').using('gin', t.tags),
-    index('setups_template_idx').on(t.isTemplate).where(sql`${t.isTemplate}`),
+    // Search as you type matches any part of a word (ILIKE '%…%'), which trigram indexes serve.
+    index('setups_title_trgm_idx').using('gin', t.title.op('gin_trgm_ops')),
+    index('setups_notes_trgm_idx').using('gin', t.notes.op('gin_trgm_ops')),
   ],
+);
+
+/**
+ * Every distinct saved state of a setup, the current one included (written in the same transaction as the
+ * save). Restoring an old version writes a new version; rows are removed only by an explicit pruning policy
+ * (pruneHistory in db/history.ts), never by a save.
+ */
+export const setupVersions = pgTable(
+  'setup_versions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    setupId: uuid('setup_id').notNull().references(() => setups.id, { onDelete: 'cascade' }),
+    /** The setup's version number this row records. */
+    version: integer('version').notNull(),
+    title: text('title').notNull(),
+    notes: text('notes').notNull(),
+    tags: text('tags').array().notNull(),
+    document: jsonb('document').notNull(),
+    schemaVersion: integer('schema_version').notNull(),
+    itemCount: integer('item_count').notNull(),
+    savedBy: text('saved_by').references(() => user.id, { onDelete: 'set null' }),
+    savedAt: timestamp('saved_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique('setup_versions_setup_version_uq').on(t.setupId, t.version)],
+);
+
+/** Comments on a setup, by any studio member (crew included); optionally pinned to one plan item. */
+export const setupComments = pgTable(
+  'setup_comments',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    setupId: uuid('setup_id').notNull().references(() => setups.id, { onDelete: 'cascade' }),
+    authorId: text('author_id').references(() => user.id, { onDelete: 'set null' }),
+    body: text('body').notNull(),
+    /** The plan item the comment is about (an item id of the document), or null for the whole setup. */
+    itemId: text('item_id'),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('setup_comments_setup_idx').on(t.setupId, t.createdAt, t.id)],
 );

@@ -1,17 +1,51 @@
-// Setups: list, create, read. Thin over db/setups.ts; roles from server/access.ts.
+// Setups: list, create, read, save, delete and restore, duplicate, tags. Thin over db/setups.ts; roles from
+// server/access.ts.
+import type { Response } from 'express';
 import { Router } from 'express';
-import { z } from 'zod';
 import type { Db } from '../../db/client';
-import { createSetup, decodeCursor, getSetupWithRole, listSetups } from '../../db/setups';
+import {
+  BadCursor,
+  createSetup,
+  duplicateSetup,
+  getSetupAccess,
+  getSetupDetail,
+  getSetupDetailObject,
+  listSetups,
+  restoreDeletedSetup,
+  saveSetup,
+  softDeleteSetup,
+  tagsInUse,
+} from '../../db/setups';
 import { studioRoleOf, studiosOf } from '../../db/studios';
-import { createSetupBody, listSetupsQuery } from '../../model/api';
+import { createSetupBody, duplicateSetupBody, listSetupsQuery, updateSetupBody, type StudioRole } from '../../model/api';
 import { emptyDocument } from '../../model/document';
-import { studioCan } from '../access';
+import { checkSetup, pathId, requireSetup, studioCan } from '../access';
 import { HttpError, notFound } from '../errors';
-import { userOf } from '../session';
+import { userOf, type SessionUser } from '../session';
 import { parseBody, parseQuery } from '../validate';
 
-const idParam = z.string().uuid();
+/** Send a setup with its document as stored: the JSON text is spliced in, not parsed and re-serialised. */
+async function sendDetail(db: Db, res: Response, id: string, userId: string, status = 200) {
+  const d = await getSetupDetail(db, id, userId);
+  if (!d) throw notFound('no such setup');
+  const head = JSON.stringify(d.meta);
+  res.status(status).type('application/json').send(`${head.slice(0, -1)},"document":${d.documentJson}}`);
+}
+
+/** The studio a new setup or copy goes into: the one named (the caller must be able to write there), else a default. */
+async function targetStudio(db: Db, user: SessionUser, named: string | undefined, fallback?: { studioId: string; role: StudioRole | null }) {
+  if (named) {
+    const role = await studioRoleOf(db, user.id, named);
+    if (!studioCan.read(role)) throw notFound('no such studio');
+    if (!studioCan.write(role)) throw new HttpError(403, 'forbidden', `your role in this studio (${role}) cannot add setups`);
+    return named;
+  }
+  if (fallback && studioCan.write(fallback.role)) return fallback.studioId;
+  const mine = await studiosOf(db, user.id);
+  const id = (mine.find((s) => s.personal && s.role === 'owner') ?? mine.find((s) => studioCan.write(s.role)))?.id;
+  if (!id) throw new HttpError(403, 'forbidden', 'you have no studio you may add setups to');
+  return id;
+}
 
 export function setupRoutes(db: Db) {
   const r = Router();
@@ -19,35 +53,70 @@ export function setupRoutes(db: Db) {
   r.get('/setups', async (req, res) => {
     const user = userOf(req);
     const q = parseQuery(listSetupsQuery, req);
-    const cursor = q.cursor ? decodeCursor(q.cursor) : null;
-    if (q.cursor && !cursor) throw new HttpError(400, 'invalid_input', 'invalid query: cursor: not a cursor from this API', { fields: { cursor: 'not a cursor from this API' } });
-    res.json(await listSetups(db, user.id, { ...q, cursor }));
+    const mode = q.templates ? 'templates' : q.deleted ? 'deleted' : 'library';
+    try {
+      res.json(await listSetups(db, user.id, { mode, sort: q.sort, studio: q.studio, q: q.q, tag: q.tag, cursor: q.cursor, limit: q.limit }));
+    } catch (err) {
+      if (err instanceof BadCursor) throw new HttpError(400, 'invalid_input', 'invalid query: cursor: not a cursor of this list', { fields: { cursor: 'not a cursor of this list' } });
+      throw err;
+    }
+  });
+
+  r.get('/tags', async (req, res) => {
+    const user = userOf(req);
+    const studio = typeof req.query.studio === 'string' && req.query.studio ? pathId(req.query.studio, 'studio') : undefined;
+    res.json({ tags: await tagsInUse(db, user.id, studio) });
   });
 
   r.post('/setups', async (req, res) => {
     const user = userOf(req);
     const body = parseBody(createSetupBody, req);
-    let studioId = body.studioId;
-    if (!studioId) {
-      const mine = await studiosOf(db, user.id);
-      studioId = (mine.find((s) => s.personal && s.role === 'owner') ?? mine.find((s) => studioCan.write(s.role)))?.id;
-      if (!studioId) throw new HttpError(403, 'forbidden', 'you have no studio you may add setups to');
-    } else {
-      const role = await studioRoleOf(db, user.id, studioId);
-      if (!studioCan.read(role)) throw notFound('no such studio');
-      if (!studioCan.write(role)) throw new HttpError(403, 'forbidden', 'your role in this studio cannot add setups');
+    const studioId = await targetStudio(db, user, body.studioId);
+    if (body.isTemplate && !studioCan.publishTemplates(await studioRoleOf(db, user.id, studioId))) {
+      throw new HttpError(403, 'forbidden', 'only studio owners can publish templates');
     }
     const row = await createSetup(db, { ...body, studioId, ownerId: user.id, document: body.document ?? emptyDocument() });
-    res.status(201).json(row);
+    await sendDetail(db, res, row.id, user.id, 201);
   });
 
   r.get('/setups/:id', async (req, res) => {
-    const user = userOf(req);
-    const id = idParam.safeParse(req.params.id);
-    if (!id.success) throw notFound('no such setup');
-    const found = await getSetupWithRole(db, id.data, user.id);
-    if (!found || !(studioCan.read(found.role) || found.setup.isTemplate)) throw notFound('no such setup');
-    res.json({ ...found.setup, role: found.role });
+    const { user, id } = await requireSetup(db, req, 'read');
+    await sendDetail(db, res, id, user.id);
+  });
+
+  r.put('/setups/:id', async (req, res) => {
+    const { user, id, access } = await requireSetup(db, req, 'write');
+    const { version, ...changes } = parseBody(updateSetupBody, req);
+    if (changes.isTemplate !== undefined) checkSetup(access, 'publish');
+    const saved = await saveSetup(db, id, version, changes, user.id);
+    if (saved) return void res.json(saved);
+    // Nothing matched: someone else saved first, or it was deleted meanwhile (410). Nothing was overwritten.
+    checkSetup(await getSetupAccess(db, id, user.id), 'write');
+    const current = await getSetupDetailObject(db, id, user.id);
+    throw new HttpError(409, 'version_conflict', `this setup was saved by someone else since version ${version}; it is now at version ${current!.version}`, { current });
+  });
+
+  r.delete('/setups/:id', async (req, res) => {
+    const { id } = await requireSetup(db, req, 'write', { deleted: 'allow' });
+    await softDeleteSetup(db, id);
+    res.status(204).end();
+  });
+
+  r.post('/setups/:id/restore', async (req, res) => {
+    const { user, id, access } = await requireSetup(db, req, 'write', { deleted: 'allow' });
+    if (access.deletedAt && !(await restoreDeletedSetup(db, id))) {
+      throw new HttpError(410, 'restore_expired', 'this setup was deleted more than 30 days ago and can no longer be restored');
+    }
+    await sendDetail(db, res, id, user.id);
+  });
+
+  r.post('/setups/:id/duplicate', async (req, res) => {
+    const { user, id, access } = await requireSetup(db, req, 'read');
+    const body = parseBody(duplicateSetupBody, req);
+    const studioId = await targetStudio(db, user, body.studioId, access);
+    const copy = await duplicateSetup(db, id, { studioId, ownerId: user.id, title: body.title });
+    if (!copy) throw notFound('no such setup');
+    await sendDetail(db, res, copy, user.id, 201);
   });
 
   return r;
