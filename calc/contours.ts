@@ -39,7 +39,8 @@ export function contourLines(
   }
   if (!(vMax > vMin)) return [];
   const kLo = Math.max(Math.floor(vMin / stepStops) + 1, Math.floor(lowest / stepStops + 1e-9) + 1);
-  const kHi = Math.floor(vMax / stepStops);
+  // At most 256 levels: a guard against a tiny step on a wide range, not a limit met in practice.
+  const kHi = Math.min(Math.floor(vMax / stepStops), kLo + 255);
   if (kHi < kLo) return [];
   const nLevels = kHi - kLo + 1;
   // Segments per level as pairs of edge ids. Horizontal edge (i, j)–(i+1, j): j·(nx−1) + i;

@@ -26,6 +26,7 @@ import {
   prepareLight,
   surfaceOptics,
 } from './prepare';
+import { DARK_LUX_SECONDS } from './meter';
 import { type Scene, type SceneInput, parseScene } from './scene';
 import { directAt, patchFormFactor, patchIncident, reflectedLuminance, transmissionAlong } from './transport';
 import { DEG } from './vec';
@@ -74,7 +75,7 @@ export type LightMapResult = {
   dxM: number;
   dyM: number;
   heightM: number;
-  /** Stops relative to the reference, row-major (index j·nx + i), clamped below at floorStops. */
+  /** Stops relative to the reference, row-major (index j·nx + i), clamped to [floorStops, +30]. */
   stops: Float32Array;
   /** Luminous exposure from all lights, lux·s, same layout. */
   luxSeconds: Float32Array;
@@ -130,6 +131,8 @@ type LightEntry = {
 
 const DEFAULT_BOUNCE_STEP = 4;
 const DEFAULT_CONTOUR_MIN_STOPS = -6;
+/** Points far brighter than a barely lit subject are clamped here, which keeps the contour count bounded. */
+const MAP_CEILING_STOPS = 30;
 const DEFAULT_MAP_PATCH_M = 1;
 const MAP_MAX_PATCHES_PER_SURFACE = 24;
 
@@ -267,7 +270,8 @@ function directGrid(L: PreparedLight, g: Geometry, out: Float32Array): void {
     const dx = px[k]! - lpx;
     const dy = py[k]! - lpy;
     const d2 = dx * dx + dy * dy + dz2;
-    const invD = 1 / Math.sqrt(d2);
+    // A grid point on the light itself: directions are undefined; the clamp keeps every cosine in [−1, 1].
+    const invD = 1 / Math.sqrt(d2 > 1e-12 ? d2 : 1e-12);
     const cosInc = -(dx * nxs[k]! + dy * nys[k]!) * invD;
     if (!(cosInc > 0)) {
       out[k] = 0;
@@ -441,7 +445,7 @@ export function createLightMapCache(): LightMapCache {
     const sn: [number, number] = [Math.cos(s.facingDeg * DEG), Math.sin(s.facingDeg * DEG)];
     let ref = modelAt(list, g, s.x, s.y, s.heightM, sn[0], sn[1], sumFront, sumBack);
     let reference: LightMapResult['reference'] = 'subject';
-    if (!(ref > 0)) {
+    if (!(ref > DARK_LUX_SECONDS)) {
       ref = 0;
       for (let k = 0; k < n; k++) if (H[k]! > ref) ref = H[k]!;
       reference = 'brightest';
@@ -455,7 +459,7 @@ export function createLightMapCache(): LightMapCache {
     for (let k = 0; k < n; k++) {
       const h = H[k]!;
       lux[k] = h;
-      const v = h > 0 && invRef > 0 ? Math.max(floorStops, Math.log2(h * invRef)) : floorStops;
+      const v = h > 0 && invRef > 0 ? Math.min(MAP_CEILING_STOPS, Math.max(floorStops, Math.log2(h * invRef))) : floorStops;
       stops[k] = v;
       if (v < minS) minS = v;
       if (v > maxS) maxS = v;

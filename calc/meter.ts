@@ -147,7 +147,14 @@ export type MeterResult = {
   warnings: MeterWarning[];
 };
 
-const safeLog2Ratio = (a: number, b: number): number | null => (a > 0 && b > 0 ? Math.log2(a / b) : null);
+/**
+ * Exposures at or below this (lux·s) count as no light: it is some 70 stops below f/1 at ISO 100, and keeps
+ * ratios and power advice finite for geometry that grazes a light.
+ */
+export const DARK_LUX_SECONDS = 1e-20;
+
+const safeLog2Ratio = (a: number, b: number): number | null =>
+  a > DARK_LUX_SECONDS && b > DARK_LUX_SECONDS ? Math.log2(a) - Math.log2(b) : null;
 
 type PointAccum = { direct: number; bounce: number; rgb: [number, number, number] };
 
@@ -156,14 +163,14 @@ function reading(h: number, direct: number, bounce: number, scene: Scene, correc
     luxSeconds: h,
     directLuxSeconds: direct,
     bounceLuxSeconds: bounce,
-    aperture: h > 0 ? apertureForFlashExposure(h, scene.camera.iso, scene.options.calibrationC) : null,
+    aperture: h > DARK_LUX_SECONDS ? apertureForFlashExposure(h, scene.camera.iso, scene.options.calibrationC) : null,
     stopsVsCamera: safeLog2Ratio(h, correctH),
   };
 }
 
 function colourReading(rgb: Rgb, wbK: number): ColourReading | null {
   const y = relativeLuminance(rgb);
-  if (!(y > 0)) return null;
+  if (!(y > DARK_LUX_SECONDS)) return null;
   const n: Rgb = [rgb[0] / y, rgb[1] / y, rgb[2] / y];
   return { hex: hueHex(n, wbK), absoluteHex: hueHex(n), cctK: cctOfLinearRgb(n), linearRgb: n };
 }
@@ -366,7 +373,7 @@ export function meter(input: SceneInput | Scene): MeterResult {
       message: `shutter 1/${Math.round(1 / cam.shutterS)} s is faster than the sync speed 1/${Math.round(1 / cam.syncSpeedS)} s`,
     });
   }
-  if (!(subjH > 0)) warnings.push({ code: 'no-light-on-subject', message: 'no light reaches the subject' });
+  if (!(subjH > DARK_LUX_SECONDS)) warnings.push({ code: 'no-light-on-subject', message: 'no light reaches the subject' });
 
   const lightReadings: LightReading[] = lights.map((L, li) => {
     const l = L.light;
@@ -375,8 +382,8 @@ export function meter(input: SceneInput | Scene): MeterResult {
     const h = a.direct + a.bounce;
     const d = subjectDirect[li]!;
     let forTarget: PowerAdvice = { stopsChange: null, fraction: null, beyondFull: false, belowMinimum: false };
-    if (h > 0) {
-      const stopsChange = Math.log2(targetH / h);
+    if (h > DARK_LUX_SECONDS) {
+      const stopsChange = Math.log2(targetH) - Math.log2(h);
       const fraction = l.powerFraction * Math.pow(2, stopsChange);
       forTarget = { stopsChange, fraction, beyondFull: fraction > 1 + 1e-9, belowMinimum: fraction < L.minPowerFraction * (1 - 1e-9) };
       if (l.enabled && forTarget.beyondFull) {
@@ -430,9 +437,9 @@ export function meter(input: SceneInput | Scene): MeterResult {
     lights: lightReadings,
     keyFill: {
       ...kf,
-      ratio: keyH > 0 && fillH > 0 ? keyH / fillH : null,
-      ratioStops: keyH > 0 && fillH > 0 ? Math.log2(keyH / fillH) : null,
-      litToShadowRatio: keyH > 0 && fillH > 0 ? (keyH + fillH) / fillH : null,
+      ratio: keyH > DARK_LUX_SECONDS && fillH > DARK_LUX_SECONDS ? keyH / fillH : null,
+      ratioStops: safeLog2Ratio(keyH, fillH),
+      litToShadowRatio: keyH > DARK_LUX_SECONDS && fillH > DARK_LUX_SECONDS ? (keyH + fillH) / fillH : null,
     },
     background:
       bg && bgTotal
@@ -453,10 +460,10 @@ export function meter(input: SceneInput | Scene): MeterResult {
     ambient,
     combined: {
       luxSeconds: combinedH,
-      aperture: combinedH > 0 ? apertureForFlashExposure(combinedH, cam.iso, C) : null,
+      aperture: combinedH > DARK_LUX_SECONDS ? apertureForFlashExposure(combinedH, cam.iso, C) : null,
       stopsVsCamera: safeLog2Ratio(combinedH, correctH),
     },
-    allLightsStopsChange: subjH > 0 ? Math.log2(targetH / subjH) : null,
+    allLightsStopsChange: safeLog2Ratio(targetH, subjH),
     warnings,
   };
 }

@@ -62,7 +62,8 @@ export function castShadows(
     if (Math.abs(cr) < 1e-12 || segLen === 0) continue; // source on the occluder's line: no area in shadow
     const h = Math.abs(cr) / segLen; // distance from the source to the occluder's line
     const kNear = 1 / tMax;
-    const kFar = tMin > 1e-9 ? Math.min(1 / tMin, (gridSpan + toGrid + 1) / h) : (gridSpan + toGrid + 1) / h;
+    // Crossings nearer the source than t = 1e-9 do not count, as in the ray test.
+    const kFar = Math.min(tMin > 1e-9 ? 1 / tMin : 1e9, (gridSpan + toGrid + 1) / h);
     if (!(kFar > kNear)) continue;
     // Quadrilateral in grid index space (u, v), convex.
     qu[0] = (sx + ax * kNear - x0) / dx;

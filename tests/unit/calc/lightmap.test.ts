@@ -1,0 +1,204 @@
+import { contours as d3Contours } from 'd3-contour';
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { createLightMapCache, lightMap, meter, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../../calc';
+import { contourLines } from '../../../calc/contours';
+import { buildOccluders } from '../../../calc/prepare';
+import { castShadows } from '../../../calc/shadows';
+import { transmissionAlong } from '../../../calc/transport';
+
+const flash = (id: string, x: number, y: number, aimDeg: number, over: Partial<LightInput> = {}): LightInput =>
+  ({ id, kind: 'flash', x, y, heightM: 1.6, aimDeg, output: { type: 'guideNumber', guideNumberM: 32 }, modifierOverride: { faceRadiusM: 0 }, ...over }) as LightInput;
+
+const room = (lights: LightInput[], over: Partial<SceneInput> = {}): SceneInput => ({
+  lights,
+  surfaces: [
+    { id: 'n', x1: 0, y1: 0, x2: 6, y2: 0, colour: '#d0d0d0' },
+    { id: 'e', x1: 6, y1: 0, x2: 6, y2: 5, colour: '#b0a090' },
+    { id: 's', x1: 6, y1: 5, x2: 0, y2: 5, colour: '#808890' },
+    { id: 'w', x1: 0, y1: 5, x2: 0, y2: 0, colour: '#707070' },
+  ],
+  flags: [{ id: 'f', x1: 2, y1: 1.4, x2: 2.6, y2: 1.1 }],
+  subject: { x: 3, y: 2.5, heightM: 1.6, facingDeg: 0 },
+  camera: { x: 5.5, y: 2.5, aimDeg: 180, aperture: 8, shutterS: 1 / 125, iso: 100 },
+  ...over,
+});
+
+const grid: LightMapGrid = { x0: 0.05, y0: 0.05, x1: 5.95, y1: 4.95, nx: 60, ny: 50 };
+
+describe('lightMap', () => {
+  it('reads 0 stops at the subject and agrees with the meter there (bounce sampled more coarsely)', () => {
+    const s = room([flash('a', 5, 1.5, 150), flash('b', 4.5, 4, -120, { powerFraction: 0.5 })]);
+    const m = meter(s);
+    const map = lightMap(s, { ...grid, x0: 0, y0: 0, x1: 6, y1: 5, nx: 61, ny: 51 }); // subject on a grid point
+    const k = 25 * 61 + 30;
+    expect(map.reference).toBe('subject');
+    expect(map.stops[k]!).toBeCloseTo(0, 1);
+    // Within 5 % of the meter, whose bounce uses finer patches and exact polygons.
+    expect(Math.abs(map.referenceLuxSeconds / m.subject.luxSeconds - 1)).toBeLessThan(0.05);
+  });
+
+  it('direct light equals the meter at grid points (bounce off) — inverse-square and cosine law in the hot loop', () => {
+    const s = room([flash('a', 5, 1.5, 150, { modifier: 'grid-30', modifierOverride: {} })], { options: { bounce: false } });
+    const map = lightMap(s, grid);
+    const parsed = parseScene(s);
+    for (const [i, j] of [[10, 10], [30, 25], [45, 40], [55, 5], [20, 30]] as const) {
+      const x = grid.x0 + (i * (grid.x1 - grid.x0)) / (grid.nx - 1);
+      const y = grid.y0 + (j * (grid.y1 - grid.y0)) / (grid.ny - 1);
+      const m = meter({ ...parsed, probes: [{ id: 'p', x, y, z: 1.6 }] });
+      expect(map.luxSeconds[j * grid.nx + i]!).toBeCloseTo(m.probes[0]!.luxSeconds, 3);
+    }
+  });
+
+  it('common practice: doubling the distance costs two stops, on the map too', () => {
+    const s = room([flash('a', 1, 2.5, 0, { modifier: 'umbrella-shoot-through' })], { surfaces: [], flags: [], subject: { x: 2, y: 2.5, heightM: 1.6, facingDeg: 180 } });
+    const map = lightMap(s, { x0: 1, y0: 2.5, x1: 5, y1: 3.5, nx: 5, ny: 2, facing: 180 });
+    // points at 1, 2, 4 m from the light on its axis (indices 1, 2, 4 on the first row)
+    expect(map.stops[2]! - map.stops[1]!).toBeCloseTo(inverse(1, 2), 6);
+    expect(map.stops[4]! - map.stops[2]!).toBeCloseTo(-2, 6);
+  });
+
+  it('walls and flags shade the map: a point behind the flag gets no direct light', () => {
+    const s = room([flash('a', 3, 0.6, 90)], { options: { bounce: false } });
+    const map = lightMap(s, { x0: 1.6, y0: 1.9, x1: 1.7, y1: 3, nx: 2, ny: 2 });
+    // The ray from (3, 0.6) to (1.6, 1.9) crosses the flag (2, 1.4)–(2.6, 1.1) at its middle.
+    const o = buildOccluders(parseScene(s));
+    expect(transmissionAlong(o, 3, 0.6, 1.6, 1.6, 1.9, 1.6)).toBe(0);
+    expect(map.luxSeconds[0]).toBe(0);
+    expect(lightMap({ ...s, flags: [] }, { x0: 1.6, y0: 1.9, x1: 1.7, y1: 3, nx: 2, ny: 2 }).luxSeconds[0]!).toBeGreaterThan(0);
+  });
+
+  it('rasterised shadows equal the per-ray test at every grid point (property, random flags and lights)', () => {
+    const arb = fc.record({
+      lx: fc.double({ min: 0, max: 6, noNaN: true }),
+      ly: fc.double({ min: 0, max: 5, noNaN: true }),
+      lz: fc.double({ min: 0.2, max: 4, noNaN: true }),
+      flags: fc.array(
+        fc.record({
+          x1: fc.double({ min: -1, max: 7, noNaN: true }),
+          y1: fc.double({ min: -1, max: 6, noNaN: true }),
+          dx: fc.double({ min: -2, max: 2, noNaN: true }),
+          dy: fc.double({ min: -2, max: 2, noNaN: true }),
+          base: fc.double({ min: 0, max: 2, noNaN: true }),
+          h: fc.double({ min: 0.1, max: 3, noNaN: true }),
+          transmission: fc.constantFrom(0, 0.5),
+        }),
+        { minLength: 1, maxLength: 4 },
+      ),
+    });
+    fc.assert(
+      fc.property(arb, ({ lx, ly, lz, flags }) => {
+        const s = parseScene(
+          room([], {
+            surfaces: [],
+            flags: flags
+              .filter((f) => Math.hypot(f.dx, f.dy) > 0.05)
+              .map((f, i) => ({ id: `f${i}`, x1: f.x1, y1: f.y1, x2: f.x1 + f.dx, y2: f.y1 + f.dy, baseM: f.base, topM: f.base + f.h, transmission: f.transmission })),
+          }),
+        );
+        const o = buildOccluders(s);
+        const frame = { nx: 25, ny: 21, x0: 0, y0: 0, dx: 0.25, dy: 0.25 };
+        const t = new Float32Array(frame.nx * frame.ny).fill(1);
+        castShadows(o, lx, ly, lz, 1.6, frame, t);
+        let mismatches = 0;
+        for (let j = 0; j < frame.ny; j++) {
+          for (let i = 0; i < frame.nx; i++) {
+            const ray = transmissionAlong(o, lx, ly, lz, i * 0.25, j * 0.25, 1.6);
+            if (Math.abs(ray - t[j * frame.nx + i]!) > 1e-6) mismatches++;
+          }
+        }
+        // A point exactly on a shadow edge may fall either way: allow a stray cell.
+        expect(mismatches).toBeLessThanOrEqual(1);
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('the cache recomputes only the light that moved, and gives the same map as a fresh computation', () => {
+    const lights = [flash('a', 5, 1.5, 150), flash('b', 4.5, 4, -120), flash('c', 1, 1, 45, { modifier: 'softbox', modifierOverride: {} })];
+    const s = parseScene(room(lights));
+    const cache = createLightMapCache();
+    cache.updateParsed(s, grid);
+    expect(cache.stats.geometryRebuilt).toBe(true);
+    expect(cache.stats.lightsRecomputed).toBe(3);
+    const moved = { ...s, lights: s.lights.map((l) => (l.id === 'b' ? { ...l, x: 4.2, y: 3.8 } : l)) };
+    const inc = cache.updateParsed(moved, grid);
+    expect(cache.stats.geometryRebuilt).toBe(false);
+    expect(cache.stats.lightsRecomputed).toBe(1);
+    expect(cache.stats.lightsReused).toBe(2);
+    const fresh = lightMap(moved, grid);
+    for (let k = 0; k < fresh.luxSeconds.length; k += 7) expect(inc.luxSeconds[k]!).toBeCloseTo(fresh.luxSeconds[k]!, 6);
+    // moving the subject only changes the reference
+    const subj = cache.updateParsed({ ...moved, subject: { ...moved.subject, y: 2.2 } }, grid);
+    expect(cache.stats.lightsRecomputed).toBe(0);
+    expect(subj.referenceLuxSeconds).not.toBe(inc.referenceLuxSeconds);
+    // moving a wall rebuilds the geometry
+    cache.updateParsed({ ...moved, surfaces: moved.surfaces.map((w, i) => (i === 0 ? { ...w, y1: 0.2 } : w)) }, grid);
+    expect(cache.stats.geometryRebuilt).toBe(true);
+  });
+
+  it('falls back to the brightest point when the subject is unlit, and stays finite', () => {
+    const s = room([flash('a', 1, 2.5, 180)]); // behind the subject's facing, aimed away
+    const map = lightMap(s, grid);
+    expect(['subject', 'brightest']).toContain(map.reference);
+    for (const v of map.stops) expect(Number.isFinite(v)).toBe(true);
+    const dark = lightMap(room([]), grid);
+    expect(dark.stops.every((v) => v === dark.floorStops)).toBe(true);
+    expect(dark.contours).toEqual([]);
+  });
+});
+
+describe('contour lines', () => {
+  it('vertices match d3-contour (reference marching squares) for the same grid and levels', () => {
+    const s = room([flash('a', 5, 1.5, 150), flash('b', 1.5, 4, -40, { modifier: 'grid-20', modifierOverride: {} })]);
+    const map = lightMap(s, { ...grid, contourMinStops: -8 });
+    const key = (p: [number, number] | number[]) => `${p[0]!.toFixed(6)},${p[1]!.toFixed(6)}`;
+    const frame = { nx: map.nx, ny: map.ny, x0: map.x0, y0: map.y0, dx: map.dxM, dy: map.dyM };
+    expect(map.contours.length).toBeGreaterThan(3);
+    for (const level of map.contours) {
+      const [mp] = d3Contours().size([map.nx, map.ny]).thresholds([level.stops])(Array.from(map.stops));
+      const d3Points = new Set<string>();
+      for (const poly of mp!.coordinates)
+        for (const ring of poly)
+          for (const p of ring) {
+            const onBorder = p[0]! <= 0 || p[0]! >= map.nx || p[1]! <= 0 || p[1]! >= map.ny;
+            if (!onBorder) d3Points.add(key([frame.x0 + (p[0]! - 0.5) * frame.dx, frame.y0 + (p[1]! - 0.5) * frame.dy]));
+          }
+      const ours = new Set(level.lines.flat().map(key));
+      for (const p of d3Points) expect(ours.has(p)).toBe(true);
+      for (const p of ours) expect(d3Points.has(p)).toBe(true);
+    }
+  });
+
+  it('every vertex of a level lies on the interpolated isoline (value within 1e-9 of the level)', () => {
+    // A radial field in stops: −2·log2(r) (an inverse-square falloff around the origin)
+    const nx = 41;
+    const ny = 31;
+    const f = { nx, ny, x0: -2, y0: -1.5, dx: 0.1, dy: 0.1 };
+    const vals = new Float64Array(nx * ny);
+    for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) vals[j * nx + i] = -2 * Math.log2(Math.max(0.05, Math.hypot(f.x0 + i * f.dx, f.y0 + j * f.dy)));
+    const levels = contourLines(vals, f, 1, -10);
+    expect(levels.map((l) => l.stops)).toContain(0);
+    const bilinear = (x: number, y: number) => {
+      const u = (x - f.x0) / f.dx;
+      const v = (y - f.y0) / f.dy;
+      const i = Math.min(nx - 2, Math.floor(u));
+      const j = Math.min(ny - 2, Math.floor(v));
+      const a = u - i;
+      const b = v - j;
+      const g = (ii: number, jj: number) => vals[jj * nx + ii]!;
+      return (g(i, j) * (1 - a) + g(i + 1, j) * a) * (1 - b) + (g(i, j + 1) * (1 - a) + g(i + 1, j + 1) * a) * b;
+    };
+    for (const l of levels) for (const line of l.lines) for (const [x, y] of line) expect(bilinear(x, y)).toBeCloseTo(l.stops, 9);
+    // The 0-stop isoline of −2·log2 r is the unit circle (to grid accuracy).
+    const zero = levels.find((l) => l.stops === 0)!;
+    expect(zero.lines).toHaveLength(1);
+    for (const [x, y] of zero.lines[0]!) expect(Math.hypot(x, y)).toBeCloseTo(1, 1);
+    const line = zero.lines[0]!;
+    expect(line[0]).toEqual(line[line.length - 1]); // closed
+  });
+});
+
+function inverse(from: number, to: number) {
+  return 2 * Math.log2(from / to);
+}
