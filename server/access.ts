@@ -19,7 +19,8 @@ export const studioCan = {
   manageMembers: (r: StudioRole | null) => r === 'owner',
 };
 
-export type SetupNeed = 'read' | 'comment' | 'write' | 'publish';
+/** read: the setup itself (templates: anyone); member: what stays inside the studio (history, comments). */
+export type SetupNeed = 'read' | 'member' | 'comment' | 'write' | 'publish';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 /** A path id that is not a UUID names nothing: 404, like an id that does not exist. */
@@ -34,10 +35,15 @@ export function checkSetup(a: SetupAccess | null, need: SetupNeed, opts: { delet
   const readable = studioCan.read(a.role) || (a.isTemplate && !a.deletedAt);
   if (!readable) throw notFound('no such setup');
   if (a.deletedAt && opts.deleted !== 'allow') throw new HttpError(410, 'setup_deleted', 'this setup was deleted; restore it from the library first');
-  const allowed =
-    need === 'read' ? true : need === 'comment' ? studioCan.comment(a.role) : need === 'write' ? studioCan.write(a.role) : studioCan.publishTemplates(a.role);
+  const allowed = {
+    read: true,
+    member: studioCan.read(a.role),
+    comment: studioCan.comment(a.role),
+    write: studioCan.write(a.role),
+    publish: studioCan.publishTemplates(a.role),
+  }[need];
   if (!allowed) {
-    const what = { read: 'read', comment: 'comment on', write: 'change', publish: 'publish templates from' }[need];
+    const what = { read: 'read', member: 'see the history of', comment: 'comment on', write: 'change', publish: 'publish templates from' }[need];
     throw new HttpError(403, 'forbidden', a.role ? `your role in this studio (${a.role}) cannot ${what} this setup` : `only members of the setup's studio can ${what} it`);
   }
   return a;

@@ -17,12 +17,19 @@ export const notFound = (what = 'not found') => new HttpError(404, 'not_found', 
 
 /** Field path → first message, e.g. { "document.items.0.x": "Too big: expected number to be <=200" }. */
 export function zodFields(err: ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
+  // A Map, so a field called "__proto__" is a field like any other.
+  const fields = new Map<string, string>();
+  const put = (path: PropertyKey[], message: string) => {
+    // A field name is echoed back, so an absurd one (a fuzzer's megabyte key) is cut short.
+    const key = path.length ? path.map((p) => String(p).slice(0, 100)).join('.') : '(body)';
+    if (fields.size < 50 && !fields.has(key)) fields.set(key, message);
+  };
   for (const issue of err.issues) {
-    const key = issue.path.length ? issue.path.join('.') : '(body)';
-    if (!(key in fields)) fields[key] = issue.message;
+    // An unknown field is named by its own path, not by its parent's.
+    if (issue.code === 'unrecognized_keys') for (const k of issue.keys) put([...issue.path, k], 'unknown field');
+    else put(issue.path, issue.message);
   }
-  return fields;
+  return Object.fromEntries(fields);
 }
 
 export function validationError(err: ZodError, where: 'body' | 'query' | 'params' = 'body'): HttpError {

@@ -16,13 +16,13 @@ export function historyRoutes(db: Db) {
   const r = Router();
 
   r.get('/setups/:id/history', async (req, res) => {
-    const { id } = await requireSetup(db, req, 'read');
+    const { id } = await requireSetup(db, req, 'member');
     const q = parseQuery(historyQuery, req);
     res.json(await listHistory(db, id, q));
   });
 
   r.get('/setups/:id/history/:versionId', async (req, res) => {
-    const { id } = await requireSetup(db, req, 'read');
+    const { id } = await requireSetup(db, req, 'member');
     const v = await getVersion(db, id, pathId(req.params.versionId, 'version'));
     if (!v) throw notFound('no such version of this setup');
     res.json(v);
