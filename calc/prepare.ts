@@ -235,12 +235,10 @@ export function surfaceOptics(scene: Scene): SurfaceOptics {
  * surface; larger surfaces get larger patches).
  */
 export function buildPatches(scene: Scene, patchSizeM: number, maxPerSurface: number): Patches {
-  const rows: { cx: number; cy: number; cz: number; nx: number; ny: number; wx: number; wy: number; hw: number; hh: number; s: number }[] = [];
-  scene.surfaces.forEach((s, si) => {
-    if (!s.bounces) return;
-    const dx = s.x2 - s.x1;
-    const dy = s.y2 - s.y1;
-    const len = Math.hypot(dx, dy);
+  // Two passes, count then fill, straight into typed arrays (no object per patch).
+  const layout = scene.surfaces.map((s) => {
+    if (!s.bounces) return { nu: 0, nv: 0 };
+    const len = Math.hypot(s.x2 - s.x1, s.y2 - s.y1);
     const h = s.topM - s.baseM;
     let nu = Math.max(1, Math.ceil(len / patchSizeM));
     let nv = Math.max(1, Math.ceil(h / patchSizeM));
@@ -249,27 +247,9 @@ export function buildPatches(scene: Scene, patchSizeM: number, maxPerSurface: nu
       nu = Math.max(1, Math.floor(nu / k));
       nv = Math.max(1, Math.floor(nv / k));
     }
-    const wx = dx / len;
-    const wy = dy / len;
-    for (let i = 0; i < nu; i++) {
-      for (let j = 0; j < nv; j++) {
-        const f = (i + 0.5) / nu;
-        rows.push({
-          cx: s.x1 + dx * f,
-          cy: s.y1 + dy * f,
-          cz: s.baseM + (h * (j + 0.5)) / nv,
-          nx: -wy, // front: on your right walking from end 1 to end 2 on screen (y down)
-          ny: wx,
-          wx,
-          wy,
-          hw: len / nu / 2,
-          hh: h / nv / 2,
-          s: si,
-        });
-      }
-    }
+    return { nu, nv };
   });
-  const n = rows.length;
+  const n = layout.reduce((a, l) => a + l.nu * l.nv, 0);
   const p: Patches = {
     count: n,
     cx: new Float64Array(n),
@@ -284,19 +264,35 @@ export function buildPatches(scene: Scene, patchSizeM: number, maxPerSurface: nu
     area: new Float64Array(n),
     surface: new Int32Array(n),
   };
-  rows.forEach((r, i) => {
-    p.cx[i] = r.cx;
-    p.cy[i] = r.cy;
-    p.cz[i] = r.cz;
-    p.nx[i] = r.nx;
-    p.ny[i] = r.ny;
-    p.wx[i] = r.wx;
-    p.wy[i] = r.wy;
-    p.halfW[i] = r.hw;
-    p.halfH[i] = r.hh;
-    p.area[i] = 4 * r.hw * r.hh;
-    p.surface[i] = r.s;
+  let k = 0;
+  scene.surfaces.forEach((s, si) => {
+    const { nu, nv } = layout[si]!;
+    if (nu === 0) return;
+    const dx = s.x2 - s.x1;
+    const dy = s.y2 - s.y1;
+    const len = Math.hypot(dx, dy);
+    const h = s.topM - s.baseM;
+    const wx = dx / len;
+    const wy = dy / len;
+    const hw = len / nu / 2;
+    const hh = h / nv / 2;
+    for (let i = 0; i < nu; i++) {
+      const f = (i + 0.5) / nu;
+      for (let j = 0; j < nv; j++) {
+        p.cx[k] = s.x1 + dx * f;
+        p.cy[k] = s.y1 + dy * f;
+        p.cz[k] = s.baseM + (h * (j + 0.5)) / nv;
+        p.nx[k] = -wy; // front: on your right walking from end 1 to end 2 on screen (y down)
+        p.ny[k] = wx;
+        p.wx[k] = wx;
+        p.wy[k] = wy;
+        p.halfW[k] = hw;
+        p.halfH[k] = hh;
+        p.area[k] = 4 * hw * hh;
+        p.surface[k] = si;
+        k++;
+      }
+    }
   });
   return p;
 }
-

@@ -2,11 +2,18 @@
  * Light transport between lights, bounce patches and receptors: occlusion, direct exposure, light on the
  * patches and the patch → receptor form factor. Shared by the meter and the light map.
  */
-import { polygonIrradiancePerLuminance } from './bounce';
+import { quadIrradiancePerLuminance } from './bounce';
 import { type Rgb, relativeLuminance } from './colour';
 import { lookupProfile } from './modifiers';
 import { type Occluders, type Patches, type PreparedLight, MIN_DISTANCE_SQ_M2 } from './prepare';
-import type { Vec3 } from './vec';
+
+const quad = new Float64Array(12);
+const CORNER_SIGNS = [
+  [-1, -1],
+  [1, -1],
+  [1, 1],
+  [-1, 1],
+] as const;
 
 /** A receptor (meter cell): position (plan metres, z up) and unit normal. */
 export type Receptor = { x: number; y: number; z: number; nx: number; ny: number; nz: number };
@@ -125,17 +132,14 @@ export function patchFormFactor(P: Patches, i: number, q: Receptor, exactWithin:
   if (r2 < exactWithin * exactWithin * size * size) {
     const wx = P.wx[i]!;
     const wy = P.wy[i]!;
-    const corner = (sw: number, sh: number): Vec3 => ({
-      x: -vx + wx * hw * sw,
-      y: -vy + wy * hw * sw,
-      z: -vz + hh * sh,
-    });
-    const f = polygonIrradiancePerLuminance([corner(-1, -1), corner(1, -1), corner(1, 1), corner(-1, 1)], {
-      x: q.nx,
-      y: q.ny,
-      z: q.nz,
-    });
-    return side * f;
+    // Corners relative to the receptor: centre − v ± w·halfW ± up·halfH.
+    let k = 0;
+    for (const [sw, sh] of CORNER_SIGNS) {
+      quad[k++] = -vx + wx * hw * sw;
+      quad[k++] = -vy + wy * hw * sw;
+      quad[k++] = -vz + hh * sh;
+    }
+    return side * quadIrradiancePerLuminance(quad, q.nx, q.ny, q.nz);
   }
   const r = Math.sqrt(r2);
   const cosE = Math.abs(nd) / r;
