@@ -27,6 +27,10 @@ export type PlanCanvasProps = {
   boxSelect: boolean;
   /** Keys held on a keyboard (Space pans, Shift adds to the selection). */
   keys?: { current: { space: boolean; shift: boolean } };
+  /** Pixels at the bottom covered by something else (the phone's sheet), left out when fitting the stage. */
+  insetBottom?: number;
+  /** Show only these items (the plan as it stands at one step); null shows everything. */
+  visibleIds?: Set<string> | null;
   testID?: string;
 };
 
@@ -35,9 +39,10 @@ function ItemView({ item, theme, units, selected }: ViewProps<Item>) {
   return <V item={item} theme={theme} units={units} selected={selected} />;
 }
 
-export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, testID }: PlanCanvasProps) {
+export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds, insetBottom = 0, testID }: PlanCanvasProps) {
   const store = useEditorStore();
-  const items = useEditor((s) => s.doc.items);
+  const allItems = useEditor((s) => s.doc.items);
+  const items = useMemo(() => (visibleIds ? allItems.filter((i) => visibleIds.has(i.id)) : allItems), [allItems, visibleIds]);
   const stage = useEditor((s) => s.doc.stage);
   const selection = useEditor((s) => s.selection);
   const readOnly = useEditor((s) => s.readOnly);
@@ -52,7 +57,7 @@ export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, testID }: 
   const onLayout = (e: LayoutChangeEvent) => {
     const { width: w, height: h } = e.nativeEvent.layout;
     setSize({ w, h });
-    setView((v) => v ?? (w > 0 && h > 0 ? fitStage(stage, w, h) : null));
+    setView((v) => v ?? (w > 0 && h > insetBottom ? fitStage(stage, w, h - insetBottom) : null));
   };
 
   const tolerance = useCallback((pointer: 'touch' | 'mouse') => (pointer === 'touch' ? 22 : 10) / (viewRef.current?.scale ?? 80), []);
@@ -158,12 +163,12 @@ export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, testID }: 
         </GestureDetector>
       ) : null}
       {view ? <A11yLayer items={items} view={view} selected={selected} /> : null}
-      {view ? <ScaleBar scale={view.scale} units={units} theme={theme} /> : null}
+      {view ? <ScaleBar scale={view.scale} units={units} theme={theme} bottom={insetBottom + 12} /> : null}
       {view ? (
         <View style={styles.zoom}>
           <ZoomButton label="Zoom in" text="+" onPress={() => setView((v) => v && zoomAt(v, 1.25, size.w / 2, size.h / 2))} />
           <ZoomButton label="Zoom out" text="−" onPress={() => setView((v) => v && zoomAt(v, 0.8, size.w / 2, size.h / 2))} />
-          <ZoomButton label="Fit the stage" text="⤢" onPress={() => setView(fitStage(stage, size.w, size.h))} />
+          <ZoomButton label="Fit the stage" text="⤢" onPress={() => setView(fitStage(stage, size.w, size.h - insetBottom))} />
         </View>
       ) : null}
     </View>
@@ -196,12 +201,12 @@ function A11yLayer({ items, view, selected }: { items: Item[]; view: Viewport; s
   );
 }
 
-function ScaleBar({ scale, units, theme }: { scale: number; units: Units; theme: PlanTheme }) {
+function ScaleBar({ scale, units, theme, bottom }: { scale: number; units: Units; theme: PlanTheme; bottom: number }) {
   const unitM = units === 'metric' ? 1 : M_PER_FT;
   const n = scaleBarLength(scale, unitM);
   const px = n * unitM * scale;
   return (
-    <View style={styles.scaleBar} pointerEvents="none" accessibilityLabel={`Scale: the bar is ${n} ${units === 'metric' ? 'm' : 'ft'}`}>
+    <View style={[styles.scaleBar, { bottom }]} pointerEvents="none" accessibilityLabel={`Scale: the bar is ${n} ${units === 'metric' ? 'm' : 'ft'}`}>
       <View style={{ width: px, height: 6, borderLeftWidth: 2, borderRightWidth: 2, borderBottomWidth: 2, borderColor: theme.ink }} />
       <Text style={[styles.scaleText, { color: theme.ink }]}>
         {n} {units === 'metric' ? 'm' : 'ft'}

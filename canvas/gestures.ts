@@ -12,7 +12,7 @@ export type Press =
   | { mode: 'idle' }
   | { mode: 'drag'; origin: Item[]; start: Point; key: string }
   | { mode: 'rotate'; id: string; key: string }
-  | { mode: 'end'; id: string; end: 'a' | 'b'; key: string }
+  | { mode: 'end'; id: string; end: 'a' | 'b'; key: string; drawing?: boolean }
   | { mode: 'pan'; startView: Viewport; startScreen: Point }
   | { mode: 'box'; from: Point; to: Point; additive: boolean };
 
@@ -50,6 +50,11 @@ function handleAt(items: readonly Item[], selection: readonly string[], p: Point
 export function pressDown(store: EditorStore, view: Viewport, plan: Point, screen: Point, o: PressOptions): Press {
   const s = store.getState();
   if (o.panKey) return { mode: 'pan', startView: view, startScreen: screen };
+  if (s.tool === 'wall' && !s.readOnly) {
+    const key = newKey('wall');
+    store.dispatch('startWall', { at: plan, gestureKey: key });
+    return { mode: 'end', id: store.getState().selection[0]!, end: 'b', key, drawing: true };
+  }
   if (!s.readOnly) {
     const handle = handleAt(s.doc.items, s.selection, plan, o.toleranceM);
     if (handle) return handle;
@@ -88,6 +93,12 @@ export function pressMove(store: EditorStore, press: Press, plan: Point, screen:
 
 export function pressUp(store: EditorStore, press: Press): Press {
   if (press.mode === 'box') store.dispatch('selectInBox', { from: press.from, to: press.to, additive: press.additive });
+  if (press.mode === 'end' && press.drawing) {
+    // A wall is drawn once; a press that did not draw one out leaves nothing behind.
+    const wall = store.getState().doc.items.find((i) => i.id === press.id);
+    if (wall && isSegment(wall) && Math.hypot(wall.b.x - wall.a.x, wall.b.y - wall.a.y) < 0.1) store.dispatch('undo');
+    store.dispatch('setTool', { tool: 'select' });
+  }
   return { mode: 'idle' };
 }
 

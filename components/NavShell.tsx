@@ -17,6 +17,8 @@ export function NavShell({ children }: { children: ReactNode }) {
   const wide = width >= WIDE_MIN;
   const path = usePathname();
   const insets = useSafeAreaInsets();
+  // The editor takes the whole screen; its own top bar leads back to the library.
+  const immersive = /^\/setups\/[^/]+/.test(path);
   const items = destinations.map((d) => {
     const active = path === d.href || path.startsWith(`${d.href}/`);
     const colour = active ? colours.accent : colours.textDim;
@@ -39,7 +41,7 @@ export function NavShell({ children }: { children: ReactNode }) {
   // One tree for both layouts, so the screen below (and its navigation state) survives a resize.
   return (
     <View style={[s.root, wide && { flexDirection: 'row' }]}>
-      {wide ? (
+      {wide && !immersive ? (
         <View style={s.rail} role="navigation">
           <View style={s.brand}>
             <Mark size={30} />
@@ -49,7 +51,7 @@ export function NavShell({ children }: { children: ReactNode }) {
         </View>
       ) : null}
       <View style={s.main}>{children}</View>
-      {wide ? null : (
+      {wide || immersive ? null : (
         <View style={[s.bar, { paddingBottom: Math.max(insets.bottom, space.sm) }]} role="navigation">
           {items}
         </View>

@@ -60,11 +60,14 @@ export function formatShutter(t: number): string {
   return `1/${Math.round(1 / t)}`;
 }
 
-/** Power as a fraction of full, on the usual ladder when it is on it: 1/1, 1/2 … 1/256, else "+0.3 of 1/8". */
+/**
+ * Power as a fraction of full: the nearest step of the usual ladder (1/1, 1/2 … 1/256, each one stop) and,
+ * when it is between steps, the tenths of a stop to add or take off, as most heads display it: "1/8 −0.3".
+ */
 export function formatPower(fraction: number): string {
   const stops = Math.log2(fraction);
   const whole = Math.round(stops);
-  if (Math.abs(stops - whole) < 0.05) return `1/${2 ** -whole}`;
-  const tenth = Math.round((stops - Math.floor(stops)) * 10) / 10;
-  return `1/${2 ** -Math.floor(stops)} +${tenth.toFixed(1)}`;
+  const rest = Math.round((stops - whole) * 10) / 10;
+  const step = whole >= 0 ? '1/1' : `1/${2 ** -whole}`;
+  return rest === 0 ? step : `${step} ${rest > 0 ? '+' : '−'}${Math.abs(rest).toFixed(1)}`;
 }

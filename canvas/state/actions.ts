@@ -43,6 +43,27 @@ export const actions = {
     },
   }),
 
+  /** Start drawing a wall at a point; dragEnd on its end 'b' with the same gesture key draws it out. */
+  startWall: define<{ at: Point; gestureKey: string }>({
+    id: 'start-wall',
+    label: 'Draw a wall',
+    enabled: writable,
+    perform: (s, { at, gestureKey }) => {
+      const p = s.snap ? snapPoint(at, s.doc.items, new Set()) : at;
+      const end = { x: tidy(p.x), y: tidy(p.y) };
+      const wall = createItem('wall', nextId(s.doc, 'wall'), end);
+      const next = commit(s, { ...s.doc, items: [...s.doc.items, { ...wall, a: end, b: end }] }, gestureKey);
+      return { ...next, selection: [wall.id] };
+    },
+  }),
+
+  setTool: define<{ tool: EditorState['tool'] }>({
+    id: 'set-tool',
+    label: 'Choose a tool',
+    enabled: () => true,
+    perform: (s, { tool }) => ({ ...s, tool: s.readOnly ? 'select' : tool }),
+  }),
+
   /** Move the given items to where they were at the gesture's start plus (dx, dy), snapping the first. */
   dragItems: define<{ origin: Item[]; dx: number; dy: number; gestureKey: string }>({
     id: 'drag-items',

@@ -16,12 +16,14 @@ export type EditorState = {
   readOnly: boolean;
   /** Increments on every document change (autosave and the meter watch it). */
   revision: number;
+  /** What a press on empty plan does: select (and move), or draw a wall from press to release. */
+  tool: 'select' | 'wall';
 };
 
 export const HISTORY_LIMIT = 200;
 
 export function initialState(doc: SetupDocument, opts: { readOnly?: boolean } = {}): EditorState {
-  return { doc, selection: [], past: [], future: [], gestureKey: null, snap: true, readOnly: opts.readOnly ?? false, revision: 0 };
+  return { doc, selection: [], past: [], future: [], gestureKey: null, snap: true, readOnly: opts.readOnly ?? false, revision: 0, tool: 'select' };
 }
 
 /** Apply a new document, recording history (one step per gesture key). */

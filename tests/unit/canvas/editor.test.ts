@@ -27,6 +27,7 @@ describe('every command that changes the plan is undone by one undo and redone b
     ['toggleLock', (s) => run(s, 'toggleLock')],
     ['setSteps', (s) => run(s, 'setSteps', { steps: [] })],
     ['setShots', (s) => run(s, 'setShots', { shots: [] })],
+    ['startWall', (s) => run(s, 'startWall', { at: { x: 1, y: 1 }, gestureKey: 'w1' })],
   ];
   it.each(cases)('%s', (_name, change) => {
     const after = change(start);
@@ -38,7 +39,7 @@ describe('every command that changes the plan is undone by one undo and redone b
 
   it('covers every document-changing action', () => {
     const named = new Set(cases.map(([n]) => n));
-    const viewOnly: ActionName[] = ['undo', 'redo', 'select', 'selectInBox', 'selectAll', 'clearSelection', 'toggleSnap'];
+    const viewOnly: ActionName[] = ['undo', 'redo', 'select', 'selectInBox', 'selectAll', 'clearSelection', 'toggleSnap', 'setTool'];
     for (const name of Object.keys(actions) as ActionName[]) if (!viewOnly.includes(name)) expect(named, name).toContain(name);
   });
 });

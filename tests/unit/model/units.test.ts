@@ -51,6 +51,7 @@ describe('photographic notation', () => {
     [1, '1/1'],
     [1 / 8, '1/8'],
     [1 / 256, '1/256'],
-    [2 ** -3.3, '1/16 +0.7'],
+    [2 ** -3.3, '1/8 −0.3'],
+    [2 ** -2.6, '1/8 +0.4'],
   ])('power %f → %s (each step of the ladder is one stop, common practice)', (p, s) => expect(formatPower(p)).toBe(s));
 });

@@ -1,0 +1,61 @@
+// The shot list: the frames to make with this setup (wide, medium, tight) with lens and settings.
+import { StyleSheet, Text, View } from 'react-native';
+import { useEditor, useEditorStore } from '../../canvas/state/store';
+import { colours, fonts, space } from '../../constants/theme';
+import type { Shot } from '../../model/document';
+import { formatAperture, formatShutter } from '../../model/units';
+import { Button } from '../ui';
+import { ChoiceField, NumberField, TextField } from './fields';
+
+const num = (t: string) => (t.trim() && Number.isFinite(Number(t.replace(/^f\//, ''))) ? Number(t.replace(/^f\//, '')) : null);
+const shutter = (t: string) => {
+  const m = t.trim().match(/^1\s*\/\s*(\d+(?:\.\d+)?)$/);
+  return m ? 1 / Number(m[1]) : num(t);
+};
+
+export function ShotsPanel() {
+  const store = useEditorStore();
+  const shots = useEditor((s) => s.doc.shots);
+  const camera = useEditor((s) => s.doc.items.find((i) => i.kind === 'camera'));
+  const readOnly = useEditor((s) => s.readOnly);
+  const set = (next: Shot[]) => store.dispatch('setShots', { shots: next });
+  const change = (id: string, patch: Partial<Shot>) => set(shots.map((x) => (x.id === id ? { ...x, ...patch } : x)));
+  const add = () => {
+    const c = camera?.kind === 'camera' ? camera : null;
+    let id = `shot-${shots.length + 1}`;
+    while (shots.some((s) => s.id === id)) id = `${id}x`;
+    set([...shots, { id, framing: 'medium', focalMm: c?.focalMm ?? 85, aperture: c?.aperture ?? 8, shutterS: c?.shutterS ?? 1 / 200, iso: c?.iso ?? 100, note: '' }]);
+  };
+  return (
+    <View style={s.wrap} accessibilityLabel="Shot list">
+      <Text style={s.heading}>Shot list</Text>
+      {shots.length === 0 ? <Text style={s.dim}>No shots yet. Add the frames you plan: a wide to show the set, a medium, a tight.</Text> : null}
+      {shots.map((sh, i) =>
+        readOnly ? (
+          <Text key={sh.id} style={s.line}>
+            {i + 1}. {sh.framing} · {sh.focalMm} mm · {formatAperture(sh.aperture)} · {formatShutter(sh.shutterS)} · ISO {sh.iso} {sh.note ? `— ${sh.note}` : ''}
+          </Text>
+        ) : (
+          <View key={sh.id} style={s.shot}>
+            <ChoiceField label={`Shot ${i + 1}`} value={sh.framing} options={[{ id: 'wide', label: 'wide' }, { id: 'medium', label: 'medium' }, { id: 'tight', label: 'tight' }]} onChange={(v) => change(sh.id, { framing: v })} />
+            <NumberField label="Lens (mm)" value={sh.focalMm} format={(v) => v.toFixed(0)} parse={num} onCommit={(v) => change(sh.id, { focalMm: v })} />
+            <NumberField label="Aperture (f/)" value={sh.aperture} format={(v) => formatAperture(v).slice(2)} parse={num} onCommit={(v) => change(sh.id, { aperture: v })} />
+            <NumberField label="Shutter" value={sh.shutterS} format={formatShutter} parse={shutter} onCommit={(v) => change(sh.id, { shutterS: v })} />
+            <NumberField label="ISO" value={sh.iso} format={(v) => v.toFixed(0)} parse={num} onCommit={(v) => change(sh.id, { iso: v })} />
+            <TextField label="Note" value={sh.note} onCommit={(v) => change(sh.id, { note: v })} />
+            <Button kind="quiet" label="Remove shot" onPress={() => set(shots.filter((x) => x.id !== sh.id))} />
+          </View>
+        ),
+      )}
+      {!readOnly ? <Button kind="quiet" label="Add a shot" onPress={add} /> : null}
+    </View>
+  );
+}
+
+const s = StyleSheet.create({
+  wrap: { padding: space.lg, gap: space.sm },
+  heading: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 18 },
+  dim: { color: colours.textDim, fontFamily: fonts.sans, fontSize: 12 },
+  line: { color: colours.text, fontFamily: fonts.mono, fontSize: 13 },
+  shot: { borderWidth: 1, borderColor: colours.line, borderRadius: 10, padding: space.md },
+});
