@@ -209,18 +209,16 @@ describe('meter — advice and ratios', () => {
   });
 
   it('common practice: a 2:1 key:fill ratio is one stop (brightest light is the key, the others fill)', () => {
-    const r = meter(scene([flash('key', front(3)), flash('fill', { x: 0, y: 3, z: 1.6 }, { powerFraction: 1 })]));
-    // fill arrives at 90° to the facing — grazing, reads 0: use a fill at 45° with matched power instead.
-    expect(r.keyFill.keyId).toBe('key');
+    // Key on the facing axis at 3 m; fill at 45° at 3 m and √½ power: cos 45° × √½ = ½ of the key.
     const at45 = { x: 3 * Math.SQRT1_2, y: 3 * Math.SQRT1_2, z: 1.6 };
-    const r2 = meter(scene([flash('key', front(3)), flash('fill', at45, { powerFraction: Math.SQRT1_2 })]));
-    // cos 45° × √½ power = ½ of the key
-    expect(r2.keyFill.keyId).toBe('key');
-    expect(r2.keyFill.fillIds).toEqual(['fill']);
-    expect(r2.keyFill.ratio).toBeCloseTo(2, 8);
-    expect(r2.keyFill.ratioStops).toBeCloseTo(1, 8);
-    expect(r2.keyFill.litToShadowRatio).toBeCloseTo(3, 8);
-    expect(r2.keyFill.rule).toBe('brightest');
+    const r = meter(scene([flash('fill', at45, { powerFraction: Math.SQRT1_2 }), flash('key', front(3))]));
+    expect(r.keyFill.keyId).toBe('key');
+    expect(r.keyFill.fillIds).toEqual(['fill']);
+    expect(r.keyFill.ratio).toBeCloseTo(2, 8);
+    expect(r.keyFill.ratioStops).toBeCloseTo(1, 8);
+    expect(r.keyFill.litToShadowRatio).toBeCloseTo(3, 8);
+    expect(r.keyFill.rule).toBe('brightest');
+    expect(r.lights.find((l) => l.id === 'key')!.ratioRole).toBe('key');
   });
 
   it('roles set in the scene win over brightness; rim lights are neither key nor fill', () => {
