@@ -53,6 +53,7 @@ export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds
   const pressRef = useRef<Press>({ mode: 'idle' });
   const [box, setBox] = useState<{ from: Point; to: Point } | null>(null);
   const pinchRef = useRef<{ start: Viewport; scale: number } | null>(null);
+  const downAt = useRef<Point | null>(null);
 
   const onLayout = (e: LayoutChangeEvent) => {
     const { width: w, height: h } = e.nativeEvent.layout;
@@ -68,10 +69,15 @@ export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds
       .runOnJS(true)
       .maxPointers(1)
       .minDistance(3)
+      // Where the finger went down: on the web the pan's translation only counts from activation, so the
+      // press point is taken at touch-down, not worked back from the translation.
+      .onBegin((e) => {
+        downAt.current = { x: e.x, y: e.y };
+      })
       .onStart((e) => {
         if (!viewRef.current) return;
-        const sx = e.x - e.translationX;
-        const sy = e.y - e.translationY;
+        const sx = downAt.current?.x ?? e.x - e.translationX;
+        const sy = downAt.current?.y ?? e.y - e.translationY;
         pressRef.current = pressDown(store, viewRef.current, at(sx, sy), { x: sx, y: sy }, {
           toleranceM: tolerance(boxSelect ? 'mouse' : 'touch'),
           boxSelect,

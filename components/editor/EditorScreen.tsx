@@ -113,7 +113,7 @@ function Editor({ setup, store, units, readOnly }: { setup: ServerSetup; store: 
         <Text style={s.title} numberOfLines={1}>
           {title}
         </Text>
-        <Text style={[s.saveState, sync.state.kind === 'offline' || sync.state.kind === 'failed' ? { color: colours.danger } : null]} testID="save-state" accessibilityLiveRegion="polite">
+        <Text numberOfLines={1} style={[s.saveState, sync.state.kind === 'offline' || sync.state.kind === 'failed' ? { color: colours.danger } : null]} testID="save-state" accessibilityLiveRegion="polite">
           {saveLabel}
         </Text>
       </View>
@@ -267,7 +267,8 @@ function ConflictNotice({ mine, theirs, onTakeTheirs, onKeepMine }: { mine: { ti
 
 const s = StyleSheet.create({
   root: { flex: 1, backgroundColor: colours.graphite },
-  topBar: { flexDirection: 'row', alignItems: 'center', gap: 6, paddingHorizontal: space.sm, paddingVertical: 6, backgroundColor: colours.panel, borderBottomWidth: 1, borderBottomColor: colours.line },
+  // A fixed height: the plan below must not jump when the save state's text changes mid-drag.
+  topBar: { height: 54, flexDirection: 'row', alignItems: 'center', gap: 6, paddingHorizontal: space.sm, backgroundColor: colours.panel, borderBottomWidth: 1, borderBottomColor: colours.line },
   back: { width: 40, height: 40, alignItems: 'center', justifyContent: 'center' },
   backText: { color: colours.text, fontSize: 30, lineHeight: 32 },
   title: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 16 },
