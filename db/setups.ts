@@ -13,6 +13,18 @@ type Conn = Db | Tx;
 export const RESTORE_DAYS = 30;
 const restoreWindow = sql`now() - make_interval(days => ${RESTORE_DAYS})`;
 
+/**
+ * The hot paths (read one setup, check access, save) run as named prepared statements: PostgreSQL plans
+ * them once per connection and Drizzle builds their SQL once per process, not on every request.
+ */
+const preparedByDb = new WeakMap<object, Map<string, unknown>>();
+function prepared<T>(db: Db, name: string, build: () => T): T {
+  let m = preparedByDb.get(db);
+  if (!m) preparedByDb.set(db, (m = new Map()));
+  if (!m.has(name)) m.set(name, build());
+  return m.get(name) as T;
+}
+
 // ---------------------------------------------------------------------------------------------
 // Lists
 
@@ -126,56 +138,67 @@ export async function tagsInUse(db: Db, userId: string, studio?: string): Promis
 // One setup
 
 /** What a route needs to decide access, without reading the document. Deleted setups included. */
-export async function getSetupAccess(db: Conn, id: string, userId: string) {
-  const [row] = await db
-    .select({ id: setups.id, studioId: setups.studioId, isTemplate: setups.isTemplate, deletedAt: setups.deletedAt, version: setups.version, role: studioMembers.role })
-    .from(setups)
-    .leftJoin(studioMembers, and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, userId)))
-    .where(eq(setups.id, id));
+export async function getSetupAccess(db: Db, id: string, userId: string) {
+  const q = prepared(db, 'setup_access', () =>
+    db
+      .select({ id: setups.id, studioId: setups.studioId, isTemplate: setups.isTemplate, deletedAt: setups.deletedAt, version: setups.version, role: studioMembers.role })
+      .from(setups)
+      .leftJoin(studioMembers, and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, sql.placeholder('userId'))))
+      .where(eq(setups.id, sql.placeholder('id')))
+      .prepare('setup_access'),
+  );
+  const [row] = await q.execute({ id, userId });
   return row ?? null;
 }
 export type SetupAccess = NonNullable<Awaited<ReturnType<typeof getSetupAccess>>>;
 
 /**
- * A setup with its document, for the caller (their role included). The document comes back as the JSON text
- * PostgreSQL stores when it is at the current schema version, so the route can send it without parsing and
- * re-serialising it; older documents are migrated and parsed here. One query.
+ * A setup with its document, for the caller (their role included), and what access is decided from. The
+ * document comes back as the JSON text PostgreSQL stores when it is at the current schema version, so the
+ * route can send it without parsing and re-serialising it; older documents are migrated and parsed here.
+ * One query.
  */
-export async function getSetupDetail(db: Conn, id: string, userId: string): Promise<{ meta: Omit<SetupDetail, 'document'>; documentJson: string } | null> {
-  const [row] = await db
-    .select({
-      id: setups.id,
-      studioId: setups.studioId,
-      studioName: studios.name,
-      ownerId: setups.ownerId,
-      ownerName: user.name,
-      title: setups.title,
-      notes: setups.notes,
-      tags: setups.tags,
-      schemaVersion: setups.schemaVersion,
-      version: setups.version,
-      isTemplate: setups.isTemplate,
-      createdAt: setups.createdAt,
-      updatedAt: setups.updatedAt,
-      role: studioMembers.role,
-      documentJson: sql<string>`${setups.document}::text`,
-    })
-    .from(setups)
-    .innerJoin(studios, eq(studios.id, setups.studioId))
-    .leftJoin(user, eq(user.id, setups.ownerId))
-    .leftJoin(studioMembers, and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, userId)))
-    .where(eq(setups.id, id));
+export async function getSetupDetail(db: Db, id: string, userId: string) {
+  const q = prepared(db, 'setup_detail', () =>
+    db
+      .select({
+        id: setups.id,
+        studioId: setups.studioId,
+        studioName: studios.name,
+        ownerId: setups.ownerId,
+        ownerName: user.name,
+        title: setups.title,
+        notes: setups.notes,
+        tags: setups.tags,
+        schemaVersion: setups.schemaVersion,
+        version: setups.version,
+        isTemplate: setups.isTemplate,
+        createdAt: setups.createdAt,
+        updatedAt: setups.updatedAt,
+        role: studioMembers.role,
+        deletedAt: setups.deletedAt,
+        documentJson: sql<string>`${setups.document}::text`,
+      })
+      .from(setups)
+      .innerJoin(studios, eq(studios.id, setups.studioId))
+      .leftJoin(user, eq(user.id, setups.ownerId))
+      .leftJoin(studioMembers, and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, sql.placeholder('userId'))))
+      .where(eq(setups.id, sql.placeholder('id')))
+      .prepare('setup_detail'),
+  );
+  const [row] = await q.execute({ id, userId });
   if (!row) return null;
-  const { documentJson, ...meta } = row;
+  const { documentJson, deletedAt, ...meta } = row;
   const current = meta.schemaVersion === CURRENT_SCHEMA_VERSION;
   return {
-    meta: { ...meta, schemaVersion: CURRENT_SCHEMA_VERSION, createdAt: meta.createdAt.toISOString(), updatedAt: meta.updatedAt.toISOString() },
+    access: { id: meta.id, studioId: meta.studioId, isTemplate: meta.isTemplate, deletedAt, version: meta.version, role: meta.role } satisfies SetupAccess,
+    meta: { ...meta, schemaVersion: CURRENT_SCHEMA_VERSION, createdAt: meta.createdAt.toISOString(), updatedAt: meta.updatedAt.toISOString() } satisfies Omit<SetupDetail, 'document'>,
     documentJson: current ? documentJson : JSON.stringify(parseDocument(JSON.parse(documentJson))),
   };
 }
 
 /** The detail as a plain object (tests, the 409 body). */
-export async function getSetupDetailObject(db: Conn, id: string, userId: string): Promise<SetupDetail | null> {
+export async function getSetupDetailObject(db: Db, id: string, userId: string): Promise<SetupDetail | null> {
   const d = await getSetupDetail(db, id, userId);
   return d ? { ...d.meta, document: JSON.parse(d.documentJson) as SetupDocument } : null;
 }
@@ -225,50 +248,80 @@ export async function createSetup(
 
 export type SetupChanges = { title?: string; notes?: string; tags?: string[]; document?: SetupDocument; isTemplate?: boolean };
 
-const savedColumns = {
-  id: setups.id,
-  studioId: setups.studioId,
-  ownerId: setups.ownerId,
-  title: setups.title,
-  notes: setups.notes,
-  tags: setups.tags,
-  schemaVersion: setups.schemaVersion,
-  version: setups.version,
-  isTemplate: setups.isTemplate,
-  createdAt: setups.createdAt,
-  updatedAt: setups.updatedAt,
-};
-const savedOut = (r: { createdAt: Date; updatedAt: Date } & Omit<SetupSaved, 'createdAt' | 'updatedAt'>): SetupSaved => ({
-  ...r,
-  createdAt: r.createdAt.toISOString(),
-  updatedAt: r.updatedAt.toISOString(),
-});
-
 /**
- * Save changes made from version `fromVersion`. Atomic: the UPDATE matches only while that version is the
- * stored one (a concurrent save holding the row makes this one wait, then not match), and the history row is
- * written in the same transaction. Returns null when nothing was saved (wrong version, deleted, missing).
+ * Save changes made from version `fromVersion`, atomically, in one statement: the UPDATE matches only while
+ * that version is the stored one (a concurrent save holding the row makes this one wait, then not match),
+ * and the history row is inserted by the same statement, unless the new state equals the latest recorded
+ * one. Returns null when nothing was saved (wrong version, deleted, missing).
  */
 export async function saveSetup(db: Db, id: string, fromVersion: number, c: SetupChanges, userId: string): Promise<SetupSaved | null> {
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .update(setups)
-      .set({
-        ...(c.title !== undefined ? { title: c.title } : {}),
-        ...(c.notes !== undefined ? { notes: c.notes } : {}),
-        ...(c.tags !== undefined ? { tags: c.tags } : {}),
-        ...(c.isTemplate !== undefined ? { isTemplate: c.isTemplate } : {}),
-        ...(c.document ? { document: c.document, schemaVersion: c.document.schemaVersion, itemCount: c.document.items.length } : {}),
-        version: sql`${setups.version} + 1`,
-        updatedAt: sql`now()`,
-      })
-      .where(and(eq(setups.id, id), eq(setups.version, fromVersion), isNull(setups.deletedAt)))
-      .returning(savedColumns);
-    if (!row) return null;
-    await recordVersion(tx, id, userId);
-    return savedOut(row);
+  const r = await db.$client.query<SavedRow>({
+    name: 'setup_save',
+    text: `
+      with upd as (
+        update setups set
+          title = coalesce($3, title),
+          notes = coalesce($4, notes),
+          tags = coalesce($5::text[], tags),
+          is_template = coalesce($6, is_template),
+          document = coalesce($7::jsonb, document),
+          schema_version = coalesce($8, schema_version),
+          item_count = coalesce($9, item_count),
+          version = version + 1,
+          updated_at = now()
+        where id = $1 and version = $2 and deleted_at is null
+        returning *
+      ), latest as (
+        select v.document, v.title, v.notes, v.tags from setup_versions v where v.setup_id = $1 order by v.version desc limit 1
+      ), recorded as (
+        insert into setup_versions (setup_id, version, title, notes, tags, document, schema_version, item_count, saved_by, saved_at)
+        select u.id, u.version, u.title, u.notes, u.tags, u.document, u.schema_version, u.item_count, $10, u.updated_at
+        from upd u
+        where not exists (select 1 from latest l where l.document = u.document and l.title = u.title and l.notes = u.notes and l.tags = u.tags)
+      )
+      select id, studio_id, owner_id, title, notes, tags, schema_version, version, is_template, created_at, updated_at from upd`,
+    values: [
+      id,
+      fromVersion,
+      c.title ?? null,
+      c.notes ?? null,
+      c.tags ?? null,
+      c.isTemplate ?? null,
+      c.document ? JSON.stringify(c.document) : null,
+      c.document?.schemaVersion ?? null,
+      c.document?.items.length ?? null,
+      userId,
+    ],
   });
+  const row = r.rows[0];
+  if (!row) return null;
+  return {
+    id: row.id,
+    studioId: row.studio_id,
+    ownerId: row.owner_id,
+    title: row.title,
+    notes: row.notes,
+    tags: row.tags,
+    schemaVersion: row.schema_version,
+    version: row.version,
+    isTemplate: row.is_template,
+    createdAt: new Date(row.created_at).toISOString(),
+    updatedAt: new Date(row.updated_at).toISOString(),
+  };
 }
+type SavedRow = {
+  id: string;
+  studio_id: string;
+  owner_id: string | null;
+  title: string;
+  notes: string;
+  tags: string[];
+  schema_version: number;
+  version: number;
+  is_template: boolean;
+  created_at: Date | string;
+  updated_at: Date | string;
+};
 
 /** Soft delete; false when it was not live. */
 export async function softDeleteSetup(db: Db, id: string): Promise<boolean> {

@@ -17,7 +17,7 @@ import { meRoutes } from './routes/me';
 import { meterRoutes } from './routes/meter';
 import { setupRoutes } from './routes/setups';
 import { studioRoutes } from './routes/studios';
-import { requireUser } from './session';
+import { forgetSession, requireUser } from './session';
 
 export type AppDeps = { db: Db; auth: Auth; logger: Logger; webDir?: string };
 
@@ -26,6 +26,9 @@ export const BODY_LIMIT = '1mb';
 export function createApp({ db, auth, logger, webDir }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
+  // No ETag on API answers: clients revalidate by setup version, not by hashing ~50 KB bodies per request.
+  // (Static files keep theirs: express.static computes its own.)
+  app.set('etag', false);
   app.set('trust proxy', 'loopback');
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') } }));
   app.use(
@@ -42,7 +45,9 @@ export function createApp({ db, auth, logger, webDir }: AppDeps) {
     }),
   );
 
-  // better-auth reads its own body, so it is mounted before the JSON parser.
+  // better-auth reads its own body, so it is mounted before the JSON parser. A sign-out also leaves our
+  // session cache (server/session.ts).
+  app.post('/api/auth/sign-out', forgetSession);
   app.all('/api/auth/{*any}', toNodeHandler(auth));
 
   app.use('/api', express.json({ limit: BODY_LIMIT }));

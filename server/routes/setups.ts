@@ -24,12 +24,18 @@ import { HttpError, notFound } from '../errors';
 import { userOf, type SessionUser } from '../session';
 import { parseBody, parseQuery } from '../validate';
 
+type Detail = NonNullable<Awaited<ReturnType<typeof getSetupDetail>>>;
+
 /** Send a setup with its document as stored: the JSON text is spliced in, not parsed and re-serialised. */
-async function sendDetail(db: Db, res: Response, id: string, userId: string, status = 200) {
-  const d = await getSetupDetail(db, id, userId);
-  if (!d) throw notFound('no such setup');
+function sendDetail(res: Response, d: Detail, status = 200) {
   const head = JSON.stringify(d.meta);
   res.status(status).type('application/json').send(`${head.slice(0, -1)},"document":${d.documentJson}}`);
+}
+
+async function sendStored(db: Db, res: Response, id: string, userId: string, status = 200) {
+  const d = await getSetupDetail(db, id, userId);
+  if (!d) throw notFound('no such setup');
+  sendDetail(res, d, status);
 }
 
 /** The studio a new setup or copy goes into: the one named (the caller must be able to write there), else a default. */
@@ -76,12 +82,15 @@ export function setupRoutes(db: Db) {
       throw new HttpError(403, 'forbidden', 'only studio owners can publish templates');
     }
     const row = await createSetup(db, { ...body, studioId, ownerId: user.id, document: body.document ?? emptyDocument() });
-    await sendDetail(db, res, row.id, user.id, 201);
+    await sendStored(db, res, row.id, user.id, 201);
   });
 
   r.get('/setups/:id', async (req, res) => {
-    const { user, id } = await requireSetup(db, req, 'read');
-    await sendDetail(db, res, id, user.id);
+    // One query: the setup and the caller's role, then the same access rule as every route.
+    const user = userOf(req);
+    const d = await getSetupDetail(db, pathId(req.params.id, 'setup'), user.id);
+    checkSetup(d?.access ?? null, 'read');
+    sendDetail(res, d!);
   });
 
   r.put('/setups/:id', async (req, res) => {
@@ -107,7 +116,7 @@ export function setupRoutes(db: Db) {
     if (access.deletedAt && !(await restoreDeletedSetup(db, id))) {
       throw new HttpError(410, 'restore_expired', 'this setup was deleted more than 30 days ago and can no longer be restored');
     }
-    await sendDetail(db, res, id, user.id);
+    await sendStored(db, res, id, user.id);
   });
 
   r.post('/setups/:id/duplicate', async (req, res) => {
@@ -116,7 +125,7 @@ export function setupRoutes(db: Db) {
     const studioId = await targetStudio(db, user, body.studioId, access);
     const copy = await duplicateSetup(db, id, { studioId, ownerId: user.id, title: body.title });
     if (!copy) throw notFound('no such setup');
-    await sendDetail(db, res, copy, user.id, 201);
+    await sendStored(db, res, copy, user.id, 201);
   });
 
   return r;

@@ -3,7 +3,6 @@
 import { expect } from 'vitest';
 import { DEMO_PASSWORD, DEMO_STUDIO, demoUsers, type DemoUserKey } from '../../db/demo';
 import type { SetupDetail, StudioRole } from '../../model/api';
-import { CURRENT_SCHEMA_VERSION, parseDocument, type SetupDocument } from '../../model/document';
 import { Client, freshEmail } from '../support/http';
 
 export type Signed = { client: Client; userId: string; email: string; personalStudioId: string };
@@ -19,9 +18,11 @@ export async function demo(base: string, who: DemoUserKey): Promise<Signed> {
   return whoAmI(await new Client(base).signIn(email, DEMO_PASSWORD), email);
 }
 
+export const FRESH_PASSWORD = 'fresh-pass-123';
+
 export async function fresh(base: string, name = 'Fresh Tester'): Promise<Signed> {
   const email = freshEmail(name.split(' ')[0]!.toLowerCase());
-  return whoAmI(await new Client(base).signUp(name, email, 'fresh-pass-123'), email);
+  return whoAmI(await new Client(base).signUp(name, email, FRESH_PASSWORD), email);
 }
 
 export async function demoStudioId(c: Client): Promise<string> {
@@ -59,15 +60,4 @@ export async function newSetup(c: Client, body: Record<string, unknown>): Promis
   return r.body;
 }
 
-/** A valid document (defaults filled in) with a subject, a key light and `notes` note items of `noteChars` characters. */
-export function documentWith(notes: number, noteChars = 40, marker = ''): SetupDocument {
-  const items: unknown[] = [
-    { id: 'subj', kind: 'subject', label: 'Sitter', x: 4, y: 3, facingDeg: 90, faceHeightM: 1.6 },
-    { id: 'key', kind: 'light', label: 'Key', x: 3, y: 4, heightM: 2, aimDeg: -45, source: { type: 'strobe', energyWs: 400 }, power: 0.25, modifier: 'softbox' },
-    { id: 'cam', kind: 'camera', label: 'Camera', x: 4, y: 5.5, heightM: 1.5, aimDeg: -90, focalMm: 85, iso: 100, aperture: 8, shutterS: 1 / 160 },
-  ];
-  for (let i = 0; i < notes; i++) {
-    items.push({ id: `n${i}`, kind: 'note', x: (i % 7) + 0.5, y: (i % 5) + 0.5, text: `${marker}${'x'.repeat(Math.max(0, noteChars - marker.length))}` });
-  }
-  return parseDocument({ schemaVersion: CURRENT_SCHEMA_VERSION, stage: { widthM: 8, depthM: 6 }, items, targetAperture: 8 });
-}
+export { documentWith } from './documents';
