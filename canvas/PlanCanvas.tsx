@@ -1,7 +1,7 @@
 // The plan canvas: draws the setup document it is given (it owns none of it) with the meter's light map
 // under it, and turns touches, mouse and wheel into editor actions. Two SVG layers: the static plan
 // (items memoised by identity, so a drag re-renders one item) and the interactive overlay.
-import { useCallback, useEffect, useMemo, useRef, useState, type ComponentType } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Platform, Pressable, StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
 import { Gesture, GestureDetector } from 'react-native-gesture-handler';
 import Svg, { G } from 'react-native-svg';
@@ -16,7 +16,7 @@ import { Grid } from './layers/Grid';
 import { LightMapLayer } from './layers/LightMapLayer';
 import { Overlay } from './layers/Overlay';
 import { useEditor, useEditorStore } from './state/store';
-import { itemViews, type PlanTheme, type ViewProps } from './views';
+import { ItemView, type PlanTheme } from './views';
 import { fitStage, panBy, scaleBarLength, toPlan, toScreen, zoomAt, type Viewport } from './viewport';
 
 export type PlanCanvasProps = {
@@ -33,11 +33,6 @@ export type PlanCanvasProps = {
   visibleIds?: Set<string> | null;
   testID?: string;
 };
-
-function ItemView({ item, theme, units, selected }: ViewProps<Item>) {
-  const V = itemViews[item.kind] as ComponentType<ViewProps<Item>>;
-  return <V item={item} theme={theme} units={units} selected={selected} />;
-}
 
 export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds, insetBottom = 0, testID }: PlanCanvasProps) {
   const store = useEditorStore();
@@ -156,11 +151,11 @@ export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds
           <View style={StyleSheet.absoluteFill} collapsable={false}>
             <Svg width={size.w} height={size.h}>
               <G transform={`translate(${view.tx} ${view.ty}) scale(${view.scale})`}>
-                <Grid widthM={stage.widthM} depthM={stage.depthM} theme={theme} />
+                <Grid stage={stage} theme={theme} />
                 {lightMap ? <LightMapLayer map={lightMap} ink={theme.ink} /> : null}
                 <Beams lights={lights} />
                 {items.map((it) => (
-                  <ItemView key={it.id} item={it} theme={theme} units={units} selected={selected.has(it.id)} />
+                  <ItemView key={it.id} item={it} theme={theme} units={units} />
                 ))}
                 <Overlay items={items} selection={selection} box={box} theme={theme} scale={view.scale} readOnly={readOnly} />
               </G>

@@ -1,24 +1,13 @@
 // Light cones: a translucent fan per light, as wide as its modifier's beam, tinted by its gel.
-import { memo } from 'react';
-import { G, Path } from 'react-native-svg';
-import { GELS, MODIFIERS } from '../../calc';
+import { memo, useMemo } from 'react';
+import { G } from 'react-native-svg';
 import type { ItemOf } from '../../model/document';
-
-const REACH_M = 3;
+import { sketchBeam } from '../sketch/plan';
+import { SketchView } from '../views/SketchView';
 
 const Beam = memo(function Beam({ light }: { light: ItemOf<'light'> }) {
-  if (!light.on) return null;
-  const spec = MODIFIERS[light.modifier];
-  const halfDeg = Math.min(80, light.gridDeg !== null ? Math.min(spec.halfAngleDeg, light.gridDeg / 2) : spec.halfAngleDeg);
-  const h = (halfDeg * Math.PI) / 180;
-  const ex = Math.cos(h) * REACH_M;
-  const ey = Math.sin(h) * REACH_M;
-  const tint = GELS[light.gel].tint;
-  return (
-    <G x={light.x} y={light.y} rotation={light.aimDeg}>
-      <Path d={`M0,0 L${ex},${-ey} A${REACH_M},${REACH_M} 0 0 1 ${ex},${ey} Z`} fill={tint} opacity={0.1} />
-    </G>
-  );
+  const node = useMemo(() => sketchBeam(light), [light]);
+  return node ? <SketchView node={node} /> : null;
 });
 
 export function Beams({ lights }: { lights: ItemOf<'light'>[] }) {

@@ -1,14 +1,12 @@
 // The kit palette: every kind of plan item, grouped as a photographer packs them. Tapping one adds it near
 // the middle of what is on screen (the subject's side of the stage when there is one).
 import { Pressable, StyleSheet, Text, View } from 'react-native';
-import Svg, { G } from 'react-native-svg';
+import Svg from 'react-native-svg';
 import { useEditor, useEditorStore } from '../../canvas/state/store';
-import { graphiteTheme } from '../../canvas/views';
-import { itemViews, type ViewProps } from '../../canvas/views';
+import { ItemView, graphiteTheme } from '../../canvas/views';
 import { colours, fonts, space } from '../../constants/theme';
-import type { Item, ItemKind } from '../../model/document';
+import type { ItemKind } from '../../model/document';
 import { createItem, kindOrder, kinds } from '../../model/kinds';
-import type { ComponentType } from 'react';
 
 const groups: { id: (typeof kinds)[ItemKind]['group']; label: string }[] = [
   { id: 'people', label: 'Set' },
@@ -20,13 +18,10 @@ const groups: { id: (typeof kinds)[ItemKind]['group']; label: string }[] = [
 ];
 
 function Preview({ kind }: { kind: ItemKind }) {
-  const item = createItem(kind, 'preview', { x: 0, y: 0 });
-  const V = itemViews[kind] as ComponentType<ViewProps<Item>>;
+  const item = { ...createItem(kind, 'preview', { x: 0, y: 0 }), label: '' };
   return (
     <Svg width={36} height={36} viewBox="-0.8 -0.8 1.6 1.6">
-      <G>
-        <V item={{ ...item, label: '' } as Item} theme={graphiteTheme} units="metric" selected={false} />
-      </G>
+      <ItemView item={item} theme={graphiteTheme} units="metric" />
     </Svg>
   );
 }
