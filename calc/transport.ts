@@ -95,12 +95,14 @@ export function directAt(
   const dz = qz - L.pz;
   const d2 = dx * dx + dy * dy + dz * dz;
   const d = Math.sqrt(d2);
-  const inv = d > 0 ? 1 / d : 0;
-  const cosInc = -(dx * nx + dy * ny + dz * nz) * inv;
-  const cosOff = d > 0 ? (dx * L.ax + dy * L.ay + dz * L.az) * inv : 1;
-  const incidenceDeg = (Math.acos(Math.max(-1, Math.min(1, d > 0 ? cosInc : 1))) * 180) / Math.PI;
+  // Closer than a micrometre the directions are numerical noise: treat the receptor as on the axis, facing.
+  const apart = d > 1e-6;
+  const inv = apart ? 1 / d : 0;
+  const cosInc = apart ? -(dx * nx + dy * ny + dz * nz) * inv : 1;
+  const cosOff = apart ? (dx * L.ax + dy * L.ay + dz * L.az) * inv : 1;
+  const incidenceDeg = (Math.acos(Math.max(-1, Math.min(1, cosInc))) * 180) / Math.PI;
   const offAxisDeg = (Math.acos(Math.max(-1, Math.min(1, cosOff))) * 180) / Math.PI;
-  const geo = d > 0 ? cosInc : 1;
+  const geo = cosInc;
   if (geo <= 0 || L.axialCdS <= 0) return { luxSeconds: 0, distanceM: d, incidenceDeg, offAxisDeg, transmission: 1 };
   const transmission = transmissionAlong(occ, L.px, L.py, L.pz, qx, qy, qz);
   const luxSeconds =

@@ -109,16 +109,20 @@ describe('lightMap', () => {
         const t = new Float32Array(frame.nx * frame.ny).fill(1);
         castShadows(o, lx, ly, lz, 1.6, frame, t);
         let mismatches = 0;
+        const e = 1e-6;
         for (let j = 0; j < frame.ny; j++) {
           for (let i = 0; i < frame.nx; i++) {
-            const ray = transmissionAlong(o, lx, ly, lz, i * 0.25, j * 0.25, 1.6);
-            if (Math.abs(ray - t[j * frame.nx + i]!) > 1e-6) mismatches++;
+            const x = i * 0.25;
+            const y = j * 0.25;
+            const ray = transmissionAlong(o, lx, ly, lz, x, y, 1.6);
+            // A point on a shadow edge may fall either way: compare only where nudging it does not change the ray test.
+            const edge = [[e, 0], [-e, 0], [0, e], [0, -e]].some(([a, b]) => transmissionAlong(o, lx, ly, lz, x + a!, y + b!, 1.6) !== ray);
+            if (!edge && Math.abs(ray - t[j * frame.nx + i]!) > 1e-6) mismatches++;
           }
         }
-        // A point exactly on a shadow edge may fall either way: allow a stray cell.
-        expect(mismatches).toBeLessThanOrEqual(1);
+        expect(mismatches).toBe(0);
       }),
-      { numRuns: 60 },
+      { numRuns: 100 },
     );
   });
 

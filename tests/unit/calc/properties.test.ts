@@ -2,6 +2,10 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { GEL_IDS, MODIFIER_IDS, lightMap, meter, safeParseScene, type LightInput, type SceneInput } from '../../../calc';
 
+// A failing property shrinks its counterexample; with a meter and a light map per run that can take minutes,
+// so the whole run (shrinking included) is capped and an interrupted run counts as a failure.
+fc.configureGlobal({ interruptAfterTimeLimit: 20_000, markInterruptAsFailure: true });
+
 const coord = fc.double({ min: -8, max: 8, noNaN: true });
 const height = fc.double({ min: 0, max: 4, noNaN: true });
 const angle = fc.double({ min: -360, max: 360, noNaN: true });
