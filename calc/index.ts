@@ -66,16 +66,8 @@ export {
 } from './modifiers';
 export * from './scene';
 export { BARE_REFLECTOR_BEAM_SR, MIN_DISTANCE_SQ_M2 } from './prepare';
-export {
-  type ColourReading,
-  type LightReading,
-  type MeterResult,
-  type MeterWarning,
-  type PointReading,
-  type PowerAdvice,
-  chooseKeyFill,
-  meter,
-} from './meter';
+export type { ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice } from './readings';
+export { DARK_LUX_SECONDS, chooseKeyFill, findBackground, meter } from './meter';
 export {
   type LightMapCache,
   type LightMapGrid,
