@@ -65,7 +65,7 @@ export {
   beamSolidAngleSr,
 } from './modifiers';
 export * from './scene';
-export { BARE_REFLECTOR_BEAM_SR, MIN_DISTANCE_SQ_M2 } from './prepare';
+export { BARE_REFLECTOR_BEAM_SR, MIN_DISTANCE_SQ_M2, lightColour } from './prepare';
 export type { ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice } from './readings';
 export { DARK_LUX_SECONDS, chooseKeyFill, findBackground, meter } from './meter';
 export {

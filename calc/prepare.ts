@@ -2,10 +2,11 @@
  * Turns a validated Scene into flat numeric structures the meter and the light map loop over: resolved
  * light output and beam, occluders and bounce patches. Nothing here allocates per evaluated point.
  */
-import { type Rgb, kelvinToLinearRgb, linearRgbOf, normaliseLuminance, surfaceReflectance } from './colour';
+import { type Rgb, hueHex, kelvinToLinearRgb, linearRgbOf, normaliseLuminance, surfaceReflectance } from './colour';
 import { MIN_POWER_FRACTION, candelaSecondsFromGuideNumber, luxSecondsForAperture } from './exposure';
 import {
   GELS,
+  type GelId,
   type GelSpec,
   MODIFIERS,
   type ModifierSpec,
@@ -106,18 +107,39 @@ function axialFullPowerCdS(l: Light, mod: ModifierSpec, gel: GelSpec, scene: Sce
   return cd * loss * t;
 }
 
-export function prepareLight(l: Light, index: number, scene: Scene): PreparedLight {
-  const modifier = resolveModifier(l);
-  const gel = resolveGel(l);
-  const a = directionFromAim(l.aimDeg, l.tiltDeg);
-  const full = axialFullPowerCdS(l, modifier, gel, scene);
+/**
+ * Colour of a light after its gel: temperature (bare source shifted by the gel's mired) and linear sRGB of
+ * luminance 1 (Planckian colour times the gel's tint).
+ */
+function gelledColour(l: Pick<Light, 'kind' | 'kelvin'>, gel: GelSpec): { kelvin: number; rgb: Rgb } {
   const baseK = l.kelvin ?? (l.kind === 'flash' ? DEFAULT_FLASH_KELVIN : DEFAULT_CONTINUOUS_KELVIN);
   // A strong blue shift can push the mired value to zero or below; clamp to the range the locus fit covers.
   const shiftedMired = 1e6 / baseK + gel.miredShift;
   const kelvin = shiftedMired > 40 ? Math.max(1000, shiftKelvin(baseK, gel.miredShift)) : 25000;
   const src = kelvinToLinearRgb(kelvin);
   const tint = linearRgbOf(gel.tint);
-  const rgb = normaliseLuminance([src[0] * tint[0], src[1] * tint[1], src[2] * tint[2]]);
+  return { kelvin, rgb: normaliseLuminance([src[0] * tint[0], src[1] * tint[1], src[2] * tint[2]]) };
+}
+
+/**
+ * A light's colour for drawing (e.g. its beam tinted by its gel) without running the meter: colour
+ * temperature after the gel, and the hue as a camera white-balanced to whiteBalanceK (default 5500 K) renders it.
+ */
+export function lightColour(
+  l: { kind: 'flash' | 'continuous'; kelvin?: number; gel?: GelId; gelOverride?: Partial<GelSpec> },
+  whiteBalanceK = DEFAULT_FLASH_KELVIN,
+): { kelvin: number; hex: string } {
+  const gel = { ...GELS[l.gel ?? 'none'], ...stripUndefined(l.gelOverride ?? {}) };
+  const { kelvin, rgb } = gelledColour(l, gel);
+  return { kelvin, hex: hueHex(rgb, whiteBalanceK) };
+}
+
+export function prepareLight(l: Light, index: number, scene: Scene): PreparedLight {
+  const modifier = resolveModifier(l);
+  const gel = resolveGel(l);
+  const a = directionFromAim(l.aimDeg, l.tiltDeg);
+  const full = axialFullPowerCdS(l, modifier, gel, scene);
+  const { kelvin, rgb } = gelledColour(l, gel);
   return {
     index,
     light: l,

@@ -8,6 +8,7 @@ import {
   exposureValue,
   illuminanceLux,
   kelvinToLinearRgb,
+  lightColour,
   meter,
   patchBounceLux,
   shiftKelvin,
@@ -380,6 +381,15 @@ describe('meter — colour', () => {
     // the mixed CCT lies between the two lights'
     expect(r.subject.colour!.cctK!).toBeGreaterThan(a!.kelvin);
     expect(r.subject.colour!.cctK!).toBeLessThan(b!.kelvin);
+  });
+
+  it('lightColour gives the drawing colour the meter uses, without metering', () => {
+    const r = meter(scene([flash('a', front(3), { gel: 'half-ctb' })]));
+    const c = lightColour({ kind: 'flash', gel: 'half-ctb' });
+    expect(c.kelvin).toBeCloseTo(r.lights[0]!.kelvin, 10);
+    expect(c.hex).toBe(r.lights[0]!.colourHex);
+    expect(lightColour({ kind: 'continuous' }).kelvin).toBe(3200);
+    expect(lightColour({ kind: 'flash', gel: 'red' }).hex).not.toBe('#ffffff');
   });
 
   it('an ungelled flash reads about 5500 K at the subject', () => {
