@@ -6,6 +6,12 @@
  */
 import { createLightMapCache, meter, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../calc/index';
 
+// Piping into `head` closes stdout early; stop quietly then.
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code === 'EPIPE') process.exit(0);
+  throw e;
+});
+
 const MODS = ['softbox', 'octa', 'strip', 'umbrella-reflective', 'beauty-dish', 'grid-20', 'bare-reflector', 'snoot'] as const;
 const GELS = ['none', 'half-cto', 'quarter-ctb', 'none', 'plus-green', 'none', 'full-cto', 'none'] as const;
 
@@ -54,13 +60,13 @@ function demoScene(lights: number, flags: number): SceneInput {
   };
 }
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
+function quantile(sorted: number[], q: number): number {
+  return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]!;
 }
 
-function time(runs: number, fn: () => void): number {
+/** Median time of `runs` calls after a warm-up, in ms; the 10th–90th percentile spread is kept for the report. */
+const spreads: string[] = [];
+function time(runs: number, fn: () => void, label?: string): number {
   for (let i = 0; i < Math.min(100, runs); i++) fn(); // warm up the JIT
   const ts: number[] = [];
   for (let i = 0; i < runs; i++) {
@@ -68,7 +74,9 @@ function time(runs: number, fn: () => void): number {
     fn();
     ts.push(performance.now() - t0);
   }
-  return median(ts);
+  ts.sort((a, b) => a - b);
+  if (label) spreads.push(`  ${label}: p10 ${quantile(ts, 0.1).toFixed(3)} ms, p90 ${quantile(ts, 0.9).toFixed(3)} ms`);
+  return quantile(ts, 0.5);
 }
 
 const fmt = (ms: number) => `${ms.toFixed(3)} ms`;
@@ -76,7 +84,9 @@ const fmt = (ms: number) => `${ms.toFixed(3)} ms`;
 // 1. meter: 12 lights, 6 walls, bounce on.
 const meterScene = demoScene(12, 0);
 const parsedMeterScene = parseScene(meterScene);
-const tMeter = time(300, () => meter(meterScene));
+// Warm every path first, so the first figure is not paying for JIT tiers the later ones already got.
+for (let i = 0; i < 1000; i++) meter(meterScene);
+const tMeter = time(500, () => meter(meterScene), 'meter');
 const tParse = time(300, () => parseScene(meterScene));
 const m = meter(meterScene);
 console.log(`meter, 12 lights, 6 walls, bounce (incl. schema parse): ${fmt(tMeter)}   [target ≤ 1 ms]`);
@@ -87,7 +97,7 @@ console.log(`  subject f/${m.subject.aperture?.toFixed(1)}, ${m.subject.stopsVsC
 const mapScene = parseScene(demoScene(8, 4));
 const grid: LightMapGrid = { x0: 0, y0: 0, x1: 6, y1: 5, nx: 128, ny: 128 };
 const points = grid.nx * grid.ny;
-const tFull = time(40, () => createLightMapCache().updateParsed(mapScene, grid));
+const tFull = time(60, () => createLightMapCache().updateParsed(mapScene, grid), 'full map');
 const tFullNoContours = time(40, () => createLightMapCache().updateParsed(mapScene, { ...grid, skipContours: true }));
 console.log(`light map 128×128, 8 lights, 6 walls, 4 flags, full: ${fmt(tFull)}   [target ≤ 16 ms]`);
 console.log(`  without contours: ${fmt(tFullNoContours)}; contours: ${fmt(tFull - tFullNoContours)}`);
@@ -101,7 +111,7 @@ const moved = () => {
   const lights = mapScene.lights.map((l, i) => (i === 2 ? { ...l, x: l.x + 0.01 * Math.sin(step), y: l.y + 0.01 * Math.cos(step) } : l));
   return { ...mapScene, lights };
 };
-const tMove = time(200, () => cache.updateParsed(moved(), grid));
+const tMove = time(300, () => cache.updateParsed(moved(), grid), 'one light moved');
 console.log(`light map, one light moved (cached): ${fmt(tMove)}   [target ≤ 4 ms]  (recomputed ${cache.stats.lightsRecomputed}, reused ${cache.stats.lightsReused})`);
 const tMoveParse = time(200, () => cache.update(moved(), grid));
 console.log(`  same through update() with schema parse: ${fmt(tMoveParse)}`);
@@ -113,3 +123,5 @@ const noLights = parseScene({ ...demoScene(0, 4), options: { bounce: false } });
 const tZero = time(100, () => createLightMapCache().updateParsed(noLights, { ...grid, skipContours: true }));
 console.log(`direct light, per (point × light), 10 occluders: ${(((tOne - tZero) * 1e6) / points).toFixed(1)} ns`);
 console.log(`full map, per (point × light): ${((tFull * 1e6) / (points * 8)).toFixed(1)} ns; one-light update per point: ${((tMove * 1e6) / points).toFixed(1)} ns`);
+console.log('spread (machine noise):');
+for (const line of spreads) console.log(line);
