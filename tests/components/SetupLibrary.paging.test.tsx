@@ -1,0 +1,53 @@
+// SetupLibrary's paging, with the list hook replaced (vi.mock), so the test controls what pages exist.
+import { fireEvent, screen } from '@testing-library/react-native';
+import { SetupLibrary } from '../../components/SetupLibrary';
+import { renderScreen, serveApi, setup } from './support/library';
+
+type Paging = { hasNextPage: boolean; isFetchingNextPage: boolean; fetchNextPage: () => void };
+const paging = vi.hoisted(() => ({ current: {} as Paging }));
+
+vi.mock(import('../../hooks/setups'), async (real) => ({
+  ...(await real()),
+  useSetupList: (() => ({
+    isPending: false,
+    isError: false,
+    data: { pages: [{ setups: [setup({ title: 'Beauty dish overhead' }), setup({ title: 'Gridded strip as rim' })], nextCursor: 'next' }] },
+    ...paging.current,
+  })) as never,
+}));
+
+beforeEach(() => {
+  serveApi(() => ({ status: 500, body: { error: { code: 'unused', message: 'the list comes from the mocked hook' } } }));
+});
+afterEach(() => {
+  vi.unstubAllGlobals();
+});
+
+const endOfList = () => fireEvent(screen.getByLabelText('Your setups'), 'onEndReached');
+
+describe('SetupLibrary paging', () => {
+  it('asks for the next page at the end of the list when there is one', () => {
+    const fetchNextPage = vi.fn();
+    paging.current = { hasNextPage: true, isFetchingNextPage: false, fetchNextPage };
+    renderScreen(<SetupLibrary />);
+    expect(screen.getByText('Beauty dish overhead')).toBeOnTheScreen();
+    endOfList();
+    expect(fetchNextPage).toHaveBeenCalledTimes(1);
+  });
+
+  it('does not ask again while a page is on its way', () => {
+    const fetchNextPage = vi.fn();
+    paging.current = { hasNextPage: true, isFetchingNextPage: true, fetchNextPage };
+    renderScreen(<SetupLibrary />);
+    endOfList();
+    expect(fetchNextPage).not.toHaveBeenCalled();
+  });
+
+  it('does not ask when the last page is in', () => {
+    const fetchNextPage = vi.fn();
+    paging.current = { hasNextPage: false, isFetchingNextPage: false, fetchNextPage };
+    renderScreen(<SetupLibrary />);
+    endOfList();
+    expect(fetchNextPage).not.toHaveBeenCalled();
+  });
+});

@@ -1,0 +1,65 @@
+import { act, screen, userEvent } from '@testing-library/react-native';
+import { SetupLibrary } from '../../components/SetupLibrary';
+import { renderScreen, serveApi, setup } from './support/library';
+
+afterEach(() => {
+  vi.unstubAllGlobals();
+});
+
+describe('SetupLibrary', () => {
+  it('lists the setups the API returns', async () => {
+    const api = serveApi(() => ({
+      status: 200,
+      body: {
+        setups: [
+          setup({ title: 'Clamshell portrait', tags: ['beauty', 'two lights'], itemCount: 5 }),
+          setup({ title: 'Rembrandt with bounce', itemCount: 3 }),
+        ],
+        nextCursor: null,
+      },
+    }));
+    renderScreen(<SetupLibrary />);
+
+    expect(await screen.findByText('Clamshell portrait')).toBeOnTheScreen();
+    expect(screen.getByText('Rembrandt with bounce')).toBeOnTheScreen();
+    expect(screen.queryByText('No setups yet')).toBeNull();
+    expect(api.listRequests().length).toBeGreaterThan(0);
+  });
+
+  it('says so when there are no setups yet', async () => {
+    serveApi(() => ({ status: 200, body: { setups: [], nextCursor: null } }));
+    renderScreen(<SetupLibrary />);
+
+    expect(await screen.findByText('No setups yet')).toBeOnTheScreen();
+    expect(screen.queryByText('Clamshell portrait')).toBeNull();
+  });
+
+  it('searches as you type, once the typing stops, and says when nothing matches', async () => {
+    const api = serveApi((url) =>
+      url.searchParams.get('q') === 'snoot'
+        ? { status: 200, body: { setups: [], nextCursor: null } }
+        : { status: 200, body: { setups: [setup({ title: 'Clamshell portrait' })], nextCursor: null } },
+    );
+    // The router runs on fake timers, which makes the debounce deterministic: typing takes no time at all.
+    const user = userEvent.setup({ advanceTimers: (ms) => void vi.advanceTimersByTime(ms) });
+    renderScreen(<SetupLibrary />);
+    expect(await screen.findByText('Clamshell portrait')).toBeOnTheScreen();
+
+    await user.type(screen.getByLabelText('Search setups'), 'snoot');
+    expect(screen.queryByText('No setup matches that search')).toBeNull();
+    await act(() => vi.advanceTimersByTimeAsync(250));
+
+    expect(await screen.findByText('No setup matches that search')).toBeOnTheScreen();
+    expect(screen.queryByText('Clamshell portrait')).toBeNull();
+    // One request for the whole word, none per keystroke.
+    const searched = api.listRequests().map((u) => u.searchParams.get('q')).filter((q) => q !== null);
+    expect(searched).toEqual(['snoot']);
+  });
+
+  it('shows the API error as an alert', async () => {
+    serveApi(() => ({ status: 500, body: { error: { code: 'internal', message: 'database unavailable' } } }));
+    renderScreen(<SetupLibrary />);
+
+    expect(await screen.findByRole('alert', { name: /Could not load your setups: database unavailable/ })).toBeOnTheScreen();
+  });
+});
