@@ -1,32 +1,206 @@
-// Setups on the server: the query-key factory and the hooks over it.
-import { useInfiniteQuery } from '@tanstack/react-query';
-import type { SetupListResponse } from '../model/api';
-import { api } from './api';
+// Setups on the server: the query-key factory, the query hooks, and mutations that update the cache at once
+// (optimistically) and invalidate what they touched. Lists are invalidated, never a setup's detail while the
+// editor holds it (that would fight the user's edits).
+import { useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData, type QueryClient } from '@tanstack/react-query';
+import type { CreateSetupBody, DuplicateSetupBody, HistoryResponse, SetupComment, SetupDetail, SetupListResponse, SetupSaved, SetupSort, TagCount, UpdateSetupBody } from '../model/api';
+import { parseDocument } from '../model/document';
+import { ApiRequestError, api } from './api';
 
-export type SetupFilter = { studio?: string; q?: string; tag?: string };
+export type LibrarySection = 'library' | 'templates' | 'deleted';
+export type SetupFilter = { studio?: string; q?: string; tag?: string; sort?: SetupSort; section?: LibrarySection };
 
 export const setupKeys = {
   all: ['setups'] as const,
   lists: () => [...setupKeys.all, 'list'] as const,
   list: (f: SetupFilter) => [...setupKeys.lists(), f] as const,
   detail: (id: string) => [...setupKeys.all, 'detail', id] as const,
+  history: (id: string) => [...setupKeys.all, 'history', id] as const,
+  comments: (id: string) => [...setupKeys.all, 'comments', id] as const,
+  tags: (studio?: string) => [...setupKeys.all, 'tags', studio ?? 'all'] as const,
 };
 
-function query(f: SetupFilter, cursor: string | null) {
+function listQuery(f: SetupFilter, cursor: string | null) {
   const p = new URLSearchParams();
   if (f.studio) p.set('studio', f.studio);
   if (f.q) p.set('q', f.q);
   if (f.tag) p.set('tag', f.tag);
+  if (f.sort && f.sort !== 'updated') p.set('sort', f.sort);
+  if (f.section === 'templates') p.set('templates', '1');
+  if (f.section === 'deleted') p.set('deleted', '1');
   if (cursor) p.set('cursor', cursor);
   const s = p.toString();
   return s ? `?${s}` : '';
 }
 
+/** One section of the library, page by page (infinite scroll). */
 export function useSetupList(f: SetupFilter) {
   return useInfiniteQuery({
     queryKey: setupKeys.list(f),
     initialPageParam: null as string | null,
-    queryFn: ({ pageParam, signal }) => api<SetupListResponse>(`/setups${query(f, pageParam)}`, { signal }),
+    queryFn: ({ pageParam, signal }) => api<SetupListResponse>(`/setups${listQuery(f, pageParam)}`, { signal }),
     getNextPageParam: (last) => last.nextCursor,
+  });
+}
+
+export function useTags(studio?: string) {
+  return useQuery({
+    queryKey: setupKeys.tags(studio),
+    queryFn: ({ signal }) => api<{ tags: TagCount[] }>(`/tags${studio ? `?studio=${studio}` : ''}`, { signal }).then((r) => r.tags ?? []),
+  });
+}
+
+/** Read a setup, its document parsed (and migrated) with the shared schema. The editor owns it once open. */
+export function useSetup(id: string) {
+  return useQuery({
+    queryKey: setupKeys.detail(id),
+    queryFn: async ({ signal }) => {
+      const s = await api<SetupDetail>(`/setups/${id}`, { signal });
+      return { ...s, document: parseDocument(s.document) };
+    },
+    staleTime: Infinity,
+    refetchOnWindowFocus: false,
+  });
+}
+
+/** The stored copy the server sent with a 409, or null for any other error. */
+export function conflictOf(err: unknown): SetupDetail | null {
+  if (!(err instanceof ApiRequestError) || err.status !== 409) return null;
+  return (err.body as { error?: { current?: SetupDetail } } | null)?.error?.current ?? null;
+}
+
+/**
+ * Save `{ version, ...changes }`. The detail cache shows the changes at once; a 409 is thrown as an
+ * ApiRequestError whose `body.error.current` is the server's copy (see conflictOf) and leaves the user's
+ * changes in the cache for the editor to resolve; any other failure puts the cache back.
+ */
+export function useSaveSetup(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: UpdateSetupBody) => api<SetupSaved>(`/setups/${id}`, { method: 'PUT', body }),
+    onMutate: async ({ version: _v, ...changes }) => {
+      await qc.cancelQueries({ queryKey: setupKeys.detail(id) });
+      const before = qc.getQueryData<SetupDetail>(setupKeys.detail(id));
+      if (before) qc.setQueryData<SetupDetail>(setupKeys.detail(id), { ...before, ...changes });
+      return { before };
+    },
+    onError: (err, _body, ctx) => {
+      if (!conflictOf(err) && ctx?.before) qc.setQueryData(setupKeys.detail(id), ctx.before);
+    },
+    onSuccess: (saved) => {
+      qc.setQueryData<SetupDetail>(setupKeys.detail(id), (old) => (old ? { ...old, ...saved } : old));
+      void qc.invalidateQueries({ queryKey: setupKeys.lists() });
+      void qc.invalidateQueries({ queryKey: setupKeys.history(id) });
+    },
+  });
+}
+
+function listsChanged(qc: QueryClient) {
+  void qc.invalidateQueries({ queryKey: setupKeys.lists() });
+  void qc.invalidateQueries({ queryKey: [...setupKeys.all, 'tags'] });
+}
+
+/** Take a setup out of every cached list page at once (delete, restore); returns how to put them back. */
+function removeFromLists(qc: QueryClient, id: string) {
+  const snapshot = qc.getQueriesData<InfiniteData<SetupListResponse>>({ queryKey: setupKeys.lists() });
+  qc.setQueriesData<InfiniteData<SetupListResponse>>({ queryKey: setupKeys.lists() }, (data) =>
+    data ? { ...data, pages: data.pages.map((p) => ({ ...p, setups: p.setups.filter((s) => s.id !== id) })) } : data,
+  );
+  return () => snapshot.forEach(([key, data]) => qc.setQueryData(key, data));
+}
+
+export function useCreateSetup() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: CreateSetupBody) => api<SetupDetail>('/setups', { method: 'POST', body }),
+    onSuccess: (s) => {
+      qc.setQueryData(setupKeys.detail(s.id), { ...s, document: parseDocument(s.document) });
+      listsChanged(qc);
+    },
+  });
+}
+
+export function useDuplicateSetup() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, ...body }: DuplicateSetupBody & { id: string }) => api<SetupDetail>(`/setups/${id}/duplicate`, { method: 'POST', body }),
+    onSuccess: (s) => {
+      qc.setQueryData(setupKeys.detail(s.id), { ...s, document: parseDocument(s.document) });
+      listsChanged(qc);
+    },
+  });
+}
+
+export function useDeleteSetup() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => api<void>(`/setups/${id}`, { method: 'DELETE' }),
+    onMutate: async (id) => {
+      await qc.cancelQueries({ queryKey: setupKeys.lists() });
+      return { putBack: removeFromLists(qc, id) };
+    },
+    onError: (_e, _id, ctx) => ctx?.putBack(),
+    onSettled: (_d, _e, id) => {
+      qc.removeQueries({ queryKey: setupKeys.detail(id) });
+      listsChanged(qc);
+    },
+  });
+}
+
+export function useRestoreSetup() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => api<SetupDetail>(`/setups/${id}/restore`, { method: 'POST' }),
+    onMutate: async (id) => {
+      await qc.cancelQueries({ queryKey: setupKeys.lists() });
+      return { putBack: removeFromLists(qc, id) };
+    },
+    onError: (_e, _id, ctx) => ctx?.putBack(),
+    onSettled: () => listsChanged(qc),
+  });
+}
+
+export function useSetupHistory(id: string) {
+  return useInfiniteQuery({
+    queryKey: setupKeys.history(id),
+    initialPageParam: null as number | null,
+    queryFn: ({ pageParam, signal }) => api<HistoryResponse>(`/setups/${id}/history${pageParam ? `?before=${pageParam}` : ''}`, { signal }),
+    getNextPageParam: (last) => last.nextBefore,
+  });
+}
+
+/** Make an earlier version current again (as a new version); the editor's copy is replaced by it. */
+export function useRestoreVersion(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ versionId, version }: { versionId: string; version?: number }) =>
+      api<SetupSaved>(`/setups/${id}/history/${versionId}/restore`, { method: 'POST', body: version ? { version } : {} }),
+    onSuccess: () => {
+      void qc.invalidateQueries({ queryKey: setupKeys.detail(id) });
+      void qc.invalidateQueries({ queryKey: setupKeys.history(id) });
+      listsChanged(qc);
+    },
+  });
+}
+
+export function useComments(id: string) {
+  return useQuery({
+    queryKey: setupKeys.comments(id),
+    queryFn: ({ signal }) => api<{ comments: SetupComment[] }>(`/setups/${id}/comments`, { signal }).then((r) => r.comments),
+  });
+}
+
+export function useAddComment(id: string, me: { id: string; name: string }) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: { body: string; itemId?: string }) => api<SetupComment>(`/setups/${id}/comments`, { method: 'POST', body }),
+    onMutate: async (body) => {
+      await qc.cancelQueries({ queryKey: setupKeys.comments(id) });
+      const before = qc.getQueryData<SetupComment[]>(setupKeys.comments(id));
+      const draft: SetupComment = { id: `draft-${Date.now()}`, body: body.body, itemId: body.itemId ?? null, createdAt: new Date().toISOString(), author: me };
+      qc.setQueryData<SetupComment[]>(setupKeys.comments(id), [...(before ?? []), draft]);
+      return { before };
+    },
+    onError: (_e, _b, ctx) => qc.setQueryData(setupKeys.comments(id), ctx?.before),
+    onSettled: () => void qc.invalidateQueries({ queryKey: setupKeys.comments(id) }),
   });
 }

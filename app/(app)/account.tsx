@@ -1,11 +1,10 @@
 import { useRouter } from 'expo-router';
-import { ScrollView, View } from 'react-native';
+import { ScrollView } from 'react-native';
+import { StudiosCard } from '../../components/studios/StudiosCard';
 import { Body, Button, Card, Title } from '../../components/ui';
 import { colours, space } from '../../constants/theme';
 import { useSignOut } from '../../hooks/auth';
 import { useMe } from '../../hooks/me';
-
-const roleWords = { owner: 'Owner', editor: 'Editor', crew: 'Crew' } as const;
 
 export default function AccountScreen() {
   const me = useMe();
@@ -23,15 +22,7 @@ export default function AccountScreen() {
               Units: {me.data.user.units === 'metric' ? 'metres' : 'feet'} · Paper: {me.data.user.paper === 'a4' ? 'A4' : 'US Letter'}
             </Body>
           </Card>
-          <Card>
-            <Body style={{ fontSize: 17, marginBottom: space.sm }}>Studios</Body>
-            {me.data.studios.map((s) => (
-              <View key={s.id} style={{ flexDirection: 'row', justifyContent: 'space-between', paddingVertical: 4 }}>
-                <Body>{s.name}</Body>
-                <Body dim>{roleWords[s.role]}</Body>
-              </View>
-            ))}
-          </Card>
+          <StudiosCard />
         </>
       ) : null}
       <Button
