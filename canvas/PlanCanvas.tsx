@@ -1,7 +1,7 @@
 // The plan canvas: draws the setup document it is given (it owns none of it) with the meter's light map
 // under it, and turns touches, mouse and wheel into editor actions. Two SVG layers: the static plan
 // (items memoised by identity, so a drag re-renders one item) and the interactive overlay.
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Platform, Pressable, StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
 import { Gesture, GestureDetector } from 'react-native-gesture-handler';
 import Svg, { G } from 'react-native-svg';
@@ -13,6 +13,7 @@ import { M_PER_FT, type Units } from '../model/units';
 import { pressDown, pressMove, pressUp, tap, type Press } from './gestures';
 import { Beams } from './layers/Beams';
 import { Grid } from './layers/Grid';
+import { HeatCanvas } from './layers/HeatCanvas';
 import { LightMapLayer } from './layers/LightMapLayer';
 import { Overlay } from './layers/Overlay';
 import { useEditor, useEditorStore } from './state/store';
@@ -34,7 +35,7 @@ export type PlanCanvasProps = {
   testID?: string;
 };
 
-export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds, insetBottom = 0, testID }: PlanCanvasProps) {
+export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds, insetBottom = 0, testID }: PlanCanvasProps) {
   const store = useEditorStore();
   const allItems = useEditor((s) => s.doc.items);
   const items = useMemo(() => (visibleIds ? allItems.filter((i) => visibleIds.has(i.id)) : allItems), [allItems, visibleIds]);
@@ -146,6 +147,8 @@ export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds
 
   return (
     <View style={[styles.host, { backgroundColor: theme.gridMinor }]} onLayout={onLayout} ref={hostRef} testID={testID}>
+      {view ? <View pointerEvents="none" style={[styles.stage, { backgroundColor: theme.background, left: view.tx, top: view.ty, width: stage.widthM * view.scale, height: stage.depthM * view.scale }]} /> : null}
+      {view && lightMap ? <HeatCanvas map={lightMap} view={view} /> : null}
       {view ? (
         <GestureDetector gesture={gesture}>
           <View style={StyleSheet.absoluteFill} collapsable={false}>
@@ -174,33 +177,36 @@ export function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds
       ) : null}
     </View>
   );
-}
+});
 
 /** Every item is also a focusable element with its name, over its glyph: keyboard and screen-reader users
  *  reach items with Tab, and focusing one selects it. */
 function A11yLayer({ items, view, selected }: { items: Item[]; view: Viewport; selected: Set<string> }) {
-  const store = useEditorStore();
   return (
     <View style={StyleSheet.absoluteFill} pointerEvents="box-none">
       {items.map((it) => {
         const p = toScreen(view, anchorOf(it));
-        return (
-          <Pressable
-            key={it.id}
-            accessibilityRole="button"
-            accessibilityLabel={accessibleName(it)}
-            accessibilityState={{ selected: selected.has(it.id) }}
-            onFocus={() => store.dispatch('select', { ids: [it.id] })}
-            onPress={() => store.dispatch('select', { ids: [it.id] })}
-            pointerEvents="none"
-            style={[styles.a11y, { left: p.x - 10, top: p.y - 10 }]}
-            testID={`item-${it.id}`}
-          />
-        );
+        return <Marker key={it.id} id={it.id} name={accessibleName(it)} x={p.x} y={p.y} selected={selected.has(it.id)} />;
       })}
     </View>
   );
 }
+
+const Marker = memo(function Marker({ id, name, x, y, selected }: { id: string; name: string; x: number; y: number; selected: boolean }) {
+  const store = useEditorStore();
+  return (
+    <Pressable
+      accessibilityRole="button"
+      accessibilityLabel={name}
+      accessibilityState={{ selected }}
+      onFocus={() => store.dispatch('select', { ids: [id] })}
+      onPress={() => store.dispatch('select', { ids: [id] })}
+      pointerEvents="none"
+      style={[styles.a11y, { left: x - 10, top: y - 10 }]}
+      testID={`item-${id}`}
+    />
+  );
+});
 
 function ScaleBar({ scale, units, theme, bottom }: { scale: number; units: Units; theme: PlanTheme; bottom: number }) {
   const unitM = units === 'metric' ? 1 : M_PER_FT;
@@ -226,6 +232,7 @@ function ZoomButton({ label, text, onPress }: { label: string; text: string; onP
 
 const styles = StyleSheet.create({
   host: { flex: 1, overflow: 'hidden' },
+  stage: { position: 'absolute' },
   a11y: { position: 'absolute', width: 20, height: 20, borderRadius: 10 },
   scaleBar: { position: 'absolute', left: 12, bottom: 12, alignItems: 'flex-start', gap: 2 },
   scaleText: { fontFamily: 'IBMPlexMono_400Regular', fontSize: 12 },

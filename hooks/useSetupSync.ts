@@ -54,6 +54,8 @@ export function useSetupSync(setup: ServerSetup | undefined) {
     pending.current = {};
     inFlight.current = true;
     setState({ kind: 'saving' });
+    // Optimistic: the cached setup shows the change while it travels.
+    qc.setQueryData<ServerSetup>(setupKeys.detail(id), (old) => (old ? { ...old, ...fields } : old));
     try {
       const saved = await api<ServerSetup>(`/setups/${id}`, { method: 'PUT', body: { version: version.current, ...fields } });
       version.current = saved.version;
@@ -94,8 +96,8 @@ export function useSetupSync(setup: ServerSetup | undefined) {
   const save = useCallback(
     (f: Fields) => {
       pending.current = { ...pending.current, ...f };
-      if (id) qc.setQueryData<ServerSetup>(setupKeys.detail(id), (old) => (old ? { ...old, ...f } : old));
-      setState((s) => (s.kind === 'conflict' || s.kind === 'offline' ? s : { kind: 'pending' }));
+      // Called on every drag frame: only a change of state re-renders.
+      setState((s) => (s.kind === 'conflict' || s.kind === 'offline' || s.kind === 'pending' ? s : { kind: 'pending' }));
       if (state.kind !== 'conflict') schedule();
     },
     [id, qc, schedule, state.kind],

@@ -22,3 +22,13 @@ export function stopsColour(stops: number): [number, number, number, number] {
   }
   return stopsRamp[stopsRamp.length - 1]![1];
 }
+
+/** The ramp tabulated every 1/32 stop from −10 to +4 as packed RGBA bytes, so painting a map allocates nothing. */
+export const RAMP_MIN = -10;
+export const RAMP_STEPS_PER_STOP = 32;
+export const rampTable: Uint8ClampedArray = (() => {
+  const n = 14 * RAMP_STEPS_PER_STOP + 1;
+  const t = new Uint8ClampedArray(n * 4);
+  for (let k = 0; k < n; k++) t.set(stopsColour(RAMP_MIN + k / RAMP_STEPS_PER_STOP), k * 4);
+  return t;
+})();

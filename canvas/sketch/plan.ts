@@ -8,7 +8,8 @@ import { scaleBarLength } from '../viewport';
 import { sketchItem } from './glyphs';
 import { g, line, path, place, polyline, rect, text, type SvgNode } from './nodes';
 
-export function sketchGrid(stage: SetupDocument['stage'], theme: PlanTheme): SvgNode {
+/** The grid over the stage; `fill: 'none'` lets a tint drawn beneath show through (the editor's light map). */
+export function sketchGrid(stage: SetupDocument['stage'], theme: PlanTheme, fill: string = theme.background): SvgNode {
   const lines: SvgNode[] = [];
   for (let k = 0; k * 0.5 <= stage.widthM + 1e-9; k++) {
     const x = k * 0.5;
@@ -20,7 +21,7 @@ export function sketchGrid(stage: SetupDocument['stage'], theme: PlanTheme): Svg
     const major = k % 2 === 0;
     lines.push(line({ x1: 0, y1: y, x2: stage.widthM, y2: y, stroke: major ? theme.gridMajor : theme.gridMinor, strokeWidth: major ? 0.012 : 0.008 }));
   }
-  return g({}, rect({ x: 0, y: 0, width: stage.widthM, height: stage.depthM, fill: theme.background, stroke: theme.gridMajor, strokeWidth: 0.02 }), ...lines);
+  return g({}, rect({ x: 0, y: 0, width: stage.widthM, height: stage.depthM, fill, stroke: theme.gridMajor, strokeWidth: 0.02 }), ...lines);
 }
 
 const BEAM_REACH_M = 3;

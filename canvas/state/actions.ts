@@ -116,8 +116,9 @@ export const actions = {
       ),
   }),
 
-  /** Change fields of one item from the inspector; the result must pass the shared schema. */
-  updateItem: define<{ id: string; patch: Record<string, unknown>; gestureKey?: string }>({
+  /** Change fields of one item from the inspector; the result must pass the shared schema. A function patch
+   *  is given the item as it is now (so a nested field merges into the current value, never a stale one). */
+  updateItem: define<{ id: string; patch: Record<string, unknown> | ((item: Item) => Record<string, unknown>); gestureKey?: string }>({
     id: 'update-item',
     label: 'Change',
     enabled: writable,
@@ -125,7 +126,7 @@ export const actions = {
       commit(
         s,
         mapItems(s.doc, new Set([id]), (i) => {
-          const r = itemSchema.safeParse({ ...i, ...patch, id: i.id, kind: i.kind });
+          const r = itemSchema.safeParse({ ...i, ...(typeof patch === 'function' ? patch(i) : patch), id: i.id, kind: i.kind });
           return r.success ? r.data : i;
         }),
         gestureKey ?? null,

@@ -1,5 +1,5 @@
 // The item inspector: the selected item's properties with units, changed through editor actions.
-import { useCallback } from 'react';
+import { memo, useCallback } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { useEditor, useEditorStore } from '../../canvas/state/store';
 import { colours, fonts, space } from '../../constants/theme';
@@ -20,12 +20,14 @@ const num = (t: string) => {
 const fixed = (d: number) => (v: number) => v.toFixed(d);
 const third = 2 ** (1 / 3);
 
+type Patch = Record<string, unknown> | ((item: Item) => Record<string, unknown>);
+
 function useUpdate(id: string) {
   const store = useEditorStore();
-  return useCallback((patch: Record<string, unknown>) => store.dispatch('updateItem', { id, patch }), [store, id]);
+  return useCallback((patch: Patch) => store.dispatch('updateItem', { id, patch }), [store, id]);
 }
 
-export function Inspector({ units }: { units: Units }) {
+export const Inspector = memo(function Inspector({ units }: { units: Units }) {
   const selection = useEditor((s) => s.selection);
   const item = useEditor((s) => (s.selection.length === 1 ? s.doc.items.find((i) => i.id === s.selection[0]) : undefined));
   const readOnly = useEditor((s) => s.readOnly);
@@ -42,7 +44,7 @@ export function Inspector({ units }: { units: Units }) {
       <ItemFields item={item} units={units} />
     </View>
   );
-}
+});
 
 function ItemFields({ item, units }: { item: Item; units: Units }) {
   const update = useUpdate(item.id);
@@ -74,7 +76,7 @@ function ItemFields({ item, units }: { item: Item; units: Units }) {
   );
 }
 
-type KindProps = { item: Item; units: Units; update: (p: Record<string, unknown>) => void; length: (label: string, value: number, key: string, step?: number) => React.ReactElement };
+type KindProps = { item: Item; units: Units; update: (p: Patch) => void; length: (label: string, value: number, key: string, step?: number) => React.ReactElement };
 
 function KindFields({ item, update, length }: KindProps) {
   switch (item.kind) {
@@ -139,7 +141,7 @@ const wallColours = [
 
 function LightFields({ light, update, length }: { light: ItemOf<'light'>; update: KindProps['update']; length: KindProps['length'] }) {
   const src = light.source;
-  const setSource = (patch: Record<string, unknown>) => update({ source: { ...src, ...patch } });
+  const setSource = (patch: Record<string, unknown>) => update((i) => ({ source: { ...(i as ItemOf<'light'>).source, ...patch } }));
   return (
     <>
       <SwitchField label="On" value={light.on} onChange={(v) => update({ on: v })} />
@@ -191,15 +193,16 @@ function LightFields({ light, update, length }: { light: ItemOf<'light'>; update
 /** One real meter reading anchors this light's predictions from then on. */
 function Calibration({ light, update }: { light: ItemOf<'light'>; update: KindProps['update'] }) {
   const c = light.calibration;
+  const setCal = (patch: Record<string, unknown>) => update((i) => ({ calibration: { ...(i as ItemOf<'light'>).calibration, ...patch } }));
   return (
     <View style={s.box}>
       <Text style={s.sub}>Meter reading</Text>
       <SwitchField label="Use a real reading" value={c !== null} onChange={(v) => update({ calibration: v ? { aperture: 8, distanceM: 1.5, iso: 100, shutterS: light.source.type === 'continuous' ? 1 / 125 : null, power: light.power } : null })} />
       {c ? (
         <>
-          <NumberField label="Meter showed (f/)" value={c.aperture} format={(v) => formatAperture(v).slice(2)} parse={(t) => num(t.replace(/^f\//, ''))} onCommit={(v) => update({ calibration: { ...c, aperture: v } })} />
-          <NumberField label="At distance (m)" value={c.distanceM} format={fixed(2)} parse={num} onCommit={(v) => update({ calibration: { ...c, distanceM: v } })} />
-          <NumberField label="Meter ISO" value={c.iso} format={fixed(0)} parse={num} onCommit={(v) => update({ calibration: { ...c, iso: v } })} />
+          <NumberField label="Meter showed (f/)" value={c.aperture} format={(v) => formatAperture(v).slice(2)} parse={(t) => num(t.replace(/^f\//, ''))} onCommit={(v) => setCal({ aperture: v })} />
+          <NumberField label="At distance (m)" value={c.distanceM} format={fixed(2)} parse={num} onCommit={(v) => setCal({ distanceM: v })} />
+          <NumberField label="Meter ISO" value={c.iso} format={fixed(0)} parse={num} onCommit={(v) => setCal({ iso: v })} />
         </>
       ) : null}
     </View>

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 // The meter: what a handheld incident meter would read at the subject, per light and in total, with the
 // ratios, background, ambient, sync and power advice. Every reading is text (never colour alone).
 import { StyleSheet, Text, View } from 'react-native';
@@ -11,7 +12,7 @@ import type { Item, ItemOf, SetupDocument } from '../../model/document';
 import { planCautions } from '../../model/safety';
 import { formatAperture, formatLength, formatPower, formatShutter, formatStops, type Units } from '../../model/units';
 
-export function MeterPanel({ readings, doc, selectedLight, units }: { readings: Readings; doc: SetupDocument; selectedLight: ItemOf<'light'> | null; units: Units }) {
+export const MeterPanel = memo(function MeterPanel({ readings, doc, selectedLight, units }: { readings: Readings; doc: SetupDocument; selectedLight: ItemOf<'light'> | null; units: Units }) {
   const m = readings.meter;
   const cautions = planCautions(doc);
   const names = new Map(doc.items.map((i: Item) => [i.id, i.label || i.id]));
@@ -50,7 +51,7 @@ export function MeterPanel({ readings, doc, selectedLight, units }: { readings: 
       ) : null}
     </View>
   );
-}
+});
 
 function Reading({ label, value, detail, testID }: { label: string; value: string; detail?: string; testID?: string }) {
   return (

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 // The kit palette: every kind of plan item, grouped as a photographer packs them. Tapping one adds it near
 // the middle of what is on screen (the subject's side of the stage when there is one).
 import { Pressable, StyleSheet, Text, View } from 'react-native';
@@ -26,7 +27,7 @@ function Preview({ kind }: { kind: ItemKind }) {
   );
 }
 
-export function Palette({ onAdded }: { onAdded?: () => void }) {
+export const Palette = memo(function Palette({ onAdded }: { onAdded?: () => void }) {
   const store = useEditorStore();
   const readOnly = useEditor((s) => s.readOnly);
   const add = (kind: ItemKind) => {
@@ -63,7 +64,7 @@ export function Palette({ onAdded }: { onAdded?: () => void }) {
       ))}
     </View>
   );
-}
+});
 
 const s = StyleSheet.create({
   wrap: { padding: space.lg },

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 // The shot list: the frames to make with this setup (wide, medium, tight) with lens and settings.
 import { StyleSheet, Text, View } from 'react-native';
 import { useEditor, useEditorStore } from '../../canvas/state/store';
@@ -13,13 +14,14 @@ const shutter = (t: string) => {
   return m ? 1 / Number(m[1]) : num(t);
 };
 
-export function ShotsPanel() {
+export const ShotsPanel = memo(function ShotsPanel() {
   const store = useEditorStore();
   const shots = useEditor((s) => s.doc.shots);
   const camera = useEditor((s) => s.doc.items.find((i) => i.kind === 'camera'));
   const readOnly = useEditor((s) => s.readOnly);
   const set = (next: Shot[]) => store.dispatch('setShots', { shots: next });
-  const change = (id: string, patch: Partial<Shot>) => set(shots.map((x) => (x.id === id ? { ...x, ...patch } : x)));
+  // Read the list at the moment of the change: a field's callback may be older than the list.
+  const change = (id: string, patch: Partial<Shot>) => set(store.getState().doc.shots.map((x) => (x.id === id ? { ...x, ...patch } : x)));
   const add = () => {
     const c = camera?.kind === 'camera' ? camera : null;
     let id = `shot-${shots.length + 1}`;
@@ -43,14 +45,14 @@ export function ShotsPanel() {
             <NumberField label="Shutter" value={sh.shutterS} format={formatShutter} parse={shutter} onCommit={(v) => change(sh.id, { shutterS: v })} />
             <NumberField label="ISO" value={sh.iso} format={(v) => v.toFixed(0)} parse={num} onCommit={(v) => change(sh.id, { iso: v })} />
             <TextField label="Note" value={sh.note} onCommit={(v) => change(sh.id, { note: v })} />
-            <Button kind="quiet" label="Remove shot" onPress={() => set(shots.filter((x) => x.id !== sh.id))} />
+            <Button kind="quiet" label="Remove shot" onPress={() => set(store.getState().doc.shots.filter((x) => x.id !== sh.id))} />
           </View>
         ),
       )}
       {!readOnly ? <Button kind="quiet" label="Add a shot" onPress={add} /> : null}
     </View>
   );
-}
+});
 
 const s = StyleSheet.create({
   wrap: { padding: space.lg, gap: space.sm },

@@ -1,23 +1,27 @@
+import { memo } from 'react';
 // Steps: the order a setup is built in, one light at a time, for rigging and for teaching. Each step places
 // items (those selected when it is added) and carries a note; tapping a step shows the plan as it stands then.
 import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { useShallow } from 'zustand/react/shallow';
 import { useEditor, useEditorStore } from '../../canvas/state/store';
 import { colours, fonts, space } from '../../constants/theme';
 import type { Step } from '../../model/document';
 import { Button } from '../ui';
 import { TextField } from './fields';
 
-export function StepsPanel({ activeStep, onShowStep }: { activeStep: number | null; onShowStep: (i: number | null) => void }) {
+export const StepsPanel = memo(function StepsPanel({ activeStep, onShowStep }: { activeStep: number | null; onShowStep: (i: number | null) => void }) {
   const store = useEditorStore();
   const steps = useEditor((s) => s.doc.steps);
-  const items = useEditor((s) => s.doc.items);
+  // Names and ids only, so a drag (which changes positions) does not re-render the steps.
+  const itemNames = useEditor(useShallow((s) => s.doc.items.map((i) => `${i.id}\u0000${i.label || i.id}`)));
   const selection = useEditor((s) => s.selection);
   const readOnly = useEditor((s) => s.readOnly);
-  const names = new Map(items.map((i) => [i.id, i.label || i.id]));
+  const names = new Map(itemNames.map((n) => n.split('\u0000') as [string, string]));
+  const allIds = [...names.keys()];
   const set = (next: Step[], gestureKey?: string) => store.dispatch('setSteps', { steps: next, gestureKey });
   const placed = new Set(steps.flatMap((s) => s.itemIds));
   const addStep = () => {
-    const ids = selection.length ? selection.filter((id) => !placed.has(id)) : items.filter((i) => !placed.has(i.id)).map((i) => i.id);
+    const ids = (selection.length ? selection : allIds).filter((id) => !placed.has(id));
     const n = steps.length + 1;
     let id = `step-${n}`;
     while (steps.some((s) => s.id === id)) id = `${id}x`;
@@ -52,7 +56,7 @@ export function StepsPanel({ activeStep, onShowStep }: { activeStep: number | nu
       {!readOnly ? <Button label="Add a step" onPress={addStep} kind="quiet" /> : null}
     </View>
   );
-}
+});
 
 function swap<T>(list: T[], a: number, b: number): T[] {
   const next = list.slice();

@@ -1,6 +1,6 @@
 // Inspector controls with units: a number that commits on Enter or blur and has thumb-sized steppers, a
 // choice row, a switch and a text field. Each is labelled for screen readers.
-import { useEffect, useState, type ReactNode } from 'react';
+import { memo, useEffect, useState, type ReactNode } from 'react';
 import { Pressable, StyleSheet, Switch, Text, TextInput, View } from 'react-native';
 import { colours, fonts, radius, space } from '../../constants/theme';
 
@@ -17,7 +17,7 @@ export function Row({ label, children }: { label: string; children: ReactNode })
  * A number field. `format` shows the value, `parse` reads what was typed (null = not valid, the field
  * reverts); steppers call `onStep(±1)`.
  */
-export function NumberField({
+export const NumberField = memo(function NumberField({
   label,
   value,
   format,
@@ -70,6 +70,17 @@ export function NumberField({
       {onStep ? <Step label={`More ${label.toLowerCase()}`} text="+" onPress={() => onStep(1)} /> : null}
     </Row>
   );
+}, sameValues);
+
+/** Fields re-render when what they show changes, not when their callbacks are new closures (a drag makes new
+ *  ones every frame). So a field's callback may be older than the item: callbacks must use only the field's
+ *  own value or read the current item at call time (the inspector's function patches do). */
+function sameValues(a: Record<string, unknown>, b: Record<string, unknown>): boolean {
+  for (const k of Object.keys(b)) {
+    if (typeof b[k] === 'function') continue;
+    if (k === 'options' ? JSON.stringify(a[k]) !== JSON.stringify(b[k]) : a[k] !== b[k]) return false;
+  }
+  return true;
 }
 
 function Step({ label, text, onPress }: { label: string; text: string; onPress: () => void }) {
@@ -80,7 +91,24 @@ function Step({ label, text, onPress }: { label: string; text: string; onPress: 
   );
 }
 
-export function ChoiceField<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: { id: T; label: string; swatch?: string }[]; onChange: (v: T) => void }) {
+/** Lists longer than this show only the chosen option until opened (a light's gels and modifiers). */
+const COLLAPSE_OVER = 8;
+
+function ChoiceFieldView<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: { id: T; label: string; swatch?: string }[]; onChange: (v: T) => void }) {
+  const [open, setOpen] = useState(false);
+  const collapsed = options.length > COLLAPSE_OVER && !open;
+  const current = options.find((o) => o.id === value);
+  if (collapsed) {
+    return (
+      <View style={{ marginBottom: space.md }}>
+        <Text style={[s.label, { marginBottom: space.xs }]}>{label}</Text>
+        <Pressable accessibilityRole="button" accessibilityLabel={`${label}: ${current?.label ?? value}. Change`} onPress={() => setOpen(true)} style={[s.chip, s.chipOn, { alignSelf: 'flex-start' }]}>
+          {current?.swatch ? <View style={[s.swatch, { backgroundColor: current.swatch }]} /> : null}
+          <Text style={[s.chipText, { color: colours.accentText }]}>{current?.label ?? value} ▾</Text>
+        </Pressable>
+      </View>
+    );
+  }
   return (
     <View style={{ marginBottom: space.md }}>
       <Text style={[s.label, { marginBottom: space.xs }]}>{label}</Text>
@@ -93,7 +121,10 @@ export function ChoiceField<T extends string>({ label, value, options, onChange 
               accessibilityRole="radio"
               accessibilityState={{ checked: on }}
               accessibilityLabel={o.label}
-              onPress={() => onChange(o.id)}
+              onPress={() => {
+                onChange(o.id);
+                setOpen(false);
+              }}
               style={[s.chip, on && s.chipOn]}
             >
               {o.swatch ? <View style={[s.swatch, { backgroundColor: o.swatch }]} /> : null}
@@ -105,6 +136,8 @@ export function ChoiceField<T extends string>({ label, value, options, onChange 
     </View>
   );
 }
+
+export const ChoiceField = memo(ChoiceFieldView, sameValues) as typeof ChoiceFieldView;
 
 export function SwitchField({ label, value, onChange }: { label: string; value: boolean; onChange: (v: boolean) => void }) {
   return (

@@ -87,6 +87,7 @@ describe.each(Object.keys(viewports) as ViewportName[])('the editor on a %s view
     await place('Add camera', [['Across (m)', '4'], ['Down (m)', '5.5']]);
     await place('Add light', [['Across (m)', '4'], ['Down (m)', '4'], ['Height (m)', '1.6'], ['Tilt (°, down is −)', '0']]);
     await sheet(true);
+    await page.getByRole('button', { name: 'Modifier: softbox (90 cm). Change' }).click();
     await page.getByRole('radio', { name: 'bare reflector' }).click();
     await sheet(false);
     await place('Add light', [['Across (m)', '2.6'], ['Down (m)', '4.4'], ['Height (m)', '1.6']]);

@@ -25,6 +25,8 @@ export default function SetupEditorRoute() {
     // The editor owns the document once open; refetching would fight the user's edits.
     staleTime: Infinity,
     refetchOnWindowFocus: false,
+    // Autosave writes the cache on every save; the open editor must not re-render for that.
+    notifyOnChangeProps: ['status', 'error'],
   });
   if (setup.isPending || me.isPending) return <Loading />;
   if (setup.isError) {
