@@ -1,6 +1,7 @@
 // The item inspector: the selected item's properties with units, changed through editor actions.
 import { memo, useCallback } from 'react';
-import { StyleSheet, Text, View } from 'react-native';
+import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { actions } from '../../canvas/state/actions';
 import { useEditor, useEditorStore } from '../../canvas/state/store';
 import { colours, fonts, space } from '../../constants/theme';
 import type { Item, ItemOf } from '../../model/document';
@@ -35,16 +36,36 @@ export const Inspector = memo(function Inspector({ units }: { units: Units }) {
     return (
       <View style={s.wrap}>
         <Body dim>{selection.length > 1 ? `${selection.length} items selected. Drag any of them to move them together.` : 'Tap an item on the plan to see and change its settings, or add one from the kit.'}</Body>
+        {selection.length > 1 && !readOnly ? <SelectionActions /> : null}
       </View>
     );
   }
   return (
     <View style={s.wrap} pointerEvents={readOnly ? 'none' : 'auto'} accessibilityLabel={`Settings of ${kinds[item.kind].label}`}>
       <Text style={s.heading}>{kinds[item.kind].label}</Text>
+      {!readOnly ? <SelectionActions /> : null}
       <ItemFields item={item} units={units} />
     </View>
   );
 });
+
+/** Duplicate, lock and delete as buttons too: a phone has no keyboard shortcuts. */
+function SelectionActions() {
+  const store = useEditorStore();
+  const locked = useEditor((s) => s.doc.items.some((i) => s.selection.includes(i.id) && i.locked));
+  const button = (name: 'duplicateSelection' | 'toggleLock' | 'deleteSelection', label: string) => (
+    <Pressable key={name} accessibilityRole="button" accessibilityLabel={label} onPress={() => store.dispatch(name)} style={({ pressed }) => [s.action, pressed && { backgroundColor: colours.panelRaised }]}>
+      <Text style={s.actionText}>{label}</Text>
+    </Pressable>
+  );
+  return (
+    <View style={s.actions}>
+      {button('duplicateSelection', actions.duplicateSelection.label)}
+      {button('toggleLock', locked ? 'Unlock' : 'Lock')}
+      {button('deleteSelection', actions.deleteSelection.label)}
+    </View>
+  );
+}
 
 function ItemFields({ item, units }: { item: Item; units: Units }) {
   const update = useUpdate(item.id);
@@ -256,4 +277,7 @@ const s = StyleSheet.create({
   heading: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 18, marginBottom: space.md },
   sub: { color: colours.text, fontFamily: fonts.sansMedium, fontSize: 14, marginBottom: space.sm },
   box: { borderTopWidth: 1, borderTopColor: colours.line, paddingTop: space.md, marginTop: space.sm },
+  actions: { flexDirection: 'row', gap: space.sm, marginBottom: space.md, flexWrap: 'wrap' },
+  action: { minHeight: 40, paddingHorizontal: space.md, borderRadius: 8, borderWidth: 1, borderColor: colours.line, justifyContent: 'center' },
+  actionText: { color: colours.text, fontFamily: fonts.sansMedium, fontSize: 13 },
 });
