@@ -1,0 +1,50 @@
+// The meter panel shows the meter's readings as text: per light, the total, ratios, ambient, sync, safety.
+import { render, screen } from '@testing-library/react-native';
+import { MeterPanel } from '../../components/editor/MeterPanel';
+import { computeReadings } from '../../canvas/readings';
+import { demoSetups } from '../../db/seed-setups';
+import { parseDocument, type SetupDocument } from '../../model/document';
+import { formatAperture, formatStops } from '../../model/units';
+
+function show(doc: SetupDocument) {
+  const readings = computeReadings(doc);
+  render(<MeterPanel readings={readings} doc={doc} selectedLight={null} units="metric" />);
+  return readings;
+}
+
+describe('MeterPanel', () => {
+  it('shows the subject reading and each light as f-numbers and stops, from the meter', () => {
+    const r = show(demoSetups[1]!.document);
+    const m = r.meter!;
+    expect(screen.getByTestId('meter-subject')).toHaveTextContent(formatAperture(m.subject.aperture));
+    for (const l of m.lights) {
+      expect(screen.getByTestId(`meter-light-${l.id}`)).toHaveTextContent(formatAperture(l.aperture));
+      expect(screen.getByTestId(`meter-light-${l.id}-stops`)).toHaveTextContent(formatStops(l.stopsVsCamera));
+    }
+    expect(screen.getByTestId('meter-background')).toHaveTextContent(`${formatStops(m.background!.stopsVsSubject)} stops`);
+  });
+
+  it('shows the ambient as stops under when a room reading is given', () => {
+    const r = show(demoSetups[2]!.document);
+    expect(screen.getByTestId('meter-ambient')).toHaveTextContent(`${formatStops(r.meter!.ambient!.stopsVsCamera)} stops`);
+  });
+
+  it('warns when the shutter is faster than the flash sync', () => {
+    const d = demoSetups[0]!.document;
+    const fast = { ...d, items: d.items.map((i) => (i.kind === 'camera' ? { ...i, shutterS: 1 / 1000 } : i)) };
+    show(fast);
+    expect(screen.getAllByRole('alert').map((a) => a.props.children).join(' ')).toMatch(/faster than the flash sync/);
+  });
+
+  it('says what is missing before it can read', () => {
+    show(parseDocument({ schemaVersion: 1, stage: { widthM: 4, depthM: 4 }, items: [] }));
+    expect(screen.getByText('Add a subject and a light to read the light.')).toBeOnTheScreen();
+  });
+
+  it('shows a caution for a boom with no sandbag, deferring to local codes', () => {
+    const d = demoSetups[0]!.document;
+    show({ ...d, items: d.items.map((i) => (i.kind === 'light' ? { ...i, stand: 'boom' as const, sandbagged: false } : i)) });
+    expect(screen.getByText(/on a boom with no sandbag noted/)).toBeOnTheScreen();
+    expect(screen.getByText(/local electrical and venue codes/)).toBeOnTheScreen();
+  });
+});
