@@ -97,7 +97,7 @@ function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number):
       const va = qv[k]!;
       const ub = qu[(k + 1) & 3]!;
       const vb = qv[(k + 1) & 3]!;
-      if ((va - j) * (vb - j) > 0) continue; // edge does not reach this row
+      if ((va > j && vb > j) || (va < j && vb < j)) continue; // edge does not reach this row (compared, not multiplied: tiny products underflow)
       let u: number;
       if (va === vb) {
         // horizontal edge on this row: both ends count
