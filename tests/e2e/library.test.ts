@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { freshEmail } from '../support/http';
 import { launch, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
 
 const base = inject('baseUrl');
@@ -139,5 +140,47 @@ describe('the library', () => {
     await page.getByRole('button', { name: 'Clear the search' }).click();
     await expect.poll(() => visible(page, 'Clamshell headshot on grey')).toBe(true);
     await context.close();
+  });
+});
+
+describe('studio members', () => {
+  it('an owner invites by e-mail; the invitee opens the link signed out, signs up, and joins from the library', async () => {
+    const owner = await signIn('wide', 'owner');
+    await owner.page.getByRole('link', { name: 'Account' }).click();
+    await owner.page.getByRole('link', { name: 'Harbour Light Studio members' }).click();
+    await expect.poll(() => owner.page.getByTestId('member-row').count(), { timeout: 10_000 }).toBeGreaterThanOrEqual(3);
+    const email = freshEmail('assistant');
+    await owner.page.getByLabel('E-mail').fill(email);
+    await owner.page.getByRole('radiogroup', { name: 'Role', exact: true }).getByRole('button', { name: 'Editor' }).click();
+    await owner.page.getByRole('button', { name: 'Make the invitation' }).click();
+    await expect.poll(() => owner.page.getByTestId('invitation-link').isVisible(), { timeout: 10_000 }).toBe(true);
+    const link = (await owner.page.getByTestId('invitation-link').textContent())!.match(/http\S+\/studios\/join\/[A-Za-z0-9_-]{43}/)![0];
+    expect(await owner.page.getByText('Waiting to join').isVisible()).toBe(true);
+    await shot(owner.page, 'studio-wide-members-invited');
+
+    const context = await browser.newContext({ viewport: viewports.phone });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    await page.goto(link);
+    await expect.poll(() => page.url(), { timeout: 15_000 }).toMatch(/\/sign-in$/);
+    await page.getByRole('link', { name: 'Create an account' }).click();
+    await page.getByLabel('Name').fill('Oriel Fenwick');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password (8 characters or more)').fill('assistant-pass-1');
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await expect.poll(() => page.getByTestId('invitation-banner').isVisible(), { timeout: 15_000 }).toBe(true);
+    expect(await page.getByTestId('invitation-banner').textContent()).toContain('Ines Marlowe invited you to join Harbour Light Studio as an editor.');
+    await shot(page, 'library-phone-invited');
+    await page.getByRole('button', { name: 'Join the studio' }).click();
+    await expect.poll(() => visible(page, 'Clamshell headshot on grey'), { timeout: 15_000 }).toBe(true);
+    expect(await page.getByTestId('invitation-banner').count()).toBe(0);
+    // An editor may delete the studio's setups.
+    expect(await page.getByRole('button', { name: 'Delete Clamshell headshot on grey', exact: true }).count()).toBe(1);
+    expect(errors).toEqual([]);
+    await context.close();
+
+    await owner.page.reload();
+    await expect.poll(() => owner.page.getByText('Oriel Fenwick').isVisible(), { timeout: 10_000 }).toBe(true);
+    await owner.context.close();
   });
 });
