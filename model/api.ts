@@ -237,3 +237,13 @@ export const newSetupForm = z.object({
     .pipe(tagsSchema),
 });
 export const duplicateForm = z.object({ title: setupTitle, studioId: uuid('a studio') });
+
+/** PATCH /api/me: the account's own settings. */
+export const updateMeBody = z
+  .object({
+    name: z.string().trim().min(1, 'enter your name').max(80).optional(),
+    units: z.enum(['metric', 'imperial']).optional(),
+    paper: z.enum(['a4', 'letter']).optional(),
+  })
+  .strict();
+export type UpdateMeBody = z.infer<typeof updateMeBody>;

@@ -1,5 +1,6 @@
 import { useRouter } from 'expo-router';
 import { ScrollView } from 'react-native';
+import { AccountSettings } from '../../components/AccountSettings';
 import { StudiosCard } from '../../components/studios/StudiosCard';
 import { Body, Button, Card, Title } from '../../components/ui';
 import { colours, space } from '../../constants/theme';
@@ -18,10 +19,8 @@ export default function AccountScreen() {
           <Card>
             <Body style={{ fontSize: 17 }}>{me.data.user.name}</Body>
             <Body dim>{me.data.user.email}</Body>
-            <Body dim>
-              Units: {me.data.user.units === 'metric' ? 'metres' : 'feet'} · Paper: {me.data.user.paper === 'a4' ? 'A4' : 'US Letter'}
-            </Body>
           </Card>
+          <AccountSettings me={me.data} />
           <StudiosCard />
         </>
       ) : null}

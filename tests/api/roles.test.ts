@@ -52,6 +52,7 @@ async function member(): Promise<Vars> {
 const cases: Case[] = [
   { route: 'GET /api/health', call: (c) => c.get('/api/health'), expect: { owner: 200, editor: 200, crew: 200, stranger: 200, signedOut: 200 } },
   { route: 'GET /api/me', call: (c) => c.get('/api/me'), expect: anyUser(200) },
+  { route: 'PATCH /api/me', call: (c) => c.request('PATCH', '/api/me', {}), expect: anyUser(200) },
 
   // Setups
   { route: 'GET /api/setups', call: (c) => c.get(`/api/setups?studio=${shared.studio}`), expect: anyUser(200) },
