@@ -61,7 +61,7 @@ describe.each(Object.keys(viewports) as ViewportName[])('the editor on a %s view
           const settled = Math.abs(now - last) < 0.5;
           last = now;
           return settled;
-        }, { intervals: [150], timeout: 5000 })
+        }, { interval: 150, timeout: 5000 })
         .toBe(true);
     };
     const kit = async (label: string) => {
