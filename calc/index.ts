@@ -67,7 +67,7 @@ export {
 export * from './scene';
 export { BARE_REFLECTOR_BEAM_SR, MIN_DISTANCE_SQ_M2, lightColour } from './prepare';
 export type { ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice } from './readings';
-export { DARK_LUX_SECONDS, chooseKeyFill, findBackground, meter } from './meter';
+export { DARK_LUX_SECONDS, chooseKeyFill, findBackground, meter, meterParsed } from './meter';
 export {
   type LightMapCache,
   type LightMapGrid,

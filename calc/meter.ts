@@ -120,7 +120,12 @@ export function chooseKeyFill(
 
 /** Meter a scene (validated and defaulted by sceneSchema; throws with the field path if invalid). */
 export function meter(input: SceneInput | Scene): MeterResult {
-  const scene = parseScene(input);
+  return meterParsed(parseScene(input));
+}
+
+/** Like meter, for a scene already validated by sceneSchema (the editor parses once per frame for both the
+ *  meter and the light map). */
+export function meterParsed(scene: Scene): MeterResult {
   const cam = scene.camera;
   const C = scene.options.calibrationC;
   const lights = scene.lights.map((l, i) => prepareLight(l, i, scene));

@@ -1,7 +1,7 @@
 // The meter's readings for the plan on screen. The physics is all in calc/; this hook only decides when to
 // ask (when the document changes) and keeps the light map's per-light cache between drag frames.
 import { useMemo, useRef } from 'react';
-import { createLightMapCache, meter, parseScene, type LightMapCache, type LightMapResult, type MeterResult } from '../calc';
+import { createLightMapCache, meterParsed, parseScene, type LightMapCache, type LightMapResult, type MeterResult } from '../calc';
 import type { SetupDocument } from '../model/document';
 import { sceneFromDocument, type SceneBuild } from '../model/scene';
 
@@ -28,7 +28,7 @@ export function computeReadings(doc: SetupDocument, opts: { stepIndex?: number; 
   if (!build.scene) return { build, meter: null, map: null, error: null };
   try {
     const scene = parseScene(build.scene);
-    const m = meter(scene);
+    const m = meterParsed(scene);
     const map = opts.lightMap && scene.lights.length ? (opts.cache ?? createLightMapCache()).updateParsed(scene, mapGridFor(doc.stage)) : null;
     return { build, meter: m, map, error: null };
   } catch (e) {
