@@ -1,7 +1,7 @@
 // The meter panel shows the meter's readings as text: per light, the total, ratios, ambient, sync, safety.
 import { render, screen } from '@testing-library/react-native';
 import { MeterPanel } from '../../components/editor/MeterPanel';
-import { computeReadings } from '../../canvas/readings';
+import { computeReadings } from '../../model/readings';
 import { demoSetups } from '../../db/seed-setups';
 import { parseDocument, type SetupDocument } from '../../model/document';
 import { formatAperture, formatStops } from '../../model/units';

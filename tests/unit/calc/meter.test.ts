@@ -402,11 +402,11 @@ describe('meter — colour', () => {
 describe('meterParsed', () => {
   it('gives the same readings as meter for a scene parsed once', async () => {
     const { meter, meterParsed, parseScene } = await import('../../../calc');
-    const input = {
+    const input: SceneInput = {
       lights: [{ id: 'k', kind: 'flash', x: 0, y: 1, heightM: 1.6, aimDeg: -90, output: { type: 'energy', ratedWs: 400 } }],
       subject: { x: 0, y: 0, heightM: 1.6, facingDeg: 90 },
       camera: { x: 0, y: 3, aimDeg: -90, aperture: 8, shutterS: 1 / 200, iso: 100 },
-    } as const;
+    };
     expect(meterParsed(parseScene(input))).toEqual(meter(input));
   });
 });
