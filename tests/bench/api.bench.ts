@@ -12,6 +12,7 @@
  * and prints requests/s, p50 and p99 latency, the ratio to the bare route, and the targets:
  *   GET p99 ≤ 20 ms and ≥ 40 % of the bare route's requests/s; PUT p99 ≤ 50 ms.
  * Loopback only; the whole run is bounded (it gives up after 3 minutes). Exit code 1 when a target is missed.
+ * BENCH_PROF=1 writes a CPU profile of the server process to tests/.artifacts/bench-profile/ (for finding where the time goes).
  */
 import autocannon from 'autocannon';
 import { fork, type ChildProcess } from 'node:child_process';
@@ -80,7 +81,7 @@ async function run(name: string, opts: autocannon.Options): Promise<Row> {
 }
 
 async function main() {
-  child = fork(__filename, ['serve'], { stdio: 'inherit', execArgv: [...process.execArgv, ...(process.env.BENCH_PROF ? ['--cpu-prof', '--cpu-prof-dir=/tmp/i5/prof'] : [])] });
+  child = fork(__filename, ['serve'], { stdio: 'inherit', execArgv: [...process.execArgv, ...(process.env.BENCH_PROF ? ['--cpu-prof', '--cpu-prof-dir=tests/.artifacts/bench-profile'] : [])] });
   const guard = setTimeout(() => {
     process.stderr.write('benchmark took longer than 3 minutes; stopping\n');
     child.kill();
