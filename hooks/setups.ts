@@ -59,6 +59,8 @@ export function useSetup(id: string) {
     },
     staleTime: Infinity,
     refetchOnWindowFocus: false,
+    // The open editor owns the document; autosave writes this cache on every save and must not re-render it.
+    notifyOnChangeProps: ['status', 'error'],
   });
 }
 

@@ -4,9 +4,10 @@
 // the conflict and lets the user choose.
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
+import type { SetupDetail } from '../model/api';
 import type { SetupDocument } from '../model/document';
 import { ApiRequestError, api } from './api';
-import { setupKeys } from './setups';
+import { conflictOf, setupKeys, useSaveSetup } from './setups';
 
 export type SaveState =
   | { kind: 'saved'; at: Date | null }
@@ -16,18 +17,7 @@ export type SaveState =
   | { kind: 'conflict'; theirs: ServerSetup }
   | { kind: 'failed'; message: string };
 
-/** The setup as the API returns it (the parts the editor uses). */
-export type ServerSetup = {
-  id: string;
-  studioId: string;
-  title: string;
-  notes: string;
-  tags: string[];
-  version: number;
-  document: SetupDocument;
-  updatedAt: string;
-  role?: 'owner' | 'editor' | 'crew' | null;
-};
+export type ServerSetup = SetupDetail;
 
 type Fields = { document?: SetupDocument; title?: string; notes?: string };
 
@@ -42,6 +32,7 @@ export function useSetupSync(setup: ServerSetup | undefined) {
   const inFlight = useRef(false);
   const backoff = useRef(0);
   const id = setup?.id;
+  const mutation = useSaveSetup(id ?? '');
 
   useEffect(() => {
     if (setup && !inFlight.current && !Object.keys(pending.current).length) version.current = setup.version;
@@ -54,21 +45,18 @@ export function useSetupSync(setup: ServerSetup | undefined) {
     pending.current = {};
     inFlight.current = true;
     setState({ kind: 'saving' });
-    // Optimistic: the cached setup shows the change while it travels.
-    qc.setQueryData<ServerSetup>(setupKeys.detail(id), (old) => (old ? { ...old, ...fields } : old));
     try {
-      const saved = await api<ServerSetup>(`/setups/${id}`, { method: 'PUT', body: { version: version.current, ...fields } });
+      // The mutation updates the cached setup at once (optimistic) and the lists after.
+      const saved = await mutation.mutateAsync({ version: version.current, ...fields });
       version.current = saved.version;
       backoff.current = 0;
-      qc.setQueryData<ServerSetup>(setupKeys.detail(id), (old) => ({ ...(old ?? saved), ...saved, document: fields.document ?? saved.document }));
-      void qc.invalidateQueries({ queryKey: setupKeys.lists() });
       setState(Object.keys(pending.current).length ? { kind: 'pending' } : { kind: 'saved', at: new Date() });
     } catch (e) {
+      const theirs = conflictOf(e);
       if (e instanceof ApiRequestError && e.status === 409) {
         // Keep what was not saved so "keep mine as a copy" still has it.
         pending.current = { ...fields, ...pending.current };
-        const theirs = (e.body as { error?: { current?: ServerSetup } })?.error?.current;
-        setState(theirs ? { kind: 'conflict', theirs } : { kind: 'failed', message: e.message });
+        setState(theirs ? { kind: 'conflict', theirs: { ...theirs, document: theirs.document } } : { kind: 'failed', message: e.message });
       } else if (e instanceof ApiRequestError && e.status < 500) {
         setState({ kind: 'failed', message: e.message });
       } else {
@@ -82,7 +70,7 @@ export function useSetupSync(setup: ServerSetup | undefined) {
     }
     if (Object.keys(pending.current).length && !timer.current) schedule();
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [id, qc]);
+  }, [id, mutation.mutateAsync]);
 
   const schedule = useCallback(() => {
     if (timer.current) clearTimeout(timer.current);
