@@ -28,6 +28,8 @@ export type PlanCanvasProps = {
   boxSelect: boolean;
   /** Keys held on a keyboard (Space pans, Shift adds to the selection). */
   keys?: { current: { space: boolean; shift: boolean } };
+  /** More buttons for the floating column beside zoom (the screen's view toggles). */
+  controls?: React.ReactNode;
   /** Pixels at the bottom covered by something else (the phone's sheet), left out when fitting the stage. */
   insetBottom?: number;
   /** Show only these items (the plan as it stands at one step); null shows everything. */
@@ -35,7 +37,7 @@ export type PlanCanvasProps = {
   testID?: string;
 };
 
-export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds, insetBottom = 0, testID }: PlanCanvasProps) {
+export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds, insetBottom = 0, controls, testID }: PlanCanvasProps) {
   const store = useEditorStore();
   const allItems = useEditor((s) => s.doc.items);
   const items = useMemo(() => (visibleIds ? allItems.filter((i) => visibleIds.has(i.id)) : allItems), [allItems, visibleIds]);
@@ -173,6 +175,7 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, box
           <ZoomButton label="Zoom in" text="+" onPress={() => setView((v) => v && zoomAt(v, 1.25, size.w / 2, size.h / 2))} />
           <ZoomButton label="Zoom out" text="−" onPress={() => setView((v) => v && zoomAt(v, 0.8, size.w / 2, size.h / 2))} />
           <ZoomButton label="Fit the stage" text="⤢" onPress={() => setView(fitStage(stage, size.w, size.h - insetBottom))} />
+          {controls}
         </View>
       ) : null}
     </View>

@@ -123,8 +123,6 @@ function Editor({ setup, store, units, readOnly }: { setup: ServerSetup; store: 
           <IconButton label="Redo" text="↷" disabled={!canRedo} onPress={() => store.dispatch('redo')} />
         </>
       ) : null}
-      <IconButton label={showMap ? 'Hide the light map' : 'Show the light map'} text="◐" active={showMap} onPress={() => setShowMap((v) => !v)} />
-      {!readOnly ? <IconButton label={snap ? 'Snapping on' : 'Snapping off'} text="#" active={snap} onPress={() => store.dispatch('toggleSnap')} /> : null}
       {!wide && !readOnly ? <IconButton label="Open the kit" text="+" onPress={() => setKitOpen(true)} /> : null}
     </View>
   );
@@ -149,8 +147,18 @@ function Editor({ setup, store, units, readOnly }: { setup: ServerSetup; store: 
     }
   };
 
+  const viewToggles = useMemo(
+    () => (
+      <>
+        <IconButton label={showMap ? 'Hide the light map' : 'Show the light map'} text="◐" active={showMap} onPress={() => setShowMap((v) => !v)} />
+        {!readOnly ? <IconButton label={snap ? 'Snapping on' : 'Snapping off'} text="#" active={snap} onPress={() => store.dispatch('toggleSnap')} /> : null}
+      </>
+    ),
+    [showMap, snap, readOnly, store],
+  );
+
   const canvas = (
-    <PlanCanvas theme={graphiteTheme} visibleIds={visible} units={units} lightMap={showMap ? readings.map : null} boxSelect={wide} keys={keys} insetBottom={wide ? 0 : PEEK_PX} testID="plan" />
+    <PlanCanvas theme={graphiteTheme} visibleIds={visible} units={units} lightMap={showMap ? readings.map : null} boxSelect={wide} keys={keys} insetBottom={wide ? 0 : PEEK_PX} controls={viewToggles} testID="plan" />
   );
 
   const conflict =
@@ -273,7 +281,7 @@ const s = StyleSheet.create({
   backText: { color: colours.text, fontSize: 30, lineHeight: 32 },
   title: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 16 },
   saveState: { color: colours.textDim, fontFamily: fonts.mono, fontSize: 11 },
-  icon: { width: 40, height: 40, borderRadius: 8, borderWidth: 1, borderColor: colours.line, alignItems: 'center', justifyContent: 'center' },
+  icon: { width: 40, height: 40, borderRadius: 8, borderWidth: 1, borderColor: colours.line, alignItems: 'center', justifyContent: 'center', backgroundColor: '#26292ecc' },
   iconText: { color: colours.text, fontSize: 18, fontFamily: fonts.sansMedium },
   columns: { flex: 1, flexDirection: 'row' },
   left: { width: 300, flexGrow: 0, borderRightWidth: 1, borderRightColor: colours.line, backgroundColor: colours.panel },
