@@ -1,3 +1,4 @@
 export * from './auth';
 export * from './studios';
 export * from './setups';
+export * from './crew';
