@@ -2,3 +2,4 @@ export * from './auth';
 export * from './studios';
 export * from './setups';
 export * from './crew';
+export * from './classes';
