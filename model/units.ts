@@ -71,3 +71,26 @@ export function formatPower(fraction: number): string {
   const step = whole >= 0 ? '1/1' : `1/${2 ** -whole}`;
   return rest === 0 ? step : `${step} ${rest > 0 ? '+' : '−'}${Math.abs(rest).toFixed(1)}`;
 }
+
+/** Read a number as typed: "8", "5,6", "f/8" (the f/ is dropped). Null when it is not one. */
+export function parseNumber(text: string): number | null {
+  const t = text.trim().replace(/^f\s*\/\s*/i, '').replace(',', '.');
+  if (!t || !/^[-+]?(\d+(\.\d*)?|\.\d+)$/.test(t)) return null;
+  return Number(t);
+}
+
+/**
+ * Read a fraction as photographers write shutter and power: "1/200", "1 / 8", a plain number ("0.5"), or a
+ * power with tenths of a stop as formatPower writes it ("1/8 +0.3", "1/8 −0.3").
+ */
+export function parseFraction(text: string): number | null {
+  const t = text.trim();
+  const m = t.match(/^1\s*\/\s*(\d+(?:[.,]\d+)?)(?:\s*([+−-])\s*(\d*[.,]?\d+))?$/);
+  if (m) {
+    const d = Number(m[1]!.replace(',', '.'));
+    if (!(d > 0)) return null;
+    const tenths = m[3] ? Number(m[3].replace(',', '.')) * (m[2] === '+' ? 1 : -1) : 0;
+    return 2 ** (Math.log2(1 / d) + tenths);
+  }
+  return parseNumber(text.replace(/[″"s]$/, ''));
+}

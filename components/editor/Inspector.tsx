@@ -10,14 +10,11 @@ import { lightRoles } from '../../model/items/light';
 import { propShapes } from '../../model/items/prop';
 import { angleOf, kinds } from '../../model/kinds';
 import { gelChoices, modifierChoices } from '../../model/scene';
-import { formatAperture, formatPower, formatShutter, parseLength, toDisplay, unitSuffix, type Units } from '../../model/units';
+import { formatAperture, formatPower, formatShutter, parseFraction, parseLength, parseNumber, toDisplay, unitSuffix, type Units } from '../../model/units';
 import { Body } from '../ui';
 import { ChoiceField, NumberField, SwitchField, TextField } from './fields';
 
-const num = (t: string) => {
-  const v = Number(t.replace(',', '.').replace(/[^\d.+-]/g, ''));
-  return t.trim() && Number.isFinite(v) ? v : null;
-};
+const num = parseNumber;
 const fixed = (d: number) => (v: number) => v.toFixed(d);
 const third = 2 ** (1 / 3);
 
@@ -170,10 +167,7 @@ function LightFields({ light, update, length }: { light: ItemOf<'light'>; update
         label="Power"
         value={light.power}
         format={formatPower}
-        parse={(t) => {
-          const m = t.trim().match(/^1\s*\/\s*(\d+(?:\.\d+)?)$/);
-          return m ? 1 / Number(m[1]) : num(t);
-        }}
+        parse={parseFraction}
         onCommit={(v) => update({ power: v })}
         onStep={(d) => update({ power: Math.min(1, Math.max(1 / 256, light.power * third ** d)) })}
         testID="field-power"
@@ -221,7 +215,7 @@ function Calibration({ light, update }: { light: ItemOf<'light'>; update: KindPr
       <SwitchField label="Use a real reading" value={c !== null} onChange={(v) => update({ calibration: v ? { aperture: 8, distanceM: 1.5, iso: 100, shutterS: light.source.type === 'continuous' ? 1 / 125 : null, power: light.power } : null })} />
       {c ? (
         <>
-          <NumberField label="Meter showed (f/)" value={c.aperture} format={(v) => formatAperture(v).slice(2)} parse={(t) => num(t.replace(/^f\//, ''))} onCommit={(v) => setCal({ aperture: v })} />
+          <NumberField label="Meter showed (f/)" value={c.aperture} format={(v) => formatAperture(v).slice(2)} parse={num} onCommit={(v) => setCal({ aperture: v })} />
           <NumberField label="At distance (m)" value={c.distanceM} format={fixed(2)} parse={num} onCommit={(v) => setCal({ distanceM: v })} />
           <NumberField label="Meter ISO" value={c.iso} format={fixed(0)} parse={num} onCommit={(v) => setCal({ iso: v })} />
         </>
@@ -241,15 +235,12 @@ const stepIn = (list: number[], v: number, d: number) => {
 function CameraFields({ camera, update, length }: { camera: ItemOf<'camera'>; update: KindProps['update']; length: KindProps['length'] }) {
   return (
     <>
-      <NumberField label="Aperture (f/)" value={camera.aperture} format={(v) => formatAperture(v).slice(2)} parse={(t) => num(t.replace(/^f\//, ''))} onCommit={(v) => update({ aperture: v })} onStep={(d) => update({ aperture: stepIn(apertureSteps, camera.aperture, d) })} testID="field-aperture" />
+      <NumberField label="Aperture (f/)" value={camera.aperture} format={(v) => formatAperture(v).slice(2)} parse={num} onCommit={(v) => update({ aperture: v })} onStep={(d) => update({ aperture: stepIn(apertureSteps, camera.aperture, d) })} testID="field-aperture" />
       <NumberField
         label="Shutter (s)"
         value={camera.shutterS}
         format={formatShutter}
-        parse={(t) => {
-          const m = t.trim().match(/^1\s*\/\s*(\d+(?:\.\d+)?)$/);
-          return m ? 1 / Number(m[1]) : num(t);
-        }}
+        parse={parseFraction}
         onCommit={(v) => update({ shutterS: v })}
         onStep={(d) => update({ shutterS: stepIn(shutterSteps, camera.shutterS, -d) })}
       />
@@ -261,10 +252,7 @@ function CameraFields({ camera, update, length }: { camera: ItemOf<'camera'>; up
         label="Flash sync (s)"
         value={camera.syncS}
         format={formatShutter}
-        parse={(t) => {
-          const m = t.trim().match(/^1\s*\/\s*(\d+(?:\.\d+)?)$/);
-          return m ? 1 / Number(m[1]) : num(t);
-        }}
+        parse={parseFraction}
         onCommit={(v) => update({ syncS: v })}
       />
       {length('Height', camera.heightM, 'heightM', 0.1)}

@@ -4,15 +4,12 @@ import { StyleSheet, Text, View } from 'react-native';
 import { useEditor, useEditorStore } from '../../canvas/state/store';
 import { colours, fonts, space } from '../../constants/theme';
 import type { Shot } from '../../model/document';
-import { formatAperture, formatShutter } from '../../model/units';
+import { formatAperture, formatShutter, parseFraction, parseNumber } from '../../model/units';
 import { Button } from '../ui';
 import { ChoiceField, NumberField, TextField } from './fields';
 
-const num = (t: string) => (t.trim() && Number.isFinite(Number(t.replace(/^f\//, ''))) ? Number(t.replace(/^f\//, '')) : null);
-const shutter = (t: string) => {
-  const m = t.trim().match(/^1\s*\/\s*(\d+(?:\.\d+)?)$/);
-  return m ? 1 / Number(m[1]) : num(t);
-};
+const num = parseNumber;
+const shutter = parseFraction;
 
 export const ShotsPanel = memo(function ShotsPanel() {
   const store = useEditorStore();

@@ -41,6 +41,7 @@ export const NumberField = memo(function NumberField({
     if (!focused) setText(format(value));
   }, [value, focused, format]);
   const commit = () => {
+    if (text === format(value)) return setBad(false);
     const v = parse(text);
     if (v === null || !Number.isFinite(v)) {
       setBad(true);

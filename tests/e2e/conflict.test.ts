@@ -1,17 +1,12 @@
 // Two people on one setup: a save that crossed someone else's is never forced. The editor shows both
 // versions and lets the user load theirs or keep their own as a copy.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
-import { launch, shot, watchErrors } from '../support/browser';
+import { sharedBrowser, shot, watchErrors } from '../support/browser';
 
 const base = inject('baseUrl');
-let browser: Browser;
-let close: () => Promise<void>;
-beforeAll(async () => {
-  ({ browser, close } = await launch());
-});
-afterAll(async () => close?.());
+const browser = sharedBrowser();
 
 const doc = {
   schemaVersion: 1,
@@ -32,7 +27,7 @@ async function openWithConflict(page: Page, title: string) {
   await page.goto(`${base}/setups/${id}`);
   await page.getByTestId('item-key').waitFor();
   // Meanwhile, the associate saves from their own phone.
-  const other = await browser.newContext();
+  const other = await browser().newContext();
   await other.request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.editor.email, password: DEMO_PASSWORD }, headers: h });
   const put = await other.request.put(`${base}/api/setups/${id}`, { data: { version: 1, title: `${title} — theirs` }, headers: h });
   expect(put.status()).toBe(200);
@@ -47,7 +42,7 @@ async function openWithConflict(page: Page, title: string) {
 
 describe('a save that crossed another', () => {
   it('shows both versions and loads theirs on request', async () => {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1440, height: 900 } });
     const errors = watchErrors(page);
     await page.context().request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: { origin: base } });
     const id = await openWithConflict(page, 'Crossed saves');
@@ -65,7 +60,7 @@ describe('a save that crossed another', () => {
   });
 
   it('keeps mine as a new setup, leaving theirs as it was', async () => {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1440, height: 900 } });
     await page.context().request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: { origin: base } });
     const id = await openWithConflict(page, 'Crossed again');
     await page.getByRole('button', { name: 'Keep mine as a copy' }).click();

@@ -1,19 +1,13 @@
 // Drawing a setup in the browser, on a phone and on a wide screen: draw a room, place a subject, a camera
 // and two lights, drag the key from 1 m to 2 m and watch it lose two stops (inverse-square law), undo,
 // reload, and find the plan as it was left.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
-import { launch, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
+import { sharedBrowser, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
 
 const base = inject('baseUrl');
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launch());
-});
-afterAll(async () => close?.());
+const browser = sharedBrowser();
 
 async function centre(page: Page, testId: string) {
   const box = await page.getByTestId(testId).boundingBox();
@@ -32,7 +26,7 @@ const stopsOf = async (page: Page, lightId: string) => Number((await page.getByT
 
 describe.each(Object.keys(viewports) as ViewportName[])('the editor on a %s viewport', (vp) => {
   it('draws a setup, meters the key falling off by two stops, undoes and keeps it over a reload', async () => {
-    const context = await browser.newContext({ viewport: viewports[vp] });
+    const context = await browser().newContext({ viewport: viewports[vp] });
     const page = await context.newPage();
     const errors = watchErrors(page);
     const phone = vp === 'phone';

@@ -1,23 +1,16 @@
 // Sign up, land on the empty library, sign out, sign in as a demo owner and see the demo setups:
 // on a phone and on a wide screen.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
 import { freshEmail } from '../support/http';
-import { launch, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
+import { sharedBrowser, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
 
 const base = inject('baseUrl');
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launch());
-});
-afterAll(async () => close?.());
+const browser = sharedBrowser();
 
 describe.each(Object.keys(viewports) as ViewportName[])('on a %s viewport', (vp) => {
   it('signs up, signs out, and signs in as a demo user', async () => {
-    const context = await browser.newContext({ viewport: viewports[vp] });
+    const context = await browser().newContext({ viewport: viewports[vp] });
     const page = await context.newPage();
     const errors = watchErrors(page);
 

@@ -3,6 +3,7 @@
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 
 export const viewports = {
   phone: { width: 390, height: 844 },
@@ -42,4 +43,18 @@ export function watchErrors(page: Page): string[] {
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
   return errors;
+}
+
+/** One Chromium for a test file: launched before its tests, closed after. Call at the top of the file. */
+export function sharedBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  let close: (() => Promise<void>) | undefined;
+  beforeAll(async () => {
+    ({ browser, close } = await launch());
+  });
+  afterAll(async () => close?.());
+  return () => {
+    if (!browser) throw new Error('the browser is not launched yet');
+    return browser;
+  };
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { M_PER_FT, formatAperture, formatLength, formatPower, formatShutter, formatStops, fromDisplay, parseLength, toDisplay } from '../../../model/units';
+import { M_PER_FT, formatAperture, formatLength, formatPower, formatShutter, formatStops, fromDisplay, parseFraction, parseLength, parseNumber, toDisplay } from '../../../model/units';
 
 describe('lengths', () => {
   // The international foot is exactly 0.3048 m (International Yard and Pound Agreement, 1959).
@@ -54,4 +54,26 @@ describe('photographic notation', () => {
     [2 ** -3.3, '1/8 −0.3'],
     [2 ** -2.6, '1/8 +0.4'],
   ])('power %f → %s (each step of the ladder is one stop, common practice)', (p, s) => expect(formatPower(p)).toBe(s));
+});
+
+describe('reading typed numbers', () => {
+  it.each([
+    ['8', 8],
+    ['5,6', 5.6],
+    ['f/11', 11],
+    [' 0.5 ', 0.5],
+  ])('number "%s" → %f', (t, v) => expect(parseNumber(t)).toBeCloseTo(v));
+  it.each(['', 'eight', '1/8', '3 m'])('"%s" is not a number', (t) => expect(parseNumber(t)).toBeNull());
+  it.each([
+    ['1/200', 1 / 200],
+    ['1 / 8', 1 / 8],
+    ['0.5', 0.5],
+    ['2″', 2],
+    ['1/8 +0.3', 2 ** (-3 + 0.3)],
+    ['1/8 −0.3', 2 ** (-3 - 0.3)],
+  ])('fraction "%s" → %f', (t, v) => expect(parseFraction(t)!).toBeCloseTo(v, 9));
+  it('reads back what formatPower writes', () => {
+    for (const p of [1, 1 / 2, 2 ** -3.3, 2 ** -2.6, 1 / 256]) expect(parseFraction(formatPower(p))!).toBeCloseTo(p, 2);
+  });
+  it.each(['1/0', 'one eighth', '1/'])('"%s" is not a fraction', (t) => expect(parseFraction(t)).toBeNull());
 });
