@@ -25,14 +25,16 @@ function aptInstall(pkgs, why) {
   run('apt-get', ['install', '-y', '-qq', ...pkgs], { env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
 }
 
-// 1. Node modules: `npm ci` when missing or when package-lock.json changed since the last install.
+// 1. Node modules: `npm ci` on a fresh clone; when package-lock.json changed since the last install, an
+// incremental `npm install` (it adds what is missing without wiping node_modules and its caches).
 function ensureNodeModules() {
   const lock = readFileSync(join(root, 'package-lock.json'));
   const want = sha256(lock);
   const stamp = join(root, 'node_modules', '.falloff-lock.sha256');
   if (readText(stamp) === want && existsSync(bin('tsx'))) return;
-  log('installing node modules (npm ci)…');
-  run('npm', ['ci', '--no-audit', '--no-fund', '--loglevel=error']);
+  const fresh = !existsSync(join(root, 'node_modules', '.package-lock.json'));
+  log(fresh ? 'installing node modules (npm ci)…' : 'package-lock.json changed: updating node modules (npm install)…');
+  run('npm', [fresh ? 'ci' : 'install', '--no-audit', '--no-fund', '--loglevel=error']);
   writeText(stamp, want);
 }
 
