@@ -1,7 +1,6 @@
-// Shared helpers for the API tests: demo and fresh users, studio membership through real invitations,
-// setups and documents of a known size.
+// Shared helpers for the API tests: fresh users, studio membership through real invitations, setups and
+// documents of a known size.
 import { expect } from 'vitest';
-import { DEMO_PASSWORD, DEMO_STUDIO, demoUsers, type DemoUserKey } from '../../db/demo';
 import type { SetupDetail, StudioRole } from '../../model/api';
 import { Client, freshEmail } from '../support/http';
 
@@ -13,21 +12,11 @@ async function whoAmI(client: Client, email: string): Promise<Signed> {
   return { client, userId: me.body.user.id, email, personalStudioId: me.body.studios.find((s: { personal: boolean }) => s.personal).id };
 }
 
-export async function demo(base: string, who: DemoUserKey): Promise<Signed> {
-  const email = demoUsers[who].email;
-  return whoAmI(await new Client(base).signIn(email, DEMO_PASSWORD), email);
-}
-
 export const FRESH_PASSWORD = 'fresh-pass-123';
 
 export async function fresh(base: string, name = 'Fresh Tester'): Promise<Signed> {
   const email = freshEmail(name.split(' ')[0]!.toLowerCase());
   return whoAmI(await new Client(base).signUp(name, email, FRESH_PASSWORD), email);
-}
-
-export async function demoStudioId(c: Client): Promise<string> {
-  const me = await c.get('/api/me');
-  return me.body.studios.find((s: { name: string }) => s.name === DEMO_STUDIO).id;
 }
 
 /** The token at the end of an invitation link. */

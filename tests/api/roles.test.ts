@@ -1,5 +1,7 @@
 // The role matrix: every API route × owner, editor, crew, a member of another studio and a signed-out
 // visitor, from one table. A test reads the app's own route list, so a new route without a row fails here.
+// The studio is made for this file (its members joined by invitation), so the demo studio the browser tests
+// sign in to is not filled with the matrix's setups.
 import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { createDb } from '../../db/client';
@@ -7,7 +9,7 @@ import { createApp } from '../../server/app';
 import { createAuth } from '../../server/auth';
 import { TEST_DATABASE_URL } from '../support/env';
 import { Client, freshEmail, type Res } from '../support/http';
-import { demo, demoStudioId, fresh, joinAs, newSetup, tokenOf, type Signed } from './fixtures';
+import { fresh, joinAs, newSetup, studioWithTeam, tokenOf, type Signed } from './fixtures';
 
 const base = inject('baseUrl');
 const who = ['owner', 'editor', 'crew', 'stranger', 'signedOut'] as const;
@@ -169,16 +171,18 @@ const outside: Record<string, string> = {
 };
 
 beforeAll(async () => {
-  owner = await demo(base, 'owner');
-  clients.owner = owner.client;
-  clients.editor = (await demo(base, 'editor')).client;
-  clients.crew = (await demo(base, 'crew')).client;
+  const team = await studioWithTeam(base);
+  owner = team.owner;
+  clients.owner = team.owner.client;
+  clients.editor = team.editor.client;
+  clients.crew = team.crew.client;
   clients.stranger = (await fresh(base, 'Outsider Vale')).client;
   clients.signedOut = new Client(base);
-  shared.studio = await demoStudioId(owner.client);
+  shared.studio = team.studioId;
   shared.studioName = (await owner.client.get(`/api/studios/${shared.studio}`)).body.name;
   Object.assign(shared, await setupWithTwoVersions());
   shared.template = (await freshSetup({ isTemplate: true })).setup!;
+  await freshSetup();
   shared.token = (await invite()).token!;
 });
 
