@@ -2,7 +2,8 @@
 // shapes of its answers.
 import { z } from 'zod';
 import { migrateDocument, setupDocumentSchema, type SetupDocument } from './document';
-import { idSchema } from './geometry';
+import { checkSchema, type Check, type CheckResult } from './classes';
+import { idSchema, pointSchema } from './geometry';
 
 export const signUpBody = z.object({
   name: z.string().trim().min(1, 'enter your name').max(80),
@@ -247,3 +248,248 @@ export const updateMeBody = z
   })
   .strict();
 export type UpdateMeBody = z.infer<typeof updateMeBody>;
+
+// ---------------------------------------------------------------------------------------------
+// Crew sheets, share links, sending to the crew, photos
+
+export const paperSizes = ['a4', 'letter'] as const;
+export type PaperSize = (typeof paperSizes)[number];
+
+/** GET …/plan.png: how wide the image is, in pixels (height follows the stage's proportions). */
+export const planPngQuery = z.object({ width: z.coerce.number().int().min(200, 'at least 200 px').max(4000, 'at most 4000 px').default(2000) }).strict();
+/** GET …/plan.svg takes no options (the drawing scales). */
+export const planSvgQuery = z.object({}).strict();
+/** GET …/crew-sheet.pdf: paper and units default to the account's (or, for a share link, its creator's). */
+export const crewSheetQuery = z
+  .object({ paper: z.enum(paperSizes).optional(), units: z.enum(['metric', 'imperial']).optional(), download: z.enum(['0', '1']).optional() })
+  .strict();
+
+export const createShareBody = z.object({ label: z.string().trim().max(80, 'at most 80 characters').optional() }).strict();
+export type CreateShareBody = z.infer<typeof createShareBody>;
+/** A share link as listed to the setup's studio. Only its token's hash is stored, so the list names a link by
+ *  its label and the token's last characters; the whole address is given once, when it is made. */
+export type ShareLink = { id: string; label: string; tokenTail: string; createdAt: string; createdBy: string | null; lastOpenedAt: string | null };
+/** POST /api/setups/:id/shares: the link (the only time its token is sent) and its row. */
+export type ShareCreated = { token: string; url: string; share: ShareLink };
+/** GET /api/shared/:token: the setup as the holder of the link sees it. */
+export type SharedSetup = {
+  title: string;
+  notes: string;
+  studioName: string;
+  version: number;
+  updatedAt: string;
+  units: 'metric' | 'imperial';
+  paper: PaperSize;
+  document: SetupDocument;
+};
+
+const emailAddress = z.string().trim().toLowerCase().email('not an e-mail address').max(254);
+export const MAX_RECIPIENTS = 10;
+export const sendToCrewBody = z
+  .object({
+    to: z.array(emailAddress).min(1, 'add at least one address').max(MAX_RECIPIENTS, `at most ${MAX_RECIPIENTS} addresses`).transform((a) => [...new Set(a)]),
+    message: z.string().trim().max(2000, 'at most 2000 characters').optional(),
+    /** Attach the crew sheet PDF as well as the link (default yes). */
+    attachPdf: z.boolean().default(true),
+  })
+  .strict();
+export type SendToCrewBody = z.input<typeof sendToCrewBody>;
+/** The form: addresses typed as one line, separated by commas, spaces or new lines. */
+export const sendToCrewForm = z.object({
+  to: z
+    .string()
+    .max(3000)
+    .transform((s) => s.split(/[\s,;]+/).filter(Boolean))
+    .pipe(z.array(emailAddress).min(1, 'add at least one address').max(MAX_RECIPIENTS, `at most ${MAX_RECIPIENTS} addresses`)),
+  message: z.string().max(2000, 'at most 2000 characters'),
+});
+export type SendToCrewResult = { sent: string[]; url: string; shareId: string; attached: boolean };
+
+export const photoKinds = ['reference', 'result'] as const;
+export type PhotoKind = (typeof photoKinds)[number];
+export const MAX_PHOTO_BYTES = 20 * 1024 * 1024;
+export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/heic', 'image/heif'] as const;
+export const uploadPhotoFields = z.object({ kind: z.enum(photoKinds, 'reference or result').default('result') }).strict();
+/** A photo attached to a setup, with the camera settings its EXIF gave (null where it said nothing). */
+export type SetupPhoto = {
+  id: string;
+  kind: PhotoKind;
+  filename: string;
+  mime: string;
+  bytes: number;
+  width: number | null;
+  height: number | null;
+  /** Image and thumbnail URLs (same origin); thumbnailUrl is null when no thumbnail could be made (HEIC here). */
+  url: string;
+  thumbnailUrl: string | null;
+  exif: { iso: number | null; aperture: number | null; shutterS: number | null; focalMm: number | null; camera: string | null; takenAt: string | null };
+  uploadedBy: { id: string; name: string } | null;
+  createdAt: string;
+  /** Why something is missing (no thumbnail, no settings), in plain words. */
+  notes: string[];
+};
+
+// ---------------------------------------------------------------------------------------------
+// Classes, lessons, assignments, submissions
+
+export const classRoles = ['instructor', 'student'] as const;
+export const className = z.string().trim().min(1, 'give the class a name').max(120, 'at most 120 characters');
+export const createClassBody = z.object({ name: className }).strict();
+export const updateClassBody = z.object({ name: className }).strict();
+/** Join codes are typed by people: case and spaces do not matter. */
+export const joinClassBody = z
+  .object({ code: z.string().transform((s) => s.replace(/[\s-]/g, '').toUpperCase()).pipe(z.string().min(4, 'a join code has at least 4 letters').max(12, 'at most 12 letters')) })
+  .strict();
+export const inviteToClassBody = z
+  .object({
+    email: z.string().trim().toLowerCase().email('enter an e-mail address').max(254),
+    role: z.enum(classRoles, 'instructor or student').default('student'),
+  })
+  .strict();
+export type InviteToClassBody = z.input<typeof inviteToClassBody>;
+
+const lessonTitle = z.string().trim().min(1, 'give the lesson a title').max(200, 'at most 200 characters');
+const teachingText = z.string().max(8000, 'at most 8000 characters');
+export const createLessonBody = z.object({ title: lessonTitle, summary: teachingText.optional() }).strict();
+export const updateLessonBody = z
+  .object({ title: lessonTitle.optional(), summary: teachingText.optional(), published: z.boolean().optional(), position: z.number().int().min(0).max(10000).optional() })
+  .strict();
+export type UpdateLessonBody = z.infer<typeof updateLessonBody>;
+export const addLessonSetupBody = z.object({ setupId: uuid('a setup'), note: teachingText.optional() }).strict();
+export const updateLessonSetupBody = z
+  .object({
+    note: teachingText.optional(),
+    /** The instructor's words per step id; an empty text removes a step's note. */
+    stepNotes: z.record(idSchema, z.string().max(4000, 'at most 4000 characters')).optional(),
+    /** Move to this place in the lesson (0 = first). */
+    position: z.number().int().min(0).max(1000).optional(),
+  })
+  .strict();
+export type UpdateLessonSetupBody = z.infer<typeof updateLessonSetupBody>;
+
+const assignmentTitle = z.string().trim().min(1, 'give the assignment a title').max(200, 'at most 200 characters');
+const dueAt = z.iso.datetime({ offset: true, error: 'a date and time, e.g. 2027-03-01T18:00:00Z' }).nullable();
+export const createAssignmentBody = z
+  .object({
+    title: assignmentTitle,
+    brief: teachingText.optional(),
+    check: checkSchema.nullable().optional(),
+    /** The lesson setup whose look is the reference (default: the lesson's first). */
+    referenceId: uuid('a lesson setup').nullable().optional(),
+    dueAt: dueAt.optional(),
+  })
+  .strict();
+export type CreateAssignmentBody = z.input<typeof createAssignmentBody>;
+export const updateAssignmentBody = z
+  .object({ title: assignmentTitle.optional(), brief: teachingText.optional(), check: checkSchema.nullable().optional(), referenceId: uuid('a lesson setup').nullable().optional(), dueAt: dueAt.optional() })
+  .strict();
+export type UpdateAssignmentBody = z.input<typeof updateAssignmentBody>;
+export const startAssignmentBody = z.object({ from: z.enum(['reference', 'blank'], 'reference or blank').default('reference') }).strict();
+/** Submit the working copy (default) or another setup the student can read. */
+export const submitBody = z.object({ setupId: uuid('a setup').optional() }).strict();
+export const updateSubmissionBody = z.object({ reviewed: z.boolean().optional(), shared: z.boolean().optional() }).strict();
+export const submissionCommentBody = z
+  .object({
+    body: z.string().trim().min(1, 'write something').max(4000, 'at most 4000 characters'),
+    itemId: idSchema.optional(),
+    /** A point on the plan, metres. */
+    point: pointSchema.optional(),
+  })
+  .strict()
+  .refine((c) => !(c.itemId && c.point), { message: 'pin to an item or to a point, not both', path: ['point'] });
+export type SubmissionCommentBody = z.infer<typeof submissionCommentBody>;
+
+export type ClassSummary = { id: string; name: string; role: ClassRole; studentCount: number; lessonCount: number };
+/** An invitation to the caller's own address, shown on their Classes screen. */
+export type ClassInvitePreview = { classId: string; className: string; role: ClassRole; invitedBy: string | null; createdAt: string };
+export type ClassListResponse = { classes: ClassSummary[]; invitations: ClassInvitePreview[] };
+export type ClassView = ClassSummary & { createdAt: string; instructors: string[]; /** Instructors only. */ joinCode: string | null };
+export type ClassMember = { userId: string; name: string; /** Shown to instructors only. */ email: string | null; role: ClassRole; joinedAt: string };
+export type ClassInvitation = { id: string; email: string; role: ClassRole; invitedBy: string | null; createdAt: string; delivery: string };
+export type JoinedClass = { classId: string; role: ClassRole };
+
+export type LessonSummary = {
+  id: string;
+  classId: string;
+  title: string;
+  summary: string;
+  position: number;
+  published: boolean;
+  setupCount: number;
+  assignmentCount: number;
+  updatedAt: string;
+};
+export type LessonSetup = {
+  id: string;
+  position: number;
+  /** The setup the snapshot came from; null once it is gone. */
+  setupId: string | null;
+  title: string;
+  document: SetupDocument;
+  sourceVersion: number;
+  snapshotAt: string;
+  note: string;
+  stepNotes: Record<string, string>;
+  /** Instructors: the setup's version now, when it has changed since the snapshot (refresh to take it). */
+  newerVersion: number | null;
+};
+export type LessonDetail = LessonSummary & { className: string; role: ClassRole; setups: LessonSetup[]; assignments: AssignmentSummary[] };
+
+export type SubmissionSummary = {
+  id: string;
+  assignmentId: string;
+  student: { id: string; name: string };
+  attempt: number;
+  title: string;
+  /** The check's verdict at submission; null when the assignment has no check. */
+  passed: boolean | null;
+  status: 'submitted' | 'reviewed';
+  shared: boolean;
+  submittedAt: string;
+  reviewedAt: string | null;
+  commentCount: number;
+};
+export type AssignmentSummary = {
+  id: string;
+  lessonId: string;
+  lessonTitle: string;
+  title: string;
+  brief: string;
+  check: Check | null;
+  referenceId: string | null;
+  dueAt: string | null;
+  createdAt: string;
+  /** Instructors: how many students submitted, and how many latest attempts are reviewed. */
+  submittedCount: number | null;
+  reviewedCount: number | null;
+};
+export type AssignmentWork = { setupId: string | null; startedFrom: 'reference' | 'blank'; latest: SubmissionSummary | null };
+export type AssignmentDetail = AssignmentSummary & {
+  classId: string;
+  className: string;
+  role: ClassRole;
+  reference: { id: string; title: string; document: SetupDocument } | null;
+  /** Students: their working copy and latest attempt; null before they start. */
+  mine: AssignmentWork | null;
+};
+export type SubmissionComment = {
+  id: string;
+  body: string;
+  itemId: string | null;
+  point: { x: number; y: number } | null;
+  createdAt: string;
+  author: { id: string; name: string } | null;
+};
+export type SubmissionDetail = SubmissionSummary & {
+  classId: string;
+  assignmentTitle: string;
+  brief: string;
+  check: Check | null;
+  checkResult: CheckResult | null;
+  document: SetupDocument;
+  reference: { title: string; document: SetupDocument } | null;
+  comments: SubmissionComment[];
+  /** The caller may comment (the instructor, the student who submitted) and review (instructors). */
+  canComment: boolean;
+  canReview: boolean;
+};

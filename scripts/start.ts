@@ -1,13 +1,19 @@
 // `npm start` (after scripts/ensure.mjs): serves the app and the API from one process, prints the URL and the
 // demo sign-ins. Ctrl-C stops the server and the PostgreSQL that the scripts started.
 import { existsSync } from 'node:fs';
+import { join } from 'node:path';
 import { DEMO_PASSWORD, demoUsers } from '../db/demo';
+import { fakeServices, startFakes } from '../server/fakes';
 import { startServer } from '../server/main';
-import { APP_PORT, DB_NAME, databaseUrl, findPgBin, log, pgStartedMarker, pgStop } from './lib.mjs';
+import { APP_PORT, DB_NAME, dataDir, databaseUrl, findPgBin, log, pgStartedMarker, pgStop } from './lib.mjs';
 
 async function main() {
-  const app = await startServer({ databaseUrl: databaseUrl(DB_NAME), port: APP_PORT, logLevel: process.env.LOG_LEVEL ?? 'warn' });
+  // Local stand-ins for mail and object storage, unless the environment names real ones.
+  const useFakes = !process.env.SMTP_URL && !process.env.S3_ENDPOINT;
+  const fakes = useFakes ? await startFakes({ s3Dir: join(dataDir, 's3') }) : null;
+  const app = await startServer({ databaseUrl: databaseUrl(DB_NAME), port: APP_PORT, logLevel: process.env.LOG_LEVEL ?? 'warn', ...(fakes ? fakeServices(fakes) : {}) });
   log(`Falloff is running at ${app.url}`);
+  if (fakes) log(`e-mail stays on this machine: the dev inbox is ${app.url}/dev/inbox (photos are kept in .data/s3)`);
   log(`demo sign-ins, password "${DEMO_PASSWORD}" for each:`);
   for (const [role, u] of Object.entries(demoUsers)) log(`  ${role.padEnd(11)} ${u.email.padEnd(26)} ${u.name}`);
   log('Ctrl-C stops the server and its database.');
@@ -17,6 +23,7 @@ async function main() {
     if (stopping) return;
     stopping = true;
     await app.close().catch(() => {});
+    await fakes?.close().catch(() => {});
     if (existsSync(pgStartedMarker)) {
       pgStop(findPgBin());
       log('PostgreSQL stopped.');

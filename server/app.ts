@@ -10,21 +10,31 @@ import { toNodeHandler } from 'better-auth/node';
 import type { Db } from '../db/client';
 import type { Auth } from './auth';
 import { apiNotFound, errorHandler } from './errors';
+import type { Inbox } from './fakes';
+import type { Mailer } from './mail/mailer';
 import { commentRoutes } from './routes/comments';
+import { devInboxRoutes } from './routes/devInbox';
+import { exportRoutes } from './routes/exports';
 import { healthRoutes } from './routes/health';
 import { historyRoutes } from './routes/history';
 import { invitationRoutes, publicInvitationRoutes, rememberInvitation } from './routes/invitations';
+import { mailRoutes } from './routes/mail';
 import { meRoutes } from './routes/me';
 import { meterRoutes } from './routes/meter';
+import { photoRoutes } from './routes/photos';
+import { shareRoutes, sharedRoutes } from './routes/shares';
 import { setupRoutes } from './routes/setups';
 import { studioRoutes } from './routes/studios';
 import { forgetSession, requireUser } from './session';
+import type { ObjectStore } from './storage/objects';
 
-export type AppDeps = { db: Db; auth: Auth; logger: Logger; webDir?: string };
+/** mailer and store are optional: without them the routes that need them answer 503 (the route list stays the same).
+ *  inbox: the local fake SMTP server's captured mail, served at /dev/inbox outside production. */
+export type AppDeps = { db: Db; auth: Auth; logger: Logger; webDir?: string; mailer?: Mailer; store?: ObjectStore; inbox?: Inbox };
 
 export const BODY_LIMIT = '1mb';
 
-export function createApp({ db, auth, logger, webDir }: AppDeps) {
+export function createApp({ db, auth, logger, webDir, mailer, store, inbox }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   // No ETag on API answers: clients revalidate by setup version, not by hashing ~50 KB bodies per request.
@@ -56,15 +66,21 @@ export function createApp({ db, auth, logger, webDir }: AppDeps) {
   app.use('/api', express.json({ limit: BODY_LIMIT }));
   app.use('/api', healthRoutes(db));
   app.use('/api', publicInvitationRoutes(db));
+  app.use('/api', sharedRoutes(db));
   app.use('/api', requireUser(auth));
   app.use('/api', meRoutes(db));
   app.use('/api', setupRoutes(db));
   app.use('/api', historyRoutes(db));
   app.use('/api', commentRoutes(db));
   app.use('/api', meterRoutes(db));
-  app.use('/api', studioRoutes(db));
+  app.use('/api', studioRoutes(db, mailer));
   app.use('/api', invitationRoutes(db));
+  app.use('/api', exportRoutes(db));
+  app.use('/api', shareRoutes(db));
+  app.use('/api', mailRoutes(db, mailer));
+  app.use('/api', photoRoutes(db, store));
   app.use('/api', apiNotFound);
+  if (inbox && process.env.NODE_ENV !== 'production') app.use('/dev', devInboxRoutes(inbox));
 
   if (webDir && existsSync(join(webDir, 'index.html'))) {
     // An invitation link opened signed out: remember its token through sign-up (see routes/invitations.ts).

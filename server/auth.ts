@@ -5,8 +5,10 @@ import { drizzleAdapter } from 'better-auth/adapters/drizzle';
 import type { Db } from '../db/client';
 import { schema } from '../db/client';
 import { createPersonalStudio } from '../db/studios';
+import type { Mailer } from './mail/mailer';
+import { resetPasswordMessage } from './mail/messages';
 
-export function createAuth(db: Db, opts: { baseURL: string; secret: string }) {
+export function createAuth(db: Db, opts: { baseURL: string; secret: string; mailer?: Mailer }) {
   return betterAuth({
     baseURL: opts.baseURL,
     basePath: '/api/auth',
@@ -15,7 +17,18 @@ export function createAuth(db: Db, opts: { baseURL: string; secret: string }) {
       provider: 'pg',
       schema: { user: schema.user, session: schema.session, account: schema.account, verification: schema.verification },
     }),
-    emailAndPassword: { enabled: true, minPasswordLength: 8, maxPasswordLength: 128, autoSignIn: true },
+    emailAndPassword: {
+      enabled: true,
+      minPasswordLength: 8,
+      maxPasswordLength: 128,
+      autoSignIn: true,
+      // POST /api/auth/request-password-reset e-mails the link (better-auth answers the same whether or not
+      // the address has an account, so it does not reveal who has one).
+      sendResetPassword: async ({ user, url }) => {
+        if (!opts.mailer) throw new Error('no mail service is set up, so a password reset cannot be sent');
+        await opts.mailer.send(resetPasswordMessage({ to: user.email, name: user.name, url }));
+      },
+    },
     user: {
       additionalFields: {
         units: { type: 'string', required: false, defaultValue: 'metric', input: false },

@@ -19,13 +19,15 @@ import {
 import { createStudioBody, inviteMemberBody, updateMemberBody, updateStudioBody, type InvitationCreated, type StudioRole } from '../../model/api';
 import { pathId, studioCan } from '../access';
 import { HttpError, notFound } from '../errors';
+import type { Mailer } from '../mail/mailer';
+import { invitationMessage } from '../mail/messages';
 import { userOf } from '../session';
 import { parseBody } from '../validate';
 import { invitationLink } from './invitations';
 
 type StudioNeed = 'read' | 'manage';
 
-export function studioRoutes(db: Db) {
+export function studioRoutes(db: Db, mailer?: Mailer) {
   const r = Router();
 
   /** The studio named in the path, for a caller whose role allows `need`. */
@@ -79,6 +81,13 @@ export function studioRoutes(db: Db) {
     const { invitation, token } = await createInvitation(db, { studioId: id, email: body.email, role: body.role, invitedBy: user });
     const created: InvitationCreated = { invitation, link: invitationLink(req, token) };
     req.log?.info({ studioId: id, invitationId: invitation.id, email: body.email }, 'studio invitation created (link handed to the inviter)');
+    // The link is in the answer either way; the e-mail is a convenience, so a mail failure does not fail the invitation.
+    if (mailer) {
+      const [studio] = await studioViewsOf(db, user.id, id);
+      await mailer
+        .send(invitationMessage({ to: body.email, studioName: studio?.name ?? 'a studio', role: body.role, inviterName: user.name, link: created.link, expiresAt: invitation.expiresAt }))
+        .catch((err: unknown) => req.log?.warn({ err, invitationId: invitation.id }, 'invitation e-mail not sent'));
+    }
     res.status(201).json(created);
   });
 

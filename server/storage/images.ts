@@ -1,0 +1,64 @@
+// What an uploaded photo is and what of it may be served: the type from its bytes, its camera settings from
+// EXIF, a copy to serve with no location in it, and a thumbnail.
+import exifr from 'exifr';
+import sharp from 'sharp';
+import { PHOTO_TYPES } from '../../model/api';
+import { stripHeifExif } from './heif';
+
+export type PhotoType = (typeof PHOTO_TYPES)[number];
+export const EXTENSION: Record<PhotoType, string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp', 'image/heic': 'heic', 'image/heif': 'heif' };
+const THUMB_PX = 480;
+
+/** The type the bytes say they are (never the name or the header's), if it is one we take. */
+export async function sniffPhotoType(bytes: Buffer): Promise<PhotoType | null> {
+  const { fileTypeFromBuffer } = await import('file-type');
+  const t = await fileTypeFromBuffer(bytes);
+  return t && (PHOTO_TYPES as readonly string[]).includes(t.mime) ? (t.mime as PhotoType) : null;
+}
+
+export type CameraSettings = { iso: number | null; aperture: number | null; shutterS: number | null; focalMm: number | null; camera: string | null; takenAt: Date | null };
+
+const num = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) && v > 0 ? v : null);
+
+/** ISO, aperture, shutter and focal length as the camera wrote them; nulls when the photo does not say. */
+export async function readCameraSettings(bytes: Buffer): Promise<CameraSettings> {
+  let t: Record<string, unknown> | undefined;
+  try {
+    t = await exifr.parse(bytes, { pick: ['ISO', 'ISOSpeedRatings', 'FNumber', 'ExposureTime', 'FocalLength', 'Make', 'Model', 'DateTimeOriginal'] });
+  } catch {
+    t = undefined;
+  }
+  if (!t) return { iso: null, aperture: null, shutterS: null, focalMm: null, camera: null, takenAt: null };
+  const iso = num(Array.isArray(t.ISO) ? t.ISO[0] : t.ISO) ?? num(Array.isArray(t.ISOSpeedRatings) ? t.ISOSpeedRatings[0] : t.ISOSpeedRatings);
+  const camera = [t.Make, t.Model].filter((x) => typeof x === 'string' && x.trim()).map((x) => (x as string).trim());
+  // A model name often starts with the make ("Canon" + "Canon EOS R6"): say it once.
+  const name = camera.length === 2 && camera[1]!.toLowerCase().startsWith(camera[0]!.toLowerCase()) ? camera[1]! : camera.join(' ');
+  const taken = t.DateTimeOriginal instanceof Date && !Number.isNaN(t.DateTimeOriginal.getTime()) ? t.DateTimeOriginal : null;
+  return { iso, aperture: num(t.FNumber), shutterS: num(t.ExposureTime), focalMm: num(t.FocalLength), camera: name || null, takenAt: taken };
+}
+
+export type Prepared = { served: Buffer; thumb: Buffer | null; width: number | null; height: number | null; notes: string[] };
+
+/**
+ * The copy to serve and its thumbnail. JPEG, PNG and WebP are re-encoded upright with no metadata but their
+ * colour profile (so no GPS, no serial numbers). HEIC cannot be decoded by this server's image library, so
+ * it is served as uploaded with its EXIF block blanked, and has no thumbnail.
+ */
+export async function preparePhoto(bytes: Buffer, type: PhotoType): Promise<Prepared> {
+  if (type === 'image/heic' || type === 'image/heif') {
+    const served = stripHeifExif(bytes);
+    let thumb: Buffer | null = null;
+    try {
+      thumb = await sharp(bytes).rotate().resize(THUMB_PX, THUMB_PX, { fit: 'inside' }).jpeg({ quality: 80 }).toBuffer();
+    } catch {
+      thumb = null;
+    }
+    return { served, thumb, width: null, height: null, notes: thumb ? [] : ['no thumbnail: this server cannot decode HEIC'] };
+  }
+  const img = sharp(bytes, { failOn: 'error' }).rotate().keepIccProfile();
+  const encoded =
+    type === 'image/jpeg' ? img.jpeg({ quality: 92, chromaSubsampling: '4:4:4' }) : type === 'image/png' ? img.png() : img.webp({ quality: 92 });
+  const { data: served, info } = await encoded.toBuffer({ resolveWithObject: true });
+  const thumb = await sharp(served).resize(THUMB_PX, THUMB_PX, { fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 80 }).toBuffer();
+  return { served, thumb, width: info.width, height: info.height, notes: [] };
+}
