@@ -93,3 +93,12 @@ export async function openShare(db: Db, token: string): Promise<OpenedShare | nu
     document: schemaVersion === CURRENT_SCHEMA_VERSION ? (document as SetupDocument) : parseDocument(document),
   };
 }
+
+/**
+ * A user's units and paper, read fresh: the session is cached for a few seconds (server/session.ts), and a
+ * crew sheet printed right after changing the paper size must use the new one.
+ */
+export async function printSettingsOf(db: Db, userId: string): Promise<{ units: 'metric' | 'imperial'; paper: 'a4' | 'letter' }> {
+  const [u] = await db.select({ units: user.units, paper: user.paper }).from(user).where(eq(user.id, userId));
+  return { units: u?.units === 'imperial' ? 'imperial' : 'metric', paper: u?.paper === 'letter' ? 'letter' : 'a4' };
+}

@@ -3,6 +3,7 @@
 import { Router, type Request, type Response } from 'express';
 import type { Db } from '../../db/client';
 import { getSetupDetail } from '../../db/setups';
+import { printSettingsOf } from '../../db/shares';
 import { parseDocument } from '../../model/document';
 import { checkSetup, pathId } from '../access';
 import { sendExport, type ExportKind } from '../export';
@@ -16,7 +17,8 @@ export function exportRoutes(db: Db) {
     checkSetup(d?.access ?? null, 'read');
     const { meta } = d!;
     const doc = parseDocument(JSON.parse(d!.documentJson));
-    await sendExport(req, res, kind, { doc, title: meta.title, studioName: meta.studioName, version: meta.version, updatedAt: new Date(meta.updatedAt), units: user.units, paper: user.paper }, 'private');
+    const print = await printSettingsOf(db, user.id);
+    await sendExport(req, res, kind, { doc, title: meta.title, studioName: meta.studioName, version: meta.version, updatedAt: new Date(meta.updatedAt), ...print }, 'private');
   };
   r.get('/setups/:id/crew-sheet.pdf', send('crew-sheet.pdf'));
   r.get('/setups/:id/plan.svg', send('plan.svg'));

@@ -2,7 +2,7 @@
 // Owners and editors only (it makes a share link); limited per user so the app cannot be used to spam.
 import { Router } from 'express';
 import type { Db } from '../../db/client';
-import { createShare } from '../../db/shares';
+import { createShare, printSettingsOf } from '../../db/shares';
 import { getSetupDetail } from '../../db/setups';
 import { sendToCrewBody, type SendToCrewResult } from '../../model/api';
 import { parseDocument } from '../../model/document';
@@ -33,11 +33,12 @@ export function mailRoutes(db: Db, mailer: Mailer | undefined) {
       throw new HttpError(429, 'rate_limited', `you have sent ${SENDS_PER_WINDOW} e-mails in the last ${SEND_WINDOW_MS / 60_000} minutes; try again in ${Math.ceil(wait / 60)} min`, { retryAfterS: wait });
     }
     const d = (await getSetupDetail(db, id, user.id))!;
-    const { token, row } = await createShare(db, { setupId: id, label: `E-mailed to ${body.to.join(', ')}`.slice(0, 80), createdBy: user.id, units: user.units, paper: user.paper });
+    const { units, paper } = await printSettingsOf(db, user.id);
+    const { token, row } = await createShare(db, { setupId: id, label: `E-mailed to ${body.to.join(', ')}`.slice(0, 80), createdBy: user.id, units, paper });
     const url = shareUrl(req, token);
     const meta = d.meta;
     const pdf = body.attachPdf
-      ? await crewSheetPdf({ doc: parseDocument(JSON.parse(d.documentJson)), title: meta.title, units: user.units, paper: user.paper, subtitle: subtitle({ ...meta, updatedAt: new Date(meta.updatedAt), paper: user.paper }), link: url })
+      ? await crewSheetPdf({ doc: parseDocument(JSON.parse(d.documentJson)), title: meta.title, units, paper, subtitle: subtitle({ ...meta, updatedAt: new Date(meta.updatedAt), paper }), link: url })
       : undefined;
     try {
       await mailer.send(crewSheetMessage({ to: body.to, senderName: user.name, senderEmail: user.email, title: meta.title, url, note: body.message, pdf, pdfName: `crew-sheet-${slug(meta.title)}.pdf` }));

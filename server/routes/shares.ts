@@ -3,7 +3,7 @@
 // with no account; an unknown, revoked or deleted one is a 404, from the next request on.
 import { Router, type Request, type Response } from 'express';
 import type { Db } from '../../db/client';
-import { SHARE_TOKEN, createShare, listShares, openShare, revokeShare, type ShareRow } from '../../db/shares';
+import { SHARE_TOKEN, createShare, listShares, openShare, printSettingsOf, revokeShare, type ShareRow } from '../../db/shares';
 import { createShareBody, type ShareCreated, type ShareLink, type SharedSetup } from '../../model/api';
 import { pathId, requireSetup } from '../access';
 import { notFound } from '../errors';
@@ -30,7 +30,7 @@ export function shareRoutes(db: Db) {
   r.post('/setups/:id/shares', async (req, res) => {
     const { user, id } = await requireSetup(db, req, 'write');
     const body = parseBody(createShareBody, req);
-    const { token, row } = await createShare(db, { setupId: id, label: body.label ?? '', createdBy: user.id, units: user.units, paper: user.paper });
+    const { token, row } = await createShare(db, { setupId: id, label: body.label ?? '', createdBy: user.id, ...(await printSettingsOf(db, user.id)) });
     const url = shareUrl(req, token);
     const created: ShareCreated = { token, url, share: linkView({ ...row, createdBy: user.name }) };
     res.status(201).json(created);
