@@ -6,8 +6,11 @@
 //   so its existence does not leak.
 import type { Request } from 'express';
 import type { Db } from '../db/client';
+import { assignmentAccess, submissionAccess, type AssignmentAccess, type SubmissionAccess } from '../db/assignments';
+import { classRoleOf } from '../db/classes';
+import { lessonAccess, type LessonAccess } from '../db/lessons';
 import { getSetupAccess, type SetupAccess } from '../db/setups';
-import type { StudioRole } from '../model/api';
+import type { ClassRole, StudioRole } from '../model/api';
 import { HttpError, notFound } from './errors';
 import { userOf } from './session';
 
@@ -54,4 +57,67 @@ export async function requireSetup(db: Db, req: Request, need: SetupNeed, opts: 
   const user = userOf(req);
   const id = pathId(req.params.id, 'setup');
   return { user, id, access: checkSetup(await getSetupAccess(db, id, user.id), need, opts) };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Classes
+//   instructor  everything of the class: roster, invitations, lessons (drafts too), assignments, review
+//   student     published lessons and their assignments; starts, submits and reads their own work and the
+//               review of it; sees a classmate's submission only when an instructor shared it with the class
+//   anyone else: 404 for everything of the class, so its existence does not leak.
+
+export const classCan = {
+  read: (r: ClassRole | null) => r !== null,
+  teach: (r: ClassRole | null) => r === 'instructor',
+  submit: (r: ClassRole | null) => r === 'student',
+};
+
+const teachOnly = (r: ClassRole | null, what: string) => {
+  if (!classCan.teach(r)) throw new HttpError(403, 'forbidden', `only the class's instructors can ${what}`);
+};
+
+/** The class named by `req.params.id`, for a member; `teach` also needs an instructor. */
+export async function requireClass(db: Db, req: Request, need: 'read' | 'teach', what = 'do that') {
+  const user = userOf(req);
+  const id = pathId(req.params.id, 'class');
+  const role = await classRoleOf(db, user.id, id);
+  if (!classCan.read(role)) throw notFound('no such class');
+  if (need === 'teach') teachOnly(role, what);
+  return { user, id, role: role! };
+}
+
+/** A lesson: members read it once published (instructors always); `teach` changes it. */
+export async function requireLesson(db: Db, req: Request, need: 'read' | 'teach', what = 'change this lesson') {
+  const user = userOf(req);
+  const id = pathId(req.params.id, 'lesson');
+  const a = await lessonAccess(db, id, user.id);
+  if (!a || !classCan.read(a.role) || (!a.published && !classCan.teach(a.role))) throw notFound('no such lesson');
+  if (need === 'teach') teachOnly(a.role, what);
+  return { user, id, access: a as LessonAccess & { role: ClassRole } };
+}
+
+/** An assignment: readable as its lesson is; `teach` changes it, `submit` is a student's work on it. */
+export async function requireAssignment(db: Db, req: Request, need: 'read' | 'teach' | 'submit') {
+  const user = userOf(req);
+  const id = pathId(req.params.id, 'assignment');
+  const a = await assignmentAccess(db, id, user.id);
+  if (!a || !classCan.read(a.role) || (!a.published && !classCan.teach(a.role))) throw notFound('no such assignment');
+  if (need === 'teach') teachOnly(a.role, 'change assignments');
+  if (need === 'submit' && !classCan.submit(a.role)) throw new HttpError(403, 'forbidden', 'only students of the class work on its assignments');
+  return { user, id, access: a as AssignmentAccess & { role: ClassRole } };
+}
+
+/**
+ * A submission: its student and the class's instructors see it, the rest of the class only once shared.
+ * `comment`: the instructors and the student who submitted it; `review`: instructors.
+ */
+export async function requireSubmission(db: Db, req: Request, need: 'read' | 'comment' | 'review') {
+  const user = userOf(req);
+  const id = pathId(req.params.id, 'submission');
+  const a = await submissionAccess(db, id, user.id);
+  const own = a?.studentId === user.id;
+  if (!a || !classCan.read(a.role) || !(classCan.teach(a.role) || own || a.shared)) throw notFound('no such submission');
+  if (need === 'review') teachOnly(a.role, 'review submissions');
+  if (need === 'comment' && !(classCan.teach(a.role) || own)) throw new HttpError(403, 'forbidden', 'only the instructors and the student who submitted it can comment');
+  return { user, id, own, access: a as SubmissionAccess & { role: ClassRole } };
 }
