@@ -9,6 +9,8 @@ import { createApp } from '../../server/app';
 import { createAuth } from '../../server/auth';
 import { TEST_DATABASE_URL } from '../support/env';
 import { Client, freshEmail, type Res } from '../support/http';
+import sharp from 'sharp';
+import { raw } from './exports.helpers';
 import { fresh, joinAs, newSetup, studioWithTeam, tokenOf, type Signed } from './fixtures';
 
 const base = inject('baseUrl');
@@ -49,6 +51,25 @@ async function invite(email = freshEmail('invitee')): Promise<Vars> {
 async function member(): Promise<Vars> {
   const m = await joinAs(base, owner.client, String(shared.studio), 'crew', 'Matrix Member');
   return { user: m.userId };
+}
+
+async function share(): Promise<Vars> {
+  const r = await owner.client.post(`/api/setups/${shared.setup}/shares`, {});
+  expect(r.status).toBe(201);
+  return { share: r.body.share.id, shareToken: r.body.token };
+}
+/** POST a small JPEG as multipart (the client speaks JSON only), answered in the client's shape. */
+async function uploadPhoto(c: Client, setup: string | number): Promise<Res> {
+  const jpg = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#777' } }).jpeg().toBuffer();
+  const form = new FormData();
+  form.append('photo', new Blob([new Uint8Array(jpg)], { type: 'image/jpeg' }), 'matrix.jpg');
+  const r = await raw(base, c, `/api/setups/${setup}/photos`, { method: 'POST', body: form });
+  return { status: r.status, body: r.json, headers: new Headers({ 'content-type': r.type }) };
+}
+async function photo(): Promise<Vars> {
+  const r = await uploadPhoto(owner.client, shared.setup!);
+  expect(r.status).toBe(201);
+  return { photo: r.body.id };
 }
 
 const cases: Case[] = [
@@ -162,6 +183,42 @@ const cases: Case[] = [
   { route: 'GET /api/invitations', call: (c) => c.get('/api/invitations'), expect: anyUser(200) },
   { route: 'DELETE /api/invitations', call: (c) => c.del('/api/invitations'), expect: anyUser(204) },
   { route: 'POST /api/invitations/:token/accept', variant: 'for someone else', prepare: () => invite(), call: (c, v) => c.post(`/api/invitations/${v.token}/accept`), expect: anyUser(403) },
+  // Crew sheets and plan images: whoever may read the setup.
+  { route: 'GET /api/setups/:id/crew-sheet.pdf', call: (c) => c.get(`/api/setups/${shared.setup}/crew-sheet.pdf`), expect: readable },
+  { route: 'GET /api/setups/:id/crew-sheet.pdf', variant: 'a template', call: (c) => c.get(`/api/setups/${shared.template}/crew-sheet.pdf`), expect: anyUser(200) },
+  { route: 'GET /api/setups/:id/plan.svg', call: (c) => c.get(`/api/setups/${shared.setup}/plan.svg`), expect: readable },
+  { route: 'GET /api/setups/:id/plan.png', call: (c) => c.get(`/api/setups/${shared.setup}/plan.png?width=300`), expect: readable },
+
+  // Share links: owners and editors make and revoke them, members list them; the token opens the setup for anyone.
+  { route: 'POST /api/setups/:id/shares', call: (c) => c.post(`/api/setups/${shared.setup}/shares`, {}), expect: writable(201) },
+  { route: 'GET /api/setups/:id/shares', call: (c) => c.get(`/api/setups/${shared.setup}/shares`), expect: readable },
+  {
+    route: 'GET /api/setups/:id/shares',
+    variant: 'a template (links stay in the studio)',
+    call: (c) => c.get(`/api/setups/${shared.template}/shares`),
+    expect: { ...readable, stranger: 403 },
+  },
+  { route: 'DELETE /api/setups/:id/shares/:shareId', prepare: share, call: (c, v) => c.del(`/api/setups/${shared.setup}/shares/${v.share}`), expect: writable(204) },
+  { route: 'GET /api/shared/:token', call: (c) => c.get(`/api/shared/${shared.shareToken}`), expect: { ...anyUser(200), signedOut: 200 } },
+  { route: 'GET /api/shared/:token/crew-sheet.pdf', call: (c) => c.get(`/api/shared/${shared.shareToken}/crew-sheet.pdf`), expect: { ...anyUser(200), signedOut: 200 } },
+  { route: 'GET /api/shared/:token/plan.svg', call: (c) => c.get(`/api/shared/${shared.shareToken}/plan.svg`), expect: { ...anyUser(200), signedOut: 200 } },
+  { route: 'GET /api/shared/:token/plan.png', call: (c) => c.get(`/api/shared/${shared.shareToken}/plan.png?width=300`), expect: { ...anyUser(200), signedOut: 200 } },
+
+  // Sending to the crew makes a share link, so it is for owners and editors.
+  { route: 'POST /api/setups/:id/send', call: (c) => c.post(`/api/setups/${shared.setup}/send`, { to: [freshEmail('matrix-crew')], attachPdf: false }), expect: writable(201) },
+
+  // Photos: any member attaches (crew photograph the rigged set); owners, editors and the uploader delete.
+  { route: 'POST /api/setups/:id/photos', call: (c) => uploadPhoto(c, shared.setup!), expect: { ...readable, owner: 201, editor: 201, crew: 201 } },
+  { route: 'GET /api/setups/:id/photos', call: (c) => c.get(`/api/setups/${shared.setup}/photos`), expect: readable },
+  { route: 'GET /api/setups/:id/photos/:photoId', call: (c) => c.get(`/api/setups/${shared.setup}/photos/${shared.photo}`), expect: readable },
+  { route: 'GET /api/setups/:id/photos/:photoId/thumbnail', call: (c) => c.get(`/api/setups/${shared.setup}/photos/${shared.photo}/thumbnail`), expect: readable },
+  {
+    route: 'DELETE /api/setups/:id/photos/:photoId',
+    variant: "the owner's photo",
+    prepare: photo,
+    call: (c, v) => c.del(`/api/setups/${shared.setup}/photos/${v.photo}`),
+    expect: writable(204),
+  },
 ];
 
 /** Routes handled by other code, with the reason they are not in the table. */
@@ -184,6 +241,7 @@ beforeAll(async () => {
   shared.template = (await freshSetup({ isTemplate: true })).setup!;
   await freshSetup();
   shared.token = (await invite()).token!;
+  Object.assign(shared, await share(), await photo());
 });
 
 describe.each(cases)('$route $variant', (c) => {
