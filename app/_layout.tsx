@@ -6,7 +6,7 @@ import { IBMPlexSans_500Medium } from '@expo-google-fonts/ibm-plex-sans/500Mediu
 import { IBMPlexSans_600SemiBold } from '@expo-google-fonts/ibm-plex-sans/600SemiBold';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { useFonts } from 'expo-font';
-import { Stack } from 'expo-router';
+import { Slot } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
 import { useState } from 'react';
 import { View } from 'react-native';
@@ -42,7 +42,8 @@ export default function RootLayout() {
       <SafeAreaProvider>
         <QueryClientProvider client={client}>
           <StatusBar style="light" />
-          <Stack screenOptions={{ headerShown: false, contentStyle: { backgroundColor: colours.graphite } }} />
+          {/* One group at a time (signed in or signed out): a Stack would keep the other mounted behind. */}
+          <Slot />
         </QueryClientProvider>
       </SafeAreaProvider>
     </GestureHandlerRootView>

@@ -1,11 +1,13 @@
-// Signed-out screens; a signed-in visitor goes straight to their setups.
+// Signed-out screens; a signed-in visitor goes straight on (to ?next= or their setups).
 import { Redirect, Slot } from 'expo-router';
 import { Loading } from '../../components/Loading';
 import { useSession } from '../../hooks/auth';
+import { useReturnPath } from '../../hooks/returnPath';
 
 export default function AuthLayout() {
   const { data, isPending } = useSession();
+  const next = useReturnPath();
   if (isPending) return <Loading />;
-  if (data) return <Redirect href="/setups" />;
+  if (data) return <Redirect href={next as '/setups'} />;
   return <Slot />;
 }

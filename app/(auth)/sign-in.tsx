@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Link, useRouter } from 'expo-router';
+import { Link } from 'expo-router';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
@@ -7,19 +7,20 @@ import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
+import { useReturnPath } from '../../hooks/returnPath';
 import { signInBody } from '../../model/api';
 
 type Values = z.infer<typeof signInBody>;
 
 export default function SignIn() {
-  const router = useRouter();
+  const next = useReturnPath();
   const [failure, setFailure] = useState<string | null>(null);
   const { control, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(signInBody), defaultValues: { email: '', password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
     const { error } = await authClient.signIn.email({ email: v.email, password: v.password });
     if (error) return setFailure(error.status === 401 ? 'That e-mail and password do not match an account.' : (error.message ?? 'Sign-in failed.'));
-    router.replace('/setups');
+    // The signed-out layout sends the visitor on (to ?next=) as soon as the session arrives.
   });
   return (
     <AuthFrame title="Sign in">
@@ -29,7 +30,7 @@ export default function SignIn() {
       <Button label="Sign in" onPress={submit} busy={formState.isSubmitting} testID="submit" />
       <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
         New here?{' '}
-        <Link href="/sign-up" style={{ color: '#f0b24a' }}>
+        <Link href={next === '/setups' ? '/sign-up' : { pathname: '/sign-up', params: { next } }} style={{ color: '#f0b24a' }}>
           Create an account
         </Link>
       </Body>

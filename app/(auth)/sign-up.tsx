@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Link, useRouter } from 'expo-router';
+import { Link } from 'expo-router';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
@@ -7,19 +7,20 @@ import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
+import { useReturnPath } from '../../hooks/returnPath';
 import { signUpBody } from '../../model/api';
 
 type Values = z.infer<typeof signUpBody>;
 
 export default function SignUp() {
-  const router = useRouter();
+  const next = useReturnPath();
   const [failure, setFailure] = useState<string | null>(null);
   const { control, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(signUpBody), defaultValues: { name: '', email: '', password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
     const { error } = await authClient.signUp.email({ name: v.name, email: v.email, password: v.password });
     if (error) return setFailure(error.message ?? 'Could not create the account.');
-    router.replace('/setups');
+    // The signed-out layout sends the visitor on (to ?next=) as soon as the session arrives.
   });
   return (
     <AuthFrame title="Create your account">
@@ -30,7 +31,7 @@ export default function SignUp() {
       <Button label="Create account" onPress={submit} busy={formState.isSubmitting} testID="submit" />
       <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
         Already have one?{' '}
-        <Link href="/sign-in" style={{ color: '#f0b24a' }}>
+        <Link href={next === '/setups' ? '/sign-in' : { pathname: '/sign-in', params: { next } }} style={{ color: '#f0b24a' }}>
           Sign in
         </Link>
       </Body>

@@ -144,7 +144,7 @@ describe('the library', () => {
 });
 
 describe('studio members', () => {
-  it('an owner invites by e-mail; the invitee opens the link signed out, signs up, and joins from the library', async () => {
+  it('an owner invites by e-mail; the invitee opens the link signed out, signs up, comes back to it and joins', async () => {
     const owner = await signIn('wide', 'owner');
     await owner.page.getByRole('link', { name: 'Account' }).click();
     await owner.page.getByRole('link', { name: 'Harbour Light Studio members' }).click();
@@ -162,16 +162,20 @@ describe('studio members', () => {
     const page = await context.newPage();
     const errors = watchErrors(page);
     await page.goto(link);
-    await expect.poll(() => page.url(), { timeout: 15_000 }).toMatch(/\/sign-in$/);
+    // Signed out, the link asks to sign in and remembers where it was going.
+    await expect.poll(() => new URL(page.url()).pathname, { timeout: 15_000 }).toBe('/sign-in');
+    expect(new URL(page.url()).searchParams.get('next')).toBe(new URL(link).pathname);
     await page.getByRole('link', { name: 'Create an account' }).click();
     await page.getByLabel('Name').fill('Oriel Fenwick');
     await page.getByLabel('E-mail').fill(email);
     await page.getByLabel('Password (8 characters or more)').fill('assistant-pass-1');
     await page.getByRole('button', { name: 'Create account' }).click();
-    await expect.poll(() => page.getByTestId('invitation-banner').isVisible(), { timeout: 15_000 }).toBe(true);
-    expect(await page.getByTestId('invitation-banner').textContent()).toContain('Ines Marlowe invited you to join Harbour Light Studio as an editor.');
+    // Back on the invitation, now signed in.
+    await expect.poll(() => page.url(), { timeout: 15_000 }).toBe(link);
     await shot(page, 'library-phone-invited');
-    await page.getByRole('button', { name: 'Join the studio' }).click();
+    await page.getByTestId('join-studio').click();
+    await expect.poll(() => page.url(), { timeout: 15_000 }).toMatch(/\/studios\/[0-9a-f-]{36}$/);
+    await page.goto(new URL('/setups', link).toString());
     await expect.poll(() => visible(page, 'Clamshell headshot on grey'), { timeout: 15_000 }).toBe(true);
     expect(await page.getByTestId('invitation-banner').count()).toBe(0);
     // An editor may delete the studio's setups.
