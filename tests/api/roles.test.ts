@@ -11,6 +11,7 @@ import { TEST_DATABASE_URL } from '../support/env';
 import { Client, freshEmail, type Res } from '../support/http';
 import sharp from 'sharp';
 import { raw } from './exports.helpers';
+import { classCases, classClients, classShared, classWho, setupClassMatrix } from './classes.matrix';
 import { fresh, joinAs, newSetup, studioWithTeam, tokenOf, type Signed } from './fixtures';
 
 const base = inject('baseUrl');
@@ -183,6 +184,7 @@ const cases: Case[] = [
   { route: 'GET /api/invitations', call: (c) => c.get('/api/invitations'), expect: anyUser(200) },
   { route: 'DELETE /api/invitations', call: (c) => c.del('/api/invitations'), expect: anyUser(204) },
   { route: 'POST /api/invitations/:token/accept', variant: 'for someone else', prepare: () => invite(), call: (c, v) => c.post(`/api/invitations/${v.token}/accept`), expect: anyUser(403) },
+
   // Crew sheets and plan images: whoever may read the setup.
   { route: 'GET /api/setups/:id/crew-sheet.pdf', call: (c) => c.get(`/api/setups/${shared.setup}/crew-sheet.pdf`), expect: readable },
   { route: 'GET /api/setups/:id/crew-sheet.pdf', variant: 'a template', call: (c) => c.get(`/api/setups/${shared.template}/crew-sheet.pdf`), expect: anyUser(200) },
@@ -256,6 +258,22 @@ describe.each(cases)('$route $variant', (c) => {
   });
 });
 
+// Classes: instructor, the student whose work it is, a classmate, a student of another class, signed out.
+describe('classes', () => {
+  beforeAll(() => setupClassMatrix(base));
+  describe.each(classCases)('$route $variant', (c) => {
+    it.each(classWho.map((w) => [w, c.expect[w]] as const))('as %s → %i', async (w, status) => {
+      const vars = c.prepare ? { ...classShared, ...(await c.prepare(w)) } : classShared;
+      const r = await c.call(classClients[w], vars);
+      expect(r.status, JSON.stringify(r.body)).toBe(status);
+      if (status >= 400) {
+        expect(r.headers.get('content-type')).toMatch(/application\/json/);
+        expect(typeof r.body.error.code).toBe('string');
+      }
+    });
+  });
+});
+
 describe('the table covers every route', () => {
   const { db, pool } = createDb(TEST_DATABASE_URL);
   afterAll(() => pool.end());
@@ -275,7 +293,7 @@ describe('the table covers every route', () => {
         }
       }
     }
-    const inTable = new Set(cases.map((c) => c.route));
+    const inTable = new Set([...cases, ...classCases].map((c) => c.route));
     const missing = [...served].filter((r) => !inTable.has(r) && !(r in outside));
     expect(missing, 'routes with no row in the role matrix').toEqual([]);
     const stale = [...inTable].filter((r) => !served.has(r));
