@@ -84,7 +84,9 @@ function ensureChromium() {
 
 // 4. The web app: `expo export` only when something it is built from changed.
 function ensureWebBuild() {
-  const want = hashTree(['app', 'canvas', 'calc', 'model', 'assets', 'package-lock.json', 'app.json', 'babel.config.js', 'metro.config.js']);
+  // Everything the bundle is built from (the client imports app/, components/, hooks/, constants/, canvas/,
+  // model/ and calc/).
+  const want = hashTree(['app', 'components', 'hooks', 'constants', 'canvas', 'calc', 'model', 'assets', 'package-lock.json', 'app.json', 'babel.config.js', 'metro.config.js']);
   const stamp = join(root, 'dist', '.falloff-build.sha256');
   if (readText(stamp) === want && existsSync(join(root, 'dist', 'index.html'))) return;
   log('building the web app (expo export -p web)…');

@@ -1,5 +1,5 @@
 // The item inspector: the selected item's properties with units, changed through editor actions.
-import { memo, useCallback } from 'react';
+import { memo, useCallback, useDeferredValue } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { actions } from '../../canvas/state/actions';
 import { useEditor, useEditorStore } from '../../canvas/state/store';
@@ -27,7 +27,10 @@ function useUpdate(id: string) {
 
 export const Inspector = memo(function Inspector({ units }: { units: Units }) {
   const selection = useEditor((s) => s.selection);
-  const item = useEditor((s) => (s.selection.length === 1 ? s.doc.items.find((i) => i.id === s.selection[0]) : undefined));
+  const current = useEditor((s) => (s.selection.length === 1 ? s.doc.items.find((i) => i.id === s.selection[0]) : undefined));
+  // The form is a large render; it follows the plan at low priority so a press or a drag frame never waits
+  // for it (React renders the deferred value in the background and can interrupt it).
+  const item = useDeferredValue(current);
   const readOnly = useEditor((s) => s.readOnly);
   if (!item) {
     return (
