@@ -197,7 +197,8 @@ export function crewSheet(doc: SetupDocument, o: { title: string; units: Units; 
       settings: `${formatAperture(s.aperture)} · ${formatShutter(s.shutterS)} · ISO ${s.iso}`,
       note: s.note,
     })),
-    safety: [...planCautions(doc).map((c) => c.message), ...STANDING_CAUTIONS, DEFER_LINE],
+    // The standing list's own deferral is replaced by the fuller line that names the venue's rules.
+    safety: [...planCautions(doc).map((c) => c.message), ...STANDING_CAUTIONS.filter((c) => !/\bcodes\b/i.test(c)), DEFER_LINE],
     stage: `Stage ${size(doc.stage.widthM, doc.stage.depthM, o.units)}`,
   };
 }

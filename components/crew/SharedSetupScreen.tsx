@@ -103,13 +103,13 @@ function FirstNumbers({ sheet }: { sheet: CrewSheet }) {
   const subject = sheet.readings[0]!;
   return (
     <View style={s.first}>
-      <View style={{ flex: 1 }}>
+      <View style={s.firstRow}>
         <Text style={s.firstLabel}>CAMERA</Text>
         <Text style={s.firstValue} testID="shared-camera">
           {cam.value}
         </Text>
       </View>
-      <View>
+      <View style={s.firstRow}>
         <Text style={s.firstLabel}>SUBJECT READS</Text>
         <Text style={s.firstValue}>{subject.value}</Text>
       </View>
@@ -182,9 +182,10 @@ const s = StyleSheet.create({
   brand: { color: colours.accent, fontFamily: fonts.monoMedium, fontSize: 11, letterSpacing: 2, marginTop: space.md },
   title: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 24, lineHeight: 30 },
   meta: { color: colours.textDim, fontFamily: fonts.sans, fontSize: 13, marginTop: -space.sm },
-  first: { flexDirection: 'row', gap: space.md, padding: space.md, borderRadius: radius.md, backgroundColor: colours.panel, borderWidth: 1, borderColor: colours.line },
+  first: { gap: space.sm, padding: space.md, borderRadius: radius.md, backgroundColor: colours.panel, borderWidth: 1, borderColor: colours.line },
+  firstRow: { flexDirection: 'row', justifyContent: 'space-between', alignItems: 'baseline', gap: space.sm },
   firstLabel: { color: colours.textDim, fontFamily: fonts.sansMedium, fontSize: 10, letterSpacing: 1.5 },
-  firstValue: { color: colours.text, fontFamily: fonts.monoMedium, fontSize: 17, marginTop: 2 },
+  firstValue: { color: colours.text, fontFamily: fonts.monoMedium, fontSize: 17, flexShrink: 1, textAlign: 'right' },
   plan: { width: '100%', maxWidth: 760, alignSelf: 'center', marginTop: space.md, borderTopWidth: 1, borderBottomWidth: 1, borderColor: colours.line },
   hint: { color: colours.textFaint, fontFamily: fonts.sans, fontSize: 12 },
   section: { gap: space.sm, paddingTop: space.md, borderTopWidth: 1, borderTopColor: colours.line },
@@ -197,7 +198,7 @@ const s = StyleSheet.create({
   small: { color: colours.textDim, fontFamily: fonts.mono, fontSize: 12, lineHeight: 17 },
   reading: { flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingVertical: 3 },
   readingLabel: { color: colours.text, fontFamily: fonts.sansMedium, fontSize: 14 },
-  readingValue: { color: colours.text, fontFamily: fonts.monoMedium, fontSize: 16 },
+  readingValue: { color: colours.text, fontFamily: fonts.monoMedium, fontSize: 14, flexShrink: 1, textAlign: 'right' },
   warn: { color: colours.danger, fontFamily: fonts.sans, fontSize: 14 },
   caution: { color: '#f2c46d', fontFamily: fonts.sans, fontSize: 14, lineHeight: 20 },
 });

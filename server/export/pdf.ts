@@ -25,6 +25,7 @@ export type SheetInput = {
 const PAPER = { a4: [595.28, 841.89], letter: [612, 792] } as const;
 const MARGIN = 34;
 const GUTTER = 18;
+const PLAN_CAPTION_H = 12;
 const PT_PER_MM = 72 / 25.4;
 /** Architectural scales a plan is printed at (1:n). */
 const SCALES = [10, 20, 25, 50, 75, 100, 125, 150, 200, 250, 300, 400, 500, 750, 1000, 2000];
@@ -204,8 +205,7 @@ function drawPlan(doc: Doc, input: SheetInput, x: number, y: number, w: number, 
   const { stage } = input.doc;
   const vbW = stage.widthM + 1;
   const vbH = stage.depthM + 1;
-  const captionH = 12;
-  const { ratio, ptPerM } = planScale(vbW, vbH, w, maxH - captionH);
+  const { ratio, ptPerM } = planScale(vbW, vbH, w, maxH - PLAN_CAPTION_H);
   const pw = vbW * ptPerM;
   const ph = vbH * ptPerM;
   const drawing = planSvg(input.doc, { units: input.units, widthPx: pw, fontNames: 'app' });
@@ -219,7 +219,7 @@ function drawPlan(doc: Doc, input: SheetInput, x: number, y: number, w: number, 
   const cy = y + ph + 3;
   const caption = `Scale 1:${ratio} when printed at 100 % · ${input.units === 'metric' ? 'grid 0.5 m, heavy lines every 1 m' : 'grid 0.5 m (about 1′ 8″), heavy lines every 1 m'} · contours one stop apart, the heavy one at the subject’s level`;
   doc.font(F.sans).fontSize(7).fillColor(dim).text(caption, x, cy, { width: w, align: 'center', lineBreak: false });
-  return cy + captionH;
+  return cy + PLAN_CAPTION_H;
 }
 
 function footer(doc: Doc, input: SheetInput, x: number, w: number, pageH: number, page: number) {
@@ -256,17 +256,23 @@ export async function crewSheetPdf(input: SheetInput): Promise<Buffer> {
   const bottom = pageH - MARGIN - 8;
 
   const top = header(doc, input, sheet, x, w);
-  // Try the full size first; give the plan and the type less room until everything fits on the page.
+  // The plan takes what the text leaves: try full-size type with the largest plan first, then a smaller
+  // plan, then slightly smaller type, until everything fits on the page.
+  const avail = bottom - top;
+  const planUse = (maxH: number) => (input.doc.stage.depthM + 1) * planScale(input.doc.stage.widthM + 1, input.doc.stage.depthM + 1, w, maxH - PLAN_CAPTION_H).ptPerM + PLAN_CAPTION_H + 3;
   let chosen: { placed: NonNullable<ReturnType<typeof flow>>; planH: number } | null = null;
-  for (const k of [1, 0.93, 0.86, 0.8, 0.74]) {
-    const planH = Math.min((pageH - 2 * MARGIN) * 0.42 * (0.6 + 0.4 * k), bottom - top - 120);
-    const placed = flow(blocksOf(doc, sheet, k), colW, bottom - top - planH - 10, 2);
-    if (placed) {
-      chosen = { placed, planH };
-      break;
+  search: for (const k of [1, 0.93, 0.86, 0.8, 0.74]) {
+    const blocks = blocksOf(doc, sheet, k);
+    for (const share of [0.56, 0.5, 0.45, 0.4, 0.35, 0.3, 0.25]) {
+      const planH = avail * share;
+      const placed = flow(blocks, colW, avail - planUse(planH) - 8, 2);
+      if (placed) {
+        chosen = { placed, planH };
+        break search;
+      }
     }
   }
-  const planH = chosen?.planH ?? (pageH - 2 * MARGIN) * 0.3;
+  const planH = chosen?.planH ?? avail * 0.3;
   const colTop = drawPlan(doc, input, x, top, w, planH) + 8;
   let page = 1;
   if (chosen) {
