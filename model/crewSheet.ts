@@ -167,6 +167,12 @@ function readingsOf(doc: SetupDocument, readings: Readings): { rows: Reading[]; 
   for (const l of m.lights) {
     if (!l.enabled) continue;
     const set = l.forTarget.fraction !== null && doc.targetAperture !== null ? `; for ${formatAperture(m.targetAperture)} set ${formatPower(l.forTarget.fraction)}` : '';
+    // Far under the exposure, an f-number (f/0.2) means nothing to the crew: say there is no useful light.
+    const faint = l.stopsVsCamera !== null && l.stopsVsCamera < -8;
+    if (faint) {
+      rows.push({ label: names.get(l.id) ?? l.id, value: '—', detail: `alone, ${formatStops(l.stopsVsCamera)} stops: no useful light at the face${set}` });
+      continue;
+    }
     const alone = l.aperture === null ? (l.incidenceDeg >= 90 ? 'from behind: no reading at the face' : 'does not reach the subject') : `alone, ${formatStops(l.stopsVsCamera)} stops${set}`;
     rows.push({ label: names.get(l.id) ?? l.id, value: formatAperture(l.aperture), detail: alone });
   }

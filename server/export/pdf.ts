@@ -133,8 +133,8 @@ function blocksOf(doc: Doc, sheet: CrewSheet, k: number): Block[] {
     out.push(heading('Stands, shapers and set'));
     for (const g of sheet.gear) out.push(group(text(F.sans, size.body, ink, `${g.what}: ${g.detail}`, { lineGap: 0.5 }), gap(1.5)));
   }
-  out.push(heading('Camera'));
-  sheet.camera.forEach((r) => out.push(reading(r)));
+  // The camera's few lines stay together with their heading.
+  out.push(group(heading('Camera'), ...sheet.camera.map(reading)));
   out.push(heading('Meter at the subject'));
   sheet.readings.forEach((r) => out.push(reading(r)));
   for (const w of sheet.warnings) out.push(caution(w, alert));
@@ -272,19 +272,22 @@ export async function crewSheetPdf(input: SheetInput): Promise<Buffer> {
       }
     }
   }
-  const planH = chosen?.planH ?? avail * 0.3;
+  // Too much for one page: a plan still big enough to rig from, and the text runs on to a second page.
+  const planH = chosen?.planH ?? avail * 0.45;
   const colTop = drawPlan(doc, input, x, top, w, planH) + 8;
   let page = 1;
   if (chosen) {
     for (const p of chosen.placed) p.b.draw(x + p.col * (colW + GUTTER), colTop + p.y, colW);
   } else {
     // Too much for one page: two columns under the plan, then further pages.
-    const blocks = blocksOf(doc, sheet, 0.74);
+    const blocks = blocksOf(doc, sheet, 0.86);
     let col = 0;
     let y = colTop;
-    for (const b of blocks) {
+    for (let i = 0; i < blocks.length; i++) {
+      const b = blocks[i]!;
       const h = b.height(colW);
-      if (y + h > bottom && y > MARGIN) {
+      const need = b.keepWithNext && blocks[i + 1] ? h + blocks[i + 1]!.height(colW) : h;
+      if (y + need > bottom && y > MARGIN) {
         col++;
         y = page === 1 ? colTop : MARGIN;
         if (col > 1) {
