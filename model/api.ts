@@ -294,13 +294,19 @@ export const sendToCrewBody = z
   })
   .strict();
 export type SendToCrewBody = z.input<typeof sendToCrewBody>;
-/** The form: addresses typed as one line, separated by commas, spaces or new lines. */
+/** The form: addresses typed as one line, separated by commas, spaces or new lines; one message names the bad ones. */
 export const sendToCrewForm = z.object({
   to: z
     .string()
     .max(3000)
     .transform((s) => s.split(/[\s,;]+/).filter(Boolean))
-    .pipe(z.array(emailAddress).min(1, 'add at least one address').max(MAX_RECIPIENTS, `at most ${MAX_RECIPIENTS} addresses`)),
+    .superRefine((list, ctx) => {
+      const bad = list.filter((a) => !emailAddress.safeParse(a).success);
+      if (bad.length) ctx.addIssue({ code: 'custom', message: `not an e-mail address: ${bad.join(', ')}` });
+      else if (!list.length) ctx.addIssue({ code: 'custom', message: 'add at least one address' });
+      else if (new Set(list.map((a) => a.toLowerCase())).size > MAX_RECIPIENTS) ctx.addIssue({ code: 'custom', message: `at most ${MAX_RECIPIENTS} addresses` });
+    })
+    .transform((list) => [...new Set(list.map((a) => a.trim().toLowerCase()))]),
   message: z.string().max(2000, 'at most 2000 characters'),
 });
 export type SendToCrewResult = { sent: string[]; url: string; shareId: string; attached: boolean };

@@ -1,7 +1,7 @@
 // "Send to crew": addresses and a note; the server e-mails a new read-only link and the crew sheet PDF.
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, type Control } from 'react-hook-form';
 import { StyleSheet, Switch, Text, View } from 'react-native';
 import { colours, fonts, space } from '../../constants/theme';
 import { ApiRequestError } from '../../hooks/api';
@@ -16,10 +16,12 @@ export function SendToCrew({ setupId }: { setupId: string }) {
   const send = useSendToCrew(setupId);
   const [attachPdf, setAttachPdf] = useState(true);
   const [done, setDone] = useState<SendToCrewResult | null>(null);
-  const { control, handleSubmit, formState, setError, reset } = useForm<Form, unknown, { to: string[]; message: string }>({
+  const { control: typed, handleSubmit, formState, setError, reset } = useForm<Form, unknown, { to: string[]; message: string }>({
     resolver: zodResolver(sendToCrewForm),
     defaultValues: { to: '', message: '' },
   });
+  // The fields edit the typed text (addresses as one line); only submit sees the parsed list.
+  const control = typed as unknown as Control<Form>;
 
   const submit = handleSubmit((v) =>
     send.mutate(
