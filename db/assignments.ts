@@ -19,8 +19,8 @@ export const checkOf = (raw: unknown): Check | null => {
 /** The latest attempt of each student (one row per student). */
 const latestAttempts = (assignmentId: unknown) => sql`(
   select distinct on (s.student_id) s.* from ${submissions} s where s.assignment_id = ${assignmentId} order by s.student_id, s.attempt desc)`;
-const submittedCount = sql<number>`(select count(*)::int from ${latestAttempts(assignments.id)} x)`.mapWith(Number);
-const reviewedCount = sql<number>`(select count(*)::int from ${latestAttempts(assignments.id)} x where x.status = 'reviewed')`.mapWith(Number);
+const submittedCount = sql<number>`(select count(*)::int from ${latestAttempts(sql.raw('"assignments"."id"'))} x)`.mapWith(Number);
+const reviewedCount = sql<number>`(select count(*)::int from ${latestAttempts(sql.raw('"assignments"."id"'))} x where x.status = 'reviewed')`.mapWith(Number);
 
 const summaryColumns = {
   id: assignments.id,
@@ -159,7 +159,7 @@ export async function setWork(db: Db, v: { assignmentId: string; studentId: stri
 // ---------------------------------------------------------------------------------------------
 // Submissions
 
-const commentCount = sql<number>`(select count(*)::int from ${submissionComments} c where c.submission_id = ${submissions.id})`.mapWith(Number);
+const commentCount = sql<number>`(select count(*)::int from ${submissionComments} c where c.submission_id = "submissions"."id")`.mapWith(Number);
 const submissionColumns = {
   id: submissions.id,
   assignmentId: submissions.assignmentId,

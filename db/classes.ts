@@ -42,9 +42,9 @@ export async function classRoleOf(db: Db, userId: string, classId: string): Prom
   return r?.role ?? null;
 }
 
-const studentCount = sql<number>`(select count(*)::int from ${classMembers} m where m.class_id = ${classes.id} and m.role = 'student')`.mapWith(Number);
+const studentCount = sql<number>`(select count(*)::int from ${classMembers} m where m.class_id = "classes"."id" and m.role = 'student')`.mapWith(Number);
 /** Students count published lessons only; instructors count their drafts too. */
-const lessonCount = sql<number>`(select count(*)::int from ${lessons} l where l.class_id = ${classes.id} and (l.published or ${classMembers.role} = 'instructor'))`.mapWith(Number);
+const lessonCount = sql<number>`(select count(*)::int from ${lessons} l where l.class_id = "classes"."id" and (l.published or "class_members"."role" = 'instructor'))`.mapWith(Number);
 
 /** The user's classes with counts, or one of them: one query. */
 export async function classSummariesOf(db: Db, userId: string, classId?: string): Promise<(ClassSummary & { joinCode: string; createdAt: Date })[]> {
@@ -197,7 +197,7 @@ export async function invitationsFor(db: Db, u: { id: string; email: string }): 
         sql`lower(${classInvitations.email}) = ${u.email.toLowerCase()}`,
         isNull(classInvitations.acceptedAt),
         isNull(classInvitations.revokedAt),
-        sql`not exists (select 1 from ${classMembers} m where m.class_id = ${classes.id} and m.user_id = ${u.id})`,
+        sql`not exists (select 1 from ${classMembers} m where m.class_id = "classes"."id" and m.user_id = ${u.id})`,
       ),
     )
     .orderBy(sql`${classInvitations.createdAt} desc`);

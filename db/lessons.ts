@@ -9,8 +9,10 @@ import { assignments, classMembers, classes, lessonSetups, lessons, setups } fro
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
-const setupCount = sql<number>`(select count(*)::int from ${lessonSetups} e where e.lesson_id = ${lessons.id})`.mapWith(Number);
-const assignmentCount = sql<number>`(select count(*)::int from ${assignments} a where a.lesson_id = ${lessons.id})`.mapWith(Number);
+// The outer table is named in full: Drizzle leaves a column unqualified in a one-table select, where it would
+// bind to the subquery's own table.
+const setupCount = sql<number>`(select count(*)::int from ${lessonSetups} e where e.lesson_id = "lessons"."id")`.mapWith(Number);
+const assignmentCount = sql<number>`(select count(*)::int from ${assignments} a where a.lesson_id = "lessons"."id")`.mapWith(Number);
 const summaryColumns = {
   id: lessons.id,
   classId: lessons.classId,

@@ -1,13 +1,25 @@
-// Seeds the demo studio, class, users and setups once (skipped when the demo owner exists).
-import { eq } from 'drizzle-orm';
+// Seeds the demo studio, class, users and setups once (skipped when the demo owner exists), then the demo
+// class's lesson and assignment once (skipped when the lesson is there), so a database seeded before
+// lessons existed gets them too.
+import { and, eq } from 'drizzle-orm';
 import { createAuth } from '../server/auth';
 import type { Db } from './client';
 import { DEMO_CLASS, DEMO_JOIN_CODE, DEMO_PASSWORD, DEMO_STUDIO, demoUsers } from './demo';
-import { classMembers, classes, studioMembers, studios, user } from './schema';
+import { createAssignment } from './assignments';
+import { addLessonSetup, createLesson, updateLesson, updateLessonSetup, lessonSetupOf } from './lessons';
+import { classMembers, classes, lessons, studioMembers, studios, user } from './schema';
+import { DEMO_ASSIGNMENT, DEMO_LESSON } from './seed-lesson';
 import { createSetup } from './setups';
 import { demoSetups } from './seed-setups';
+import { studiosOf } from './studios';
 
 export async function seedDemo(db: Db): Promise<boolean> {
+  const people = await seedDemoPeople(db);
+  const lesson = await seedDemoLesson(db);
+  return people || lesson;
+}
+
+async function seedDemoPeople(db: Db): Promise<boolean> {
   const [existing] = await db.select({ id: user.id }).from(user).where(eq(user.email, demoUsers.owner.email));
   if (existing) return false;
 
@@ -39,6 +51,33 @@ export async function seedDemo(db: Db): Promise<boolean> {
         document: s.document,
       });
     }
+  });
+  return true;
+}
+
+/** The demo class's lesson, built from the instructor's own copies of two demo setups, and one assignment. */
+export async function seedDemoLesson(db: Db): Promise<boolean> {
+  const [dana] = await db.select({ id: user.id }).from(user).where(eq(user.email, demoUsers.instructor.email));
+  const [klass] = await db.select({ id: classes.id }).from(classes).where(and(eq(classes.name, DEMO_CLASS), eq(classes.joinCode, DEMO_JOIN_CODE)));
+  if (!dana || !klass) return false;
+  const [done] = await db.select({ id: lessons.id }).from(lessons).where(and(eq(lessons.classId, klass.id), eq(lessons.title, DEMO_LESSON.title)));
+  if (done) return false;
+  const studio = (await studiosOf(db, dana.id)).find((s) => s.personal);
+  if (!studio) return false;
+
+  await db.transaction(async (t) => {
+    const tx = t as unknown as Db;
+    const lesson = await createLesson(tx, { classId: klass.id, title: DEMO_LESSON.title, summary: DEMO_LESSON.summary, createdBy: dana.id });
+    const entries: string[] = [];
+    for (const part of DEMO_LESSON.setups) {
+      const source = demoSetups.find((d) => d.title === part.from)!;
+      const copy = await createSetup(tx, { studioId: studio.id, ownerId: dana.id, title: source.title, notes: source.notes, tags: [...source.tags, 'teaching'], document: source.document });
+      const entry = await addLessonSetup(tx, lesson.id, { id: copy.id, title: copy.title, document: source.document, version: copy.version }, part.note);
+      await updateLessonSetup(tx, (await lessonSetupOf(tx, lesson.id, entry.id))!, { stepNotes: { ...part.steps } });
+      entries.push(entry.id);
+    }
+    await updateLesson(tx, lesson.id, { published: true });
+    await createAssignment(tx, lesson.id, { ...DEMO_ASSIGNMENT, referenceId: entries[0]!, createdBy: dana.id });
   });
   return true;
 }

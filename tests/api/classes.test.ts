@@ -133,6 +133,14 @@ describe('lessons', () => {
     expect((await student.get(`/api/lessons/${l.body.id}`)).status).toBe(404);
     await w.instructor.client.request('PATCH', `/api/lessons/${l.body.id}`, { published: true });
     expect((await student.get(`/api/classes/${w.classId}/lessons`)).body.lessons.map((x: { title: string }) => x.title)).toEqual(['Draft lesson']);
+    const { lessonId } = await lessonWith(w.instructor.client, w.classId, w.instructor.personalStudioId);
+    await assignmentOn(w.instructor.client, lessonId);
+    const counted = await student.get(`/api/classes/${w.classId}/lessons`);
+    expect(counted.body.lessons.map((x: { title: string; setupCount: number; assignmentCount: number }) => [x.title, x.setupCount, x.assignmentCount])).toEqual([
+      ['Draft lesson', 0, 0],
+      ['Falloff to the background', 1, 1],
+    ]);
+    expect((await student.get(`/api/classes/${w.classId}`)).body).toMatchObject({ lessonCount: 2, studentCount: 1 });
     expect((await student.request('PATCH', `/api/lessons/${l.body.id}`, { title: 'Mine now' })).status).toBe(403);
   });
 
