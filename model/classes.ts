@@ -155,6 +155,14 @@ function listNames(items: Item[]): string {
   return `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
 }
 
+/** What shapes the light is named; the rest of a first step (room, sitter, camera, notes) is "the set". */
+const shapesLight = (i: Item) => i.kind === 'light' || i.kind === 'reflector' || i.kind === 'flag' || i.kind === 'vflat' || i.kind === 'scrim';
+function leadNames(items: Item[], first: boolean): string {
+  const named = items.filter(shapesLight);
+  if (!first || named.length === 0 || named.length === items.length) return listNames(items);
+  return `${listNames(named)} and the set`;
+}
+
 /**
  * Light more than this far under the camera's exposure (stops) counts as none: it records as black, far
  * below what any sensor holds detail in (common practice), and "+19 stops" would say nothing useful.
@@ -186,7 +194,7 @@ export type ChangeInput = {
  * what the new item added, whatever the camera is set to.
  */
 export function describeChange({ added, before, after, missingAfter, first }: ChangeInput): string {
-  const lead = added.length === 0 ? 'this step places nothing new' : `${first ? 'starting with' : 'adding'} ${listNames(added)}`;
+  const lead = added.length === 0 ? 'this step places nothing new' : `${first ? 'starting with' : 'adding'} ${leadNames(added, first)}`;
   if (!after) return missingAfter.length ? `${lead}: nothing to meter yet (needs ${missingAfter.join(' and ')})` : `${lead}: the meter cannot read the plan here`;
   const parts: string[] = [];
 

@@ -142,9 +142,9 @@ describe('evaluateCheck', () => {
 describe('the change line', () => {
   const steps = (...ids: string[][]) => ({ steps: ids.map((itemIds, k) => ({ id: `s${k}`, title: `Step ${k + 1}`, itemIds })) });
 
-  it('opens with what the first step places and what the subject reads', () => {
+  it('opens with the light the first step places (the rest is the set) and what the subject reads', () => {
     const d = doc([subject, camera, light('Key', 1)], steps(['sub', 'cam', 'Key']));
-    expect(stepChangeLine(d, 0)).toMatch(/^starting with Sitter, the camera and Key: the subject reads f\/\d+(\.\d)? \([+−±]\d\.\d vs the camera\)$/);
+    expect(stepChangeLine(d, 0)).toMatch(/^starting with Key and the set: the subject reads f\/\d+(\.\d)? \([+−±]\d\.\d vs the camera\)$/);
   });
 
   it('a second light like the first, as far away, adds one stop (twice the light, common practice)', () => {
