@@ -255,8 +255,14 @@ export type UpdateMeBody = z.infer<typeof updateMeBody>;
 export const paperSizes = ['a4', 'letter'] as const;
 export type PaperSize = (typeof paperSizes)[number];
 
-/** GET …/plan.png: how wide the image is, in pixels (height follows the stage's proportions). */
-export const planPngQuery = z.object({ width: z.coerce.number().int().min(200, 'at least 200 px').max(4000, 'at most 4000 px').default(2000) }).strict();
+/** GET …/plan.png: how wide the image is, in pixels (height follows the stage's proportions). `v`, the setup's
+ *  version, only makes the address change when the setup does, so a browser never shows a stale preview. */
+export const planPngQuery = z
+  .object({
+    width: z.coerce.number().int().min(200, 'at least 200 px').max(4000, 'at most 4000 px').default(2000),
+    v: z.coerce.number().int().min(0).optional(),
+  })
+  .strict();
 /** GET …/plan.svg takes no options (the drawing scales). */
 export const planSvgQuery = z.object({}).strict();
 /** GET …/crew-sheet.pdf: paper and units default to the account's (or, for a share link, its creator's). */

@@ -14,6 +14,8 @@ import { itemsAtStep } from '../../model/scene';
 import type { ItemOf } from '../../model/document';
 import { formatAperture, formatStops, type Units } from '../../model/units';
 import { Button } from '../ui';
+import { CrewSheetPanel } from '../crew/CrewSheetPanel';
+import { PhotosPanel } from '../photos/PhotosPanel';
 import { BottomSheet, PEEK_PX } from './BottomSheet';
 import { Inspector } from './Inspector';
 import { MeterPanel } from './MeterPanel';
@@ -22,12 +24,13 @@ import { ShotsPanel } from './ShotsPanel';
 import { StepsPanel } from './StepsPanel';
 import { TextField } from './fields';
 
-type Tab = 'meter' | 'item' | 'steps' | 'shots' | 'notes';
+type Tab = 'meter' | 'item' | 'steps' | 'shots' | 'crew' | 'notes';
 const tabs: { id: Tab; label: string }[] = [
   { id: 'meter', label: 'Meter' },
   { id: 'item', label: 'Item' },
   { id: 'steps', label: 'Steps' },
   { id: 'shots', label: 'Shots' },
+  { id: 'crew', label: 'Crew' },
   { id: 'notes', label: 'Notes' },
 ];
 
@@ -137,12 +140,17 @@ function Editor({ setup, store, units, readOnly }: { setup: ServerSetup; store: 
         return <StepsPanel activeStep={step} onShowStep={setStep} />;
       case 'shots':
         return <ShotsPanel />;
+      case 'crew':
+        return <CrewSheetPanel setupId={setup.id} />;
       case 'notes':
         return (
-          <View style={{ padding: space.lg }}>
-            <TextField label="Title" value={title} onCommit={(v) => { if (!readOnly && v.trim()) { setTitle(v.trim()); sync.save({ title: v.trim() }); } }} />
-            <TextField label="Notes" value={notes} multiline onCommit={(v) => { if (!readOnly) { setNotes(v); sync.save({ notes: v }); } }} />
-          </View>
+          <>
+            <View style={{ padding: space.lg }}>
+              <TextField label="Title" value={title} onCommit={(v) => { if (!readOnly && v.trim()) { setTitle(v.trim()); sync.save({ title: v.trim() }); } }} />
+              <TextField label="Notes" value={notes} multiline onCommit={(v) => { if (!readOnly) { setNotes(v); sync.save({ notes: v }); } }} />
+            </View>
+            <PhotosPanel setupId={setup.id} predictedAperture={readings.meter?.subject.aperture ?? null} />
+          </>
         );
     }
   };
@@ -199,6 +207,7 @@ function Editor({ setup, store, units, readOnly }: { setup: ServerSetup; store: 
           <ScrollView style={s.right}>
             <Inspector units={units} />
             <MeterPanel readings={readings} doc={doc} selectedLight={selectedLight} units={units} />
+            {panel('crew')}
             {panel('notes')}
           </ScrollView>
         </View>

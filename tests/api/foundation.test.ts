@@ -102,3 +102,14 @@ describe('JSON errors', () => {
     expect(r.headers.get('content-security-policy')).toContain("default-src 'self'");
   });
 });
+
+describe('the crew sheet preview address', () => {
+  it('takes the setup version as a cache key', async () => {
+    const c = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
+    const { body } = await c.get('/api/setups?limit=1');
+    const id = body.setups[0].id;
+    const r = await c.get(`/api/setups/${id}/plan.png?width=300&v=7`);
+    expect(r.status).toBe(200);
+    expect(r.headers.get('content-type')).toBe('image/png');
+  });
+});
