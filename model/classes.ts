@@ -196,6 +196,10 @@ export type ChangeInput = {
 export function describeChange({ added, before, after, missingAfter, first }: ChangeInput): string {
   const lead = added.length === 0 ? 'this step places nothing new' : `${first ? 'starting with' : 'adding'} ${leadNames(added, first)}`;
   if (!after) return missingAfter.length ? `${lead}: nothing to meter yet (needs ${missingAfter.join(' and ')})` : `${lead}: the meter cannot read the plan here`;
+  const amb = after.ambient;
+  const room = amb && amb.stopsVsCamera < 0 ? `room light ${Math.abs(shown(amb.stopsVsCamera)).toFixed(1)} stops under` : amb ? 'room light will show' : null;
+  // No light drawn yet: only the room's light can be read.
+  if (missingAfter.length) return `${lead}: nothing to meter yet (needs ${missingAfter.join(' and ')})${room ? `, ${room}` : ''}`;
   const parts: string[] = [];
 
   const subj = after.subject;
@@ -216,10 +220,7 @@ export function describeChange({ added, before, after, missingAfter, first }: Ch
   const kfBefore = before?.keyFill.ratio ?? null;
   if (kf.ratio !== null && (kfBefore === null || Math.abs(Math.log2(kf.ratio / kfBefore)) >= 0.1)) parts.push(`key:fill now ${ratioText(kf.ratio)}`);
 
-  const amb = after.ambient;
-  if (amb && (!before?.ambient || Math.abs(amb.stopsVsCamera - before.ambient.stopsVsCamera) >= 0.1)) {
-    parts.push(amb.stopsVsCamera < 0 ? `room light ${Math.abs(shown(amb.stopsVsCamera)).toFixed(1)} stops under` : 'room light will show');
-  }
+  if (room && (!before?.ambient || Math.abs(amb!.stopsVsCamera - before.ambient.stopsVsCamera) >= 0.1)) parts.push(room);
   return `${lead}: ${parts.join(', ')}`;
 }
 

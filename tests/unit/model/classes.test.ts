@@ -180,7 +180,7 @@ describe('the change line', () => {
   it('a background lit before the subject is read against the camera; a trace of light is no light (more than 8 stops under)', () => {
     const bgLight = { id: 'bgl', kind: 'light', label: 'Paper light', x: 4, y: 2.2, heightM: 0.5, aimDeg: -90, tiltDeg: 10, source: { type: 'speedlight', guideNumberM: 40 }, power: 1 / 8, role: 'background' };
     const d = doc([subject, camera, backdrop(1), bgLight, light('Key', 1)], steps(['sub', 'cam', 'bg'], ['bgl'], ['Key']));
-    expect(stepChangeLine(d, 0)).toBe('starting with Sitter, the camera and Grey paper: no light on the subject yet');
+    expect(stepChangeLine(d, 0)).toBe('starting with Sitter, the camera and Grey paper: nothing to meter yet (needs a light)');
     expect(stepChangeLine(d, 1)).toMatch(/^adding Paper light: no light on the subject yet, background [+−±]\d+\.\d vs the camera$/);
     expect(stepChangeLine(d, 2)).toMatch(/^adding Key: the subject reads f\/[\d.]+ \([+−±]\d\.\d vs the camera\), background [+−]\d\.\d stops?$/);
   });
@@ -208,6 +208,11 @@ describe('the change line', () => {
     expect(stopsChangeText(0.31)).toBe('+0.3 stop');
     expect(stopsChangeText(-1)).toBe('−1.0 stop');
     expect(stopsChangeText(-2.26)).toBe('−2.3 stops');
+  });
+
+  it('before any light is drawn, only the room light is read (stopping down is what takes it under)', () => {
+    const teal = demoSetups.find((d) => d.document.ambientEv100 !== null)!;
+    expect(stepChangeLine(teal.document, 0)).toMatch(/: nothing to meter yet \(needs a light\), room light \d+\.\d stops under$/);
   });
 
   it('has a line for every step of every demo setup', () => {
