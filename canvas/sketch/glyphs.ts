@@ -102,9 +102,20 @@ function modifierFace(l: ItemOf<'light'>, c: string): SvgNode[] {
   }
 }
 
+/** A gel's colour as the light's ink: its tint, unless that is white or too pale to see on the theme
+ *  (colour-correction gels are "white" in the table; on paper a pale tint would vanish). */
+export function lightInk(gel: keyof typeof GELS, theme: PlanTheme): string {
+  const tint = GELS[gel].tint;
+  if (gel === 'none' || tint.toLowerCase() === '#ffffff') return theme.light;
+  const [r, g, b] = [1, 3, 5].map((k) => parseInt(tint.slice(k, k + 2), 16) / 255);
+  const bright = 0.2126 * r! + 0.7152 * g! + 0.0722 * b!; // Rec. 709 weights, on the encoded values: a rough lightness
+  const paper = theme.background.toLowerCase() === '#ffffff';
+  return paper && bright > 0.75 ? theme.light : tint;
+}
+
 /** A light from above: a disc for a flash head (a square for a continuous lamp) and its modifier's face. */
 function light(i: ItemOf<'light'>, { theme }: SketchContext) {
-  const tint = i.gel === 'none' ? theme.light : GELS[i.gel].tint;
+  const tint = lightInk(i.gel, theme);
   const head =
     i.source.type === 'continuous'
       ? rect({ x: -0.12, y: -0.12, width: 0.24, height: 0.24, rx: 0.03, fill: theme.background, stroke: tint, strokeWidth: STROKE * 1.5 })

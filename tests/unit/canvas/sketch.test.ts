@@ -30,3 +30,14 @@ describe('sketches', () => {
     for (const l of doc.items.filter((i) => i.kind === 'light')) expect(svg).toContain(l.label);
   });
 });
+
+describe('light ink', () => {
+  it('draws colour-correction and pale gels in the theme ink on paper, strong gels in their colour', async () => {
+    const { lightInk } = await import('../../../canvas/sketch/glyphs');
+    expect(lightInk('quarter-cto', paperTheme)).toBe(paperTheme.light);
+    expect(lightInk('half-plus-green', paperTheme)).toBe(paperTheme.light);
+    expect(lightInk('teal', paperTheme)).toBe('#2ae6d2');
+    expect(lightInk('none', graphiteTheme)).toBe(graphiteTheme.light);
+    expect(lightInk('half-plus-green', graphiteTheme)).toBe('#eaffe3');
+  });
+});
