@@ -62,7 +62,7 @@ const tealWarm = {
     { id: 'key', kind: 'light', label: 'Key — warm softbox', x: 2.9, y: 4.0, heightM: 1.9, aimDeg: -42, tiltDeg: -12, source: { type: 'strobe', energyWs: 600 }, power: 1 / 32, modifier: 'softbox', gel: 'quarter-cto', role: 'key' },
     { id: 'bg', kind: 'light', label: 'Background — teal', x: 4.2, y: 2.1, heightM: 0.4, aimDeg: -90, tiltDeg: 20, source: { type: 'speedlight', guideNumberM: 42 }, power: 1 / 2, modifier: 'bare-reflector', gel: 'teal', role: 'background', stand: 'floor' },
     { id: 'cam', kind: 'camera', label: 'Camera', x: 4.3, y: 5.5, heightM: 1.6, aimDeg: -95, focalMm: 50, iso: 200, aperture: 5.6, shutterS: 1 / 200 },
-    { id: 'n1', kind: 'note', x: 6.2, y: 4.8, text: 'Practicals off; window blinds half down' },
+    { id: 'n1', kind: 'note', x: 0.3, y: 5.7, text: 'Practicals off; window blinds half down' },
   ],
   steps: [
     { id: 's1', title: 'Ambient check', note: 'Meter the room with the modelling lamps off; it should sit at least 3 stops under.', itemIds: ['paper', 'wallR', 'singer', 'cam', 'n1'] },
