@@ -505,3 +505,7 @@ export type SubmissionDetail = SubmissionSummary & {
   canComment: boolean;
   canReview: boolean;
 };
+
+/** The forgotten-password form, and the form that sets a new one from the e-mailed link. */
+export const forgotPasswordBody = z.object({ email: z.string().trim().email('enter an e-mail address') });
+export const resetPasswordBody = z.object({ password: z.string().min(8, 'at least 8 characters').max(128) });

@@ -28,6 +28,11 @@ export default function SignIn() {
       <FormField control={control} name="password" label="Password" error={formState.errors.password?.message} secureTextEntry autoComplete="current-password" onSubmitEditing={submit} testID="password" />
       {failure ? <ErrorText>{failure}</ErrorText> : null}
       <Button label="Sign in" onPress={submit} busy={formState.isSubmitting} testID="submit" />
+      <Body dim style={{ marginTop: 14, textAlign: 'center' }}>
+        <Link href="/forgot-password" style={{ color: '#f0b24a' }}>
+          Forgotten your password?
+        </Link>
+      </Body>
       <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
         New here?{' '}
         <Link href={next === '/setups' ? '/sign-up' : { pathname: '/sign-up', params: { next } }} style={{ color: '#f0b24a' }}>
