@@ -12,7 +12,7 @@ import { Body } from '../ui';
 import { ExportButtons } from './ExportButtons';
 import { SendToCrew } from './SendToCrew';
 import { ShareLinks } from './ShareLinks';
-import { fileStem } from './stem';
+import { fileStem } from '../../model/fileNames';
 
 export function CrewSheetPanel({ setupId }: { setupId: string }) {
   const setup = useSetup(setupId);

@@ -13,7 +13,7 @@ import { crewSheet, type CrewSheet, type Reading } from '../../model/crewSheet';
 import { Loading } from '../Loading';
 import { Body, Title } from '../ui';
 import { ExportButtons } from './ExportButtons';
-import { fileStem } from './stem';
+import { fileStem } from '../../model/fileNames';
 
 export function SharedSetupScreen({ token }: { token: string }) {
   const q = useSharedSetup(token);

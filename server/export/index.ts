@@ -3,26 +3,17 @@
 import type { Request, Response } from 'express';
 import { crewSheetQuery, planPngQuery, planSvgQuery, type PaperSize } from '../../model/api';
 import type { SetupDocument } from '../../model/document';
+import { fileStem as slug } from '../../model/fileNames';
 import type { Units } from '../../model/units';
 import { parseQuery } from '../validate';
 import { crewSheetPdf } from './pdf';
 import { planPng, planSvg } from './plan';
 
+export { slug };
+
 export type ExportKind = 'crew-sheet.pdf' | 'plan.svg' | 'plan.png';
 export type ExportSource = { doc: SetupDocument; title: string; studioName: string; version: number; updatedAt: Date; units: Units; paper: PaperSize; link?: string };
 
-/** "teal-backdrop-warm-key" for file names. */
-export function slug(title: string): string {
-  return (
-    title
-      .normalize('NFKD')
-      .replace(/[\u0300-\u036f]/g, '')
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-+|-+$/g, '')
-      .slice(0, 60) || 'setup'
-  );
-}
 
 export function subtitle(s: Pick<ExportSource, 'studioName' | 'version' | 'updatedAt' | 'paper'>): string {
   const date = s.updatedAt.toLocaleDateString(s.paper === 'letter' ? 'en-US' : 'en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });

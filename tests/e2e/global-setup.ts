@@ -1,30 +1,5 @@
-// Starts the real server (Express + better-auth) on a free loopback port against the test database, serving the built web app (dist/).
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+// The browser tests open the real server, which also serves the built web app (dist/).
 import type { TestProject } from 'vitest/node';
-import { fakeServices, startFakes } from '../../server/fakes';
-import { startServer } from '../../server/main';
-import { TEST_DATABASE_URL } from '../support/env';
+import { provideTestServer } from '../support/server';
 
-declare module 'vitest' {
-  export interface ProvidedContext {
-    baseUrl: string;
-    /** The fake S3 the server stores photos in (tests look in the bucket). */
-    s3: { endpoint: string; bucket: string };
-  }
-}
-
-export default async function setup(project: TestProject) {
-  // Fake SMTP (its mail is read back at /dev/inbox.json) and fake S3 in a temp dir, on free loopback ports.
-  const s3Dir = mkdtempSync(join(tmpdir(), 'falloff-s3-'));
-  const fakes = await startFakes({ s3Dir });
-  const server = await startServer({ databaseUrl: TEST_DATABASE_URL, port: 0, logLevel: 'error', webDir: undefined, ...fakeServices(fakes) });
-  project.provide('baseUrl', server.url);
-  project.provide('s3', fakes.s3);
-  return async () => {
-    await server.close();
-    await fakes.close();
-    rmSync(s3Dir, { recursive: true, force: true });
-  };
-}
+export default (project: TestProject) => provideTestServer(project, { web: true });

@@ -1,4 +1,4 @@
-/** "Teal backdrop, warm key" → "teal-backdrop-warm-key", for download file names (the server names them alike). */
+/** "Teal backdrop, warm key" → "teal-backdrop-warm-key": the file name of a download, the same from the client and the server. */
 export function fileStem(title: string): string {
   return (
     title
