@@ -1,7 +1,7 @@
 // The setup editor. Phone: the plan fills the screen, kit behind one button, readings and settings in a
 // bottom sheet. Wide (≥ 1024 px): kit and steps on the left, the plan in the middle, item and meter right.
 import { useRouter } from 'expo-router';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { Modal, Platform, Pressable, ScrollView, StyleSheet, Text, View, useWindowDimensions } from 'react-native';
 import { PlanCanvas } from '../../canvas/PlanCanvas';
 import { useReadings } from '../../canvas/readings';
@@ -53,10 +53,13 @@ function Editor({ setup, store, units, readOnly }: { setup: ServerSetup; store: 
   const canRedo = useEditor((s) => s.future.length > 0);
   const snap = useEditor((s) => s.snap);
   const drawingWall = useEditor((s) => s.tool === 'wall');
-  const selectedLight = useEditor((s) => {
-    const i = s.selection.length === 1 ? s.doc.items.find((x) => x.id === s.selection[0]) : undefined;
-    return i?.kind === 'light' ? (i as ItemOf<'light'>) : null;
-  });
+  // The falloff chart follows the selection at low priority, like the inspector.
+  const selectedLight = useDeferredValue(
+    useEditor((s) => {
+      const i = s.selection.length === 1 ? s.doc.items.find((x) => x.id === s.selection[0]) : undefined;
+      return i?.kind === 'light' ? (i as ItemOf<'light'>) : null;
+    }),
+  );
   const [showMap, setShowMap] = useState(true);
   const [step, setStep] = useState<number | null>(null);
   const [tab, setTab] = useState<Tab>('meter');
