@@ -7,7 +7,7 @@
 // The two setups and the student's extra light are made through the API; everything else is the UI.
 import { describe, expect, inject, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
+import { dragSheet, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
 import { freshEmail } from '../support/http';
 
 const base = inject('baseUrl');
@@ -42,26 +42,6 @@ const apiOf = (c: BrowserContext) => ({
 });
 
 const text = (page: Page, testId: string) => page.getByTestId(testId).first().textContent();
-
-/** On a phone the editor's sheet is dragged up by its handle to work in it (as in editor.test.ts). */
-async function openSheet(page: Page) {
-  const handle = (await page.getByLabel('Drag to resize').boundingBox())!;
-  const x = handle.x + handle.width / 2;
-  const y = handle.y + 6;
-  await page.mouse.move(x, y);
-  await page.mouse.down();
-  for (let k = 1; k <= 12; k++) await page.mouse.move(x, y - (480 * k) / 12);
-  await page.mouse.up();
-  let last = NaN;
-  await expect
-    .poll(async () => {
-      const now = (await page.getByLabel('Drag to resize').boundingBox())!.y;
-      const settled = Math.abs(now - last) < 0.5;
-      last = now;
-      return settled;
-    }, { interval: 150, timeout: 5000 })
-    .toBe(true);
-}
 
 async function centreOf(page: Page, locator: ReturnType<Page['getByTestId']>) {
   const b = (await locator.boundingBox())!;
@@ -192,7 +172,7 @@ describe('a class taught from saved setups', () => {
     await expect.poll(() => p.getByTestId('item-spare').count(), { timeout: 10_000 }).toBe(1);
     const at = await centreOf(p, p.getByTestId('item-spare'));
     await p.mouse.click(at.x, at.y);
-    await openSheet(p);
+    await dragSheet(p, true);
     await p.getByRole('tab', { name: 'Item' }).click();
     await p.getByRole('switch', { name: 'On' }).click();
     await expect.poll(() => text(p, 'save-state'), { timeout: 10_000 }).toBe('Saved');

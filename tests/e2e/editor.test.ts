@@ -4,7 +4,7 @@
 import { describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
-import { sharedBrowser, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
+import { dragMouse, dragSheet, sharedBrowser, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
@@ -13,13 +13,6 @@ async function centre(page: Page, testId: string) {
   const box = await page.getByTestId(testId).boundingBox();
   if (!box) throw new Error(`${testId} is not on screen`);
   return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
-}
-
-async function dragMouse(page: Page, from: { x: number; y: number }, to: { x: number; y: number }, steps = 12) {
-  await page.mouse.move(from.x, from.y);
-  await page.mouse.down();
-  for (let k = 1; k <= steps; k++) await page.mouse.move(from.x + ((to.x - from.x) * k) / steps, from.y + ((to.y - from.y) * k) / steps);
-  await page.mouse.up();
 }
 
 const stopsOf = async (page: Page, lightId: string) => Number((await page.getByTestId(`meter-light-${lightId}-stops`).textContent())!.replace('−', '-').replace('±', ''));
@@ -40,24 +33,7 @@ describe.each(Object.keys(viewports) as ViewportName[])('the editor on a %s view
     await page.getByTestId('plan').waitFor();
 
     // The sheet on a phone: drag its handle up to work in it, down to see the plan.
-    const sheet = async (open: boolean) => {
-      if (!phone) return;
-      const handle = await page.getByLabel('Drag to resize').boundingBox();
-      const y = handle!.y + 6;
-      // Stay inside the viewport: a pointer released outside it never reaches the page.
-      const bottom = viewports[vp].height - 4;
-      await dragMouse(page, { x: handle!.x + handle!.width / 2, y }, { x: handle!.x + handle!.width / 2, y: open ? y - 480 : bottom });
-      // Let the sheet's spring settle before pressing anything under it.
-      let last = NaN;
-      await expect
-        .poll(async () => {
-          const now = (await page.getByLabel('Drag to resize').boundingBox())!.y;
-          const settled = Math.abs(now - last) < 0.5;
-          last = now;
-          return settled;
-        }, { interval: 150, timeout: 5000 })
-        .toBe(true);
-    };
+    const sheet = async (open: boolean) => (phone ? dragSheet(page, open) : undefined);
     const kit = async (label: string) => {
       if (phone) await page.getByRole('button', { name: 'Open the kit' }).click();
       await page.getByRole('button', { name: label }).click();

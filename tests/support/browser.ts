@@ -3,7 +3,7 @@
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
-import { afterAll, beforeAll } from 'vitest';
+import { afterAll, beforeAll, expect } from 'vitest';
 
 export const viewports = {
   phone: { width: 390, height: 844 },
@@ -57,4 +57,35 @@ export function sharedBrowser(): () => Browser {
     if (!browser) throw new Error('the browser is not launched yet');
     return browser;
   };
+}
+
+/** A mouse drag in steps, as a finger or a mouse moves (gestures need the moves in between). */
+export async function dragMouse(page: Page, from: { x: number; y: number }, to: { x: number; y: number }, steps = 12) {
+  await page.mouse.move(from.x, from.y);
+  await page.mouse.down();
+  for (let k = 1; k <= steps; k++) await page.mouse.move(from.x + ((to.x - from.x) * k) / steps, from.y + ((to.y - from.y) * k) / steps);
+  await page.mouse.up();
+}
+
+/** On a phone the editor's sheet is dragged up by its handle to work in it, and down to see the plan; waits
+ *  for its spring to settle so nothing is pressed under a moving sheet. */
+export async function dragSheet(page: Page, open: boolean) {
+  const handle = (await page.getByLabel('Drag to resize').boundingBox())!;
+  const x = handle.x + handle.width / 2;
+  const y = handle.y + 6;
+  // Stay inside the viewport: a pointer released outside it never reaches the page.
+  const bottom = (page.viewportSize()?.height ?? 844) - 4;
+  await dragMouse(page, { x, y }, { x, y: open ? y - 480 : bottom });
+  let last = NaN;
+  await expect
+    .poll(
+      async () => {
+        const now = (await page.getByLabel('Drag to resize').boundingBox())!.y;
+        const settled = Math.abs(now - last) < 0.5;
+        last = now;
+        return settled;
+      },
+      { interval: 150, timeout: 5000 },
+    )
+    .toBe(true);
 }
