@@ -41,6 +41,9 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, box
   const store = useEditorStore();
   const allItems = useEditor((s) => s.doc.items);
   const items = useMemo(() => (visibleIds ? allItems.filter((i) => visibleIds.has(i.id)) : allItems), [allItems, visibleIds]);
+  // Presses reach only what is shown (a step view hides items placed later).
+  const shownRef = useRef<Item[] | undefined>(undefined);
+  shownRef.current = visibleIds ? items : undefined;
   const stage = useEditor((s) => s.doc.stage);
   const selection = useEditor((s) => s.selection);
   const readOnly = useEditor((s) => s.readOnly);
@@ -81,6 +84,7 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, box
           boxSelect,
           panKey: keys?.current.space ?? false,
           additive: keys?.current.shift ?? false,
+          items: shownRef.current,
         });
         const r = pressMove(store, pressRef.current, at(e.x, e.y), { x: e.x, y: e.y });
         if (r.view) setView(r.view);
@@ -116,14 +120,14 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, box
       .runOnJS(true)
       .maxDistance(3)
       .onEnd((e, ok) => {
-        if (ok && viewRef.current) tap(store, at(e.x, e.y), { toleranceM: tolerance(boxSelect ? 'mouse' : 'touch'), additive: keys?.current.shift ?? false });
+        if (ok && viewRef.current) tap(store, at(e.x, e.y), { toleranceM: tolerance(boxSelect ? 'mouse' : 'touch'), additive: keys?.current.shift ?? false, items: shownRef.current });
       });
     // A long press adds the item under the finger to the selection (multi-select on touch).
     const hold = Gesture.LongPress()
       .runOnJS(true)
       .minDuration(450)
       .onStart((e) => {
-        if (viewRef.current) tap(store, at(e.x, e.y), { toleranceM: tolerance('touch'), additive: true });
+        if (viewRef.current) tap(store, at(e.x, e.y), { toleranceM: tolerance('touch'), additive: true, items: shownRef.current });
       });
     return Gesture.Simultaneous(Gesture.Exclusive(drag, hold, press), pinch, twoFingerPan);
   }, [store, boxSelect, keys, tolerance]);

@@ -25,6 +25,8 @@ export type PressOptions = {
   panKey: boolean;
   /** Shift is held: add to the selection. */
   additive: boolean;
+  /** The items on screen, when the canvas shows only some (a step of the build); default: all. */
+  items?: readonly Item[];
 };
 
 let gestureCounter = 0;
@@ -55,11 +57,12 @@ export function pressDown(store: EditorStore, view: Viewport, plan: Point, scree
     store.dispatch('startWall', { at: plan, gestureKey: key });
     return { mode: 'end', id: store.getState().selection[0]!, end: 'b', key, drawing: true };
   }
+  const shown = o.items ?? s.doc.items;
   if (!s.readOnly) {
-    const handle = handleAt(s.doc.items, s.selection, plan, o.toleranceM);
+    const handle = handleAt(shown, s.selection, plan, o.toleranceM);
     if (handle) return handle;
   }
-  const hit = hitTest(s.doc.items, plan, o.toleranceM);
+  const hit = hitTest(shown, plan, o.toleranceM);
   if (hit) {
     if (!s.selection.includes(hit.id)) store.dispatch('select', { ids: [hit.id], additive: o.additive });
     if (s.readOnly) return { mode: 'idle' };
@@ -103,8 +106,8 @@ export function pressUp(store: EditorStore, press: Press): Press {
 }
 
 /** A tap (no movement): select what is under it, or clear the selection on empty space. */
-export function tap(store: EditorStore, plan: Point, o: Pick<PressOptions, 'toleranceM' | 'additive'>) {
-  const hit = hitTest(store.getState().doc.items, plan, o.toleranceM);
+export function tap(store: EditorStore, plan: Point, o: Pick<PressOptions, 'toleranceM' | 'additive' | 'items'>) {
+  const hit = hitTest(o.items ?? store.getState().doc.items, plan, o.toleranceM);
   if (hit) store.dispatch('select', { ids: [hit.id], additive: o.additive });
   else if (!o.additive) store.dispatch('clearSelection');
 }

@@ -1,12 +1,12 @@
 // The pointer state machine, headless: presses in plan metres, the store's state checked after each.
 import { describe, expect, it } from 'vitest';
-import { pressDown, pressMove, pressUp, tap } from '../../../canvas/gestures';
+import { pressDown, pressMove, pressUp, tap, type PressOptions } from '../../../canvas/gestures';
 import { createEditorStore } from '../../../canvas/state/store';
 import { demoSetups } from '../../../db/seed-setups';
 import { rotateHandleOf } from '../../../model/kinds';
 
 const view = { scale: 100, tx: 0, ty: 0 };
-const opts = { toleranceM: 0.1, boxSelect: true, panKey: false, additive: false };
+const opts: PressOptions = { toleranceM: 0.1, boxSelect: true, panKey: false, additive: false };
 const scr = (p: { x: number; y: number }) => ({ x: p.x * 100, y: p.y * 100 });
 const at = (store: ReturnType<typeof createEditorStore>, id: string) => store.getState().doc.items.find((i) => i.id === id) as any;
 const fresh = () => createEditorStore(demoSetups[0]!.document);
@@ -84,6 +84,16 @@ describe('pressing on the plan', () => {
     tap(store, { x: 4, y: 5.4 }, { ...opts, additive: true });
     expect(store.getState().selection).toEqual(['key', 'cam']);
     tap(store, { x: 0.3, y: 0.3 }, opts);
+    expect(store.getState().selection).toEqual([]);
+  });
+
+  it('in a step view a press reaches only the items shown', () => {
+    const store = fresh();
+    const shown = store.getState().doc.items.filter((i) => i.id !== 'key');
+    const r = drag(store, { x: 4, y: 4.1 }, { x: 5, y: 4.1 }, { ...opts, boxSelect: false, items: shown });
+    expect(r.mode).toBe('pan');
+    expect(at(store, 'key').x).toBe(4);
+    tap(store, { x: 4, y: 4.1 }, { ...opts, items: shown });
     expect(store.getState().selection).toEqual([]);
   });
 
