@@ -4,7 +4,7 @@ import type { HistoryEntry, HistoryVersion, SetupSaved } from '../model/api';
 import { parseDocument } from '../model/document';
 import type { Db } from './client';
 import { setups, setupVersions, user } from './schema';
-import { recordVersion } from './setups';
+import { recordVersion, savedColumns } from './setups';
 
 const entryColumns = {
   id: setupVersions.id,
@@ -63,19 +63,7 @@ export async function restoreVersion(db: Db, setupId: string, versionId: string,
     if (!r.rows.length) return null;
     await recordVersion(tx, setupId, userId);
     const [row] = await tx
-      .select({
-        id: setups.id,
-        studioId: setups.studioId,
-        ownerId: setups.ownerId,
-        title: setups.title,
-        notes: setups.notes,
-        tags: setups.tags,
-        schemaVersion: setups.schemaVersion,
-        version: setups.version,
-        isTemplate: setups.isTemplate,
-        createdAt: setups.createdAt,
-        updatedAt: setups.updatedAt,
-      })
+      .select(savedColumns)
       .from(setups)
       .where(and(eq(setups.id, setupId), isNull(setups.deletedAt)));
     return { ...row!, createdAt: row!.createdAt.toISOString(), updatedAt: row!.updatedAt.toISOString() };

@@ -158,23 +158,28 @@ export type SetupAccess = NonNullable<Awaited<ReturnType<typeof getSetupAccess>>
  * route can send it without parsing and re-serialising it; older documents are migrated and parsed here.
  * One query.
  */
+/** The columns of a setup as a save answers with it (SetupSaved, before dates become strings). */
+export const savedColumns = {
+  id: setups.id,
+  studioId: setups.studioId,
+  ownerId: setups.ownerId,
+  title: setups.title,
+  notes: setups.notes,
+  tags: setups.tags,
+  schemaVersion: setups.schemaVersion,
+  version: setups.version,
+  isTemplate: setups.isTemplate,
+  createdAt: setups.createdAt,
+  updatedAt: setups.updatedAt,
+};
+
 export async function getSetupDetail(db: Db, id: string, userId: string) {
   const q = prepared(db, 'setup_detail', () =>
     db
       .select({
-        id: setups.id,
-        studioId: setups.studioId,
+        ...savedColumns,
         studioName: studios.name,
-        ownerId: setups.ownerId,
         ownerName: user.name,
-        title: setups.title,
-        notes: setups.notes,
-        tags: setups.tags,
-        schemaVersion: setups.schemaVersion,
-        version: setups.version,
-        isTemplate: setups.isTemplate,
-        createdAt: setups.createdAt,
-        updatedAt: setups.updatedAt,
         role: studioMembers.role,
         deletedAt: setups.deletedAt,
         documentJson: sql<string>`${setups.document}::text`,
