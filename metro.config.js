@@ -1,9 +1,30 @@
-// Expo's Metro config. For `npm run dev` only: the dev server hands /api/* to the Express server, so the app
-// keeps one origin in development as it has in production.
+// Expo's Metro config.
+// - On the web, react-native-reanimated (and its worklets runtime) resolve to an empty module: nothing on the
+//   web animates on a UI thread, and gesture handler, which asks for reanimated inside a try, runs its
+//   callbacks on the JS thread without it (the phone's bottom sheet animates with React Native's Animated).
+// - On the web, zod's table of every language's error messages (`z.locales`, two thirds of zod's bytes) resolves
+//   to an empty module: the app words its own messages and zod's English default stays. Its JSON Schema
+//   conversion and `z.compile` (never used in the browser) resolve to web/zodWithoutJsonSchema.js.
+// - Route chunks in tiers (scripts/chunkTiers.cjs): the read-only link's screen is a chunk of its own below the
+//   other plan screens, so the share page does not download the editor.
+// - For `npm run dev` only: the dev server hands /api/* to the Express server, so the app keeps one origin in
+//   development as it has in production.
 const { getDefaultConfig } = require('expo/metro-config');
 const http = require('node:http');
 
 const config = getDefaultConfig(__dirname);
+require('./scripts/chunkTiers.cjs').installChunkTiers();
+
+const webEmpty = /^react-native-(reanimated|worklets)(\/|$)/;
+const zodWebOnly = /^\.\.?\/(core\/)?(compile|to-json-schema|json-schema-processors|json-schema-generator|from-json-schema)\.js$/;
+const zodStandIn = require.resolve('./web/zodWithoutJsonSchema.js');
+const upstreamResolve = config.resolver.resolveRequest;
+config.resolver.resolveRequest = (context, moduleName, platform) => {
+  if (platform === 'web' && webEmpty.test(moduleName)) return { type: 'empty' };
+  if (platform === 'web' && /\/locales\/index(\.c?js)?$/.test(moduleName) && /[\\/]node_modules[\\/]zod[\\/]/.test(context.originModulePath)) return { type: 'empty' };
+  if (platform === 'web' && zodWebOnly.test(moduleName) && /[\\/]node_modules[\\/]zod[\\/]v4[\\/]/.test(context.originModulePath)) return { type: 'sourceFile', filePath: zodStandIn };
+  return (upstreamResolve ?? context.resolveRequest)(context, moduleName, platform);
+};
 const api = process.env.FALLOFF_API_URL;
 
 if (api) {

@@ -13,3 +13,6 @@ export default function NotFound() {
     </View>
   );
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../components/RouteError';

@@ -7,3 +7,6 @@ export default function Index() {
   if (isPending) return <Loading />;
   return <Redirect href={data ? '/setups' : '/sign-in'} />;
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../components/RouteError';

@@ -64,9 +64,9 @@ export {
   beamProfile,
   beamSolidAngleSr,
 } from './modifiers';
-export * from './scene';
-export { BARE_REFLECTOR_BEAM_SR, MIN_DISTANCE_SQ_M2, lightColour } from './prepare';
-export type { ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice } from './readings';
+export * from './sceneSchema';
+export { BARE_REFLECTOR_BEAM_SR, MIN_DISTANCE_SQ_M2, lightColour } from './flatScene';
+export type { ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice } from './results';
 export { DARK_LUX_SECONDS, chooseKeyFill, findBackground, meter, meterParsed } from './meter';
 export {
   type LightMapCache,

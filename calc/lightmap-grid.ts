@@ -1,28 +1,52 @@
 /**
- * The light map's fixed part, rebuilt only when walls, flags, the grid or the receptor facing change: grid
- * point positions and receptor normals, occluders, bounce patches and the patch → coarse-point bounce kernels;
- * and the per-light direct-light loop over the grid (see lightmap.ts for the model).
+ * The light map's fixed part and its per-light loops, on the meter's own light transport (room.ts): the same
+ * lights (area faces for big modifiers, lights on a wall line), the same occluders (the subject's body
+ * included), and the same bounce patches with their first and later bounces. Rebuilt only when the room's
+ * geometry, the grid or the receptor change: grid points and receptor normals, the bounce kernel (room patch →
+ * coarse grid point) and the sample points along the walls.
  */
 import type { GridFrame } from './contours';
+import { type Occluders, MIN_DISTANCE_SQ_M2 } from './flatScene';
 import type { LightMapGrid } from './lightmap';
 import { PROFILE_LUT_SIZE } from './modifiers';
-import {
-  type Occluders,
-  type Patches,
-  type PreparedLight,
-  type SurfaceOptics,
-  MIN_DISTANCE_SQ_M2,
-  buildOccluders,
-  buildPatches,
-  surfaceOptics,
-} from './prepare';
-import type { Scene } from './scene';
+import { type FieldReceptor, type Room, type RoomLight, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse } from './room';
+import type { Scene } from './sceneSchema';
 import { castShadows } from './shadows';
 import { DEG } from './vec';
 
 const DEFAULT_BOUNCE_STEP = 4;
-const DEFAULT_MAP_PATCH_M = 1;
-const MAP_MAX_PATCHES_PER_SURFACE = 24;
+/** Wall tone samples: at most this far apart along a wall, and at most this many on one wall. */
+const WALL_SAMPLE_M = 0.2;
+const WALL_MAX_SAMPLES = 48;
+/** Area sources: points nearer the light than this many face radii are computed exactly, not interpolated. */
+const AREA_REFINE_RADII = 2;
+/** Area sources: a coarse cell whose corner ratios (exact / point form) differ by more than this factor is computed exactly. */
+const AREA_RATIO_SPREAD = 2;
+/** Area sources: the exact / point-form ratio is found every this many bounce cells and interpolated. */
+const AREA_RATIO_STEP = 2;
+
+/**
+ * What each map point reads, as the meter's receptors: 'dome' — an ideal hemisphere pointed at the camera (3-D,
+ * from each point); 'flat' — a flat disc with the horizontal normal of the grid's facing; 'pointed' — a flat
+ * disc pointed at each light in turn (direct light; its bounce is read by the dome, an approximation).
+ */
+export type MapReceptorKind = 'dome' | 'flat' | 'pointed';
+
+/** Points along one wall where its tone is shown, on the side the camera is on. */
+export type WallStrip = {
+  surfaceIndex: number;
+  surfaceId: string;
+  /** The strip's receptors (1 mm off the wall, facing the camera's side), at the map's height. */
+  receptors: FieldReceptor[];
+  /** The wall's ends on the plan (the drawn strip). */
+  x1: number;
+  y1: number;
+  x2: number;
+  y2: number;
+  /** Unit normal on the plan, towards the camera's side. */
+  nx: number;
+  ny: number;
+};
 
 /** Everything about the map that does not depend on the lights. */
 export type Geometry = {
@@ -30,44 +54,112 @@ export type Geometry = {
   frame: GridFrame;
   n: number;
   z: number;
-  px: Float64Array; // plan x of each point
+  kind: MapReceptorKind;
+  px: Float64Array;
   py: Float64Array;
-  nxs: Float64Array; // receptor normal of each point (horizontal)
+  /** Receptor normal of each point (3-D unit; for 'pointed' the dome's, used for the bounce). */
+  nxs: Float64Array;
   nys: Float64Array;
+  nzs: Float64Array;
+  /** Occluders without the subject's body, and the body alone (it does not shade points inside it). */
   occ: Occluders;
-  patches: Patches;
-  optics: SurfaceOptics;
-  // Coarse bounce grid
+  body: Occluders | null;
+  inBody: Uint8Array | null;
+  /** Coarse bounce grid: every `step`-th point; kernel[p·nK + k] = response of coarse point k to room patch p, signed by side. */
   step: number;
   kx: number;
   ky: number;
-  kernel: Float64Array; // [patch * nK + k], signed by side
+  coarseFrame: GridFrame;
+  kernel: Float32Array;
+  walls: WallStrip[];
 };
 
-/** Writes the receptor normal at (x, y) into nxs[k], nys[k] (horizontal, unit). */
-function receptorNormal(
-  facing: LightMapGrid['facing'],
-  scene: Scene,
-  x: number,
-  y: number,
-  nxs: Float64Array,
-  nys: Float64Array,
-  k: number,
-): void {
+/** Occluders of the body's four panels. */
+function bodyOccluders(scene: Scene): Occluders | null {
+  const panels = bodyPanels(scene);
+  if (panels.length === 0) return null;
+  const n = panels.length;
+  return {
+    count: n,
+    ax: Float64Array.from(panels, (p) => p.ax),
+    ay: Float64Array.from(panels, (p) => p.ay),
+    ex: Float64Array.from(panels, (p) => p.ex),
+    ey: Float64Array.from(panels, (p) => p.ey),
+    zLo: new Float64Array(n),
+    zHi: Float64Array.from(panels, (p) => p.zHi),
+    transmission: new Float64Array(n),
+    surface: new Int32Array(n).fill(-2),
+  };
+}
+
+/** Inside the body's footprint (a convex quad, corners in order)? */
+function insideBody(body: Occluders, x: number, y: number): boolean {
+  let sign = 0;
+  for (let i = 0; i < body.count; i++) {
+    const c = (x - body.ax[i]!) * body.ey[i]! - (y - body.ay[i]!) * body.ex[i]!;
+    const s = c > 0 ? 1 : c < 0 ? -1 : 0;
+    if (s === 0) continue;
+    if (sign === 0) sign = s;
+    else if (s !== sign) return false;
+  }
+  return true;
+}
+
+/** Receptor normal at a point: dome (and the pointed kind's bounce) towards the camera in 3-D; flat horizontal. */
+function normalAt(kind: MapReceptorKind, facing: LightMapGrid['facing'], scene: Scene, x: number, y: number, z: number): [number, number, number] {
+  if (kind !== 'flat') {
+    const dx = scene.camera.x - x;
+    const dy = scene.camera.y - y;
+    const dz = scene.camera.heightM - z;
+    const l = Math.hypot(dx, dy, dz);
+    return l > 0 ? [dx / l, dy / l, dz / l] : [1, 0, 0];
+  }
   if (facing === 'camera') {
     const dx = scene.camera.x - x;
     const dy = scene.camera.y - y;
     const l = Math.hypot(dx, dy);
-    nxs[k] = l > 0 ? dx / l : 1;
-    nys[k] = l > 0 ? dy / l : 0;
-    return;
+    return l > 0 ? [dx / l, dy / l, 0] : [1, 0, 0];
   }
   const deg = typeof facing === 'number' ? facing : scene.subject.facingDeg;
-  nxs[k] = Math.cos(deg * DEG);
-  nys[k] = Math.sin(deg * DEG);
+  return [Math.cos(deg * DEG), Math.sin(deg * DEG), 0];
 }
 
-export function buildGeometry(scene: Scene, grid: LightMapGrid, key: string): Geometry {
+/** The map's receptor: a facing given in the grid means a flat disc (as before); otherwise the setup's receptor. */
+export function mapReceptorKind(scene: Scene, grid: LightMapGrid): MapReceptorKind {
+  if (grid.facing !== undefined) return 'flat';
+  const r = scene.options.receptor;
+  return r === 'dome-camera' ? 'dome' : r === 'flat-light' ? 'pointed' : 'flat';
+}
+
+function wallStrips(scene: Scene, z: number): WallStrip[] {
+  const out: WallStrip[] = [];
+  const cam = scene.camera;
+  scene.surfaces.forEach((s, i) => {
+    const ex = s.x2 - s.x1;
+    const ey = s.y2 - s.y1;
+    const len = Math.hypot(ex, ey);
+    if (len === 0) return;
+    let nx = -ey / len;
+    let ny = ex / len;
+    if ((cam.x - s.x1) * nx + (cam.y - s.y1) * ny < 0) {
+      nx = -nx;
+      ny = -ny;
+    }
+    const count = Math.min(WALL_MAX_SAMPLES, Math.max(2, Math.ceil(len / WALL_SAMPLE_M)));
+    const h = Math.min(s.topM, Math.max(s.baseM, z));
+    const receptors: FieldReceptor[] = [];
+    for (let k = 0; k < count; k++) {
+      const t = (k + 0.5) / count;
+      receptors.push({ x: s.x1 + ex * t + nx * 1e-3, y: s.y1 + ey * t + ny * 1e-3, z: h, nx, ny, nz: 0, kind: 'flat' });
+    }
+    out.push({ surfaceIndex: i, surfaceId: s.id, receptors, x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, nx, ny });
+  });
+  return out;
+}
+
+export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geometry {
+  const scene = room.scene;
+  const kind = mapReceptorKind(scene, grid);
   const nx = grid.nx;
   const ny = grid.ny;
   const dx = (grid.x1 - grid.x0) / (nx - 1);
@@ -78,58 +170,64 @@ export function buildGeometry(scene: Scene, grid: LightMapGrid, key: string): Ge
   const py = new Float64Array(n);
   const nxs = new Float64Array(n);
   const nys = new Float64Array(n);
+  const nzs = new Float64Array(n);
+  const body = bodyOccluders(scene);
+  const inBody = body ? new Uint8Array(n) : null;
   for (let j = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++) {
       const k = j * nx + i;
-      px[k] = grid.x0 + i * dx;
-      py[k] = grid.y0 + j * dy;
-      receptorNormal(grid.facing, scene, px[k]!, py[k]!, nxs, nys, k);
+      const x = grid.x0 + i * dx;
+      const y = grid.y0 + j * dy;
+      px[k] = x;
+      py[k] = y;
+      const nrm = normalAt(kind, grid.facing, scene, x, y, z);
+      nxs[k] = nrm[0];
+      nys[k] = nrm[1];
+      nzs[k] = nrm[2];
+      if (body && inBody && z <= scene.subject.body!.topM && insideBody(body, x, y)) inBody[k] = 1;
     }
   }
-  const occ = buildOccluders(scene);
-  const bounceOn = scene.options.bounce;
-  const patches = buildPatches(bounceOn ? scene : { ...scene, surfaces: [] }, grid.patchSizeM ?? DEFAULT_MAP_PATCH_M, MAP_MAX_PATCHES_PER_SURFACE);
   const step = Math.max(1, Math.floor(grid.bounceStep ?? DEFAULT_BOUNCE_STEP));
   const kx = Math.ceil((nx - 1) / step) + 1;
   const ky = Math.ceil((ny - 1) / step) + 1;
   const nK = kx * ky;
   const coarseFrame: GridFrame = { nx: kx, ny: ky, x0: grid.x0, y0: grid.y0, dx: dx * step, dy: dy * step };
-  const cx = new Float64Array(nK);
-  const cy = new Float64Array(nK);
-  const cnx = new Float64Array(nK);
-  const cny = new Float64Array(nK);
+  const coarseR: FieldReceptor[] = [];
+  const coarseIn = new Uint8Array(nK);
   for (let b = 0; b < ky; b++) {
     for (let a = 0; a < kx; a++) {
-      const k = b * kx + a;
-      cx[k] = grid.x0 + a * coarseFrame.dx;
-      cy[k] = grid.y0 + b * coarseFrame.dy;
-      receptorNormal(grid.facing, scene, cx[k]!, cy[k]!, cnx, cny, k);
+      const x = grid.x0 + a * coarseFrame.dx;
+      const y = grid.y0 + b * coarseFrame.dy;
+      const nrm = normalAt(kind, grid.facing, scene, x, y, z);
+      coarseR.push({ x, y, z, nx: nrm[0], ny: nrm[1], nz: nrm[2], kind: kind === 'flat' ? 'flat' : 'dome' });
+      // Bounce is interpolated between coarse points: those within a coarse cell of the body take the subject's
+      // own view (no body in the way), so the subject's point is not blended with points in its shadow.
+      if (body && z <= scene.subject.body!.topM) {
+        for (const [ox, oy] of [[0, 0], [1, 0], [-1, 0], [0, 1], [0, -1], [1, 1], [1, -1], [-1, 1], [-1, -1]] as const) {
+          if (insideBody(body, x + ox * coarseFrame.dx, y + oy * coarseFrame.dy)) coarseIn[b * kx + a] = 1;
+        }
+      }
     }
   }
-  const kernel = new Float64Array(patches.count * nK);
+  // Bounce kernel on the meter's own fine patches: each patch's response at each coarse point (the meter's
+  // patch response, exact near the patch), times the shadows cast from the patch centre.
+  const P = room.patches;
+  const kernel = new Float32Array(P.count * nK);
   const shade = new Float32Array(nK);
-  for (let p = 0; p < patches.count; p++) {
-    const pcx = patches.cx[p]!;
-    const pcy = patches.cy[p]!;
-    const pnx = patches.nx[p]!;
-    const pny = patches.ny[p]!;
-    const area = patches.area[p]!;
-    const soft = area / Math.PI;
-    const vz = z - patches.cz[p]!;
-    const vz2 = vz * vz;
+  const shadeBody = new Float32Array(nK);
+  for (let p = 0; p < P.count; p++) {
     shade.fill(1);
-    castShadows(occ, pcx, pcy, patches.cz[p]!, z, coarseFrame, shade, patches.surface[p]!);
+    castShadows(room.occFree, P.cx[p]!, P.cy[p]!, P.cz[p]!, z, coarseFrame, shade, P.surface[p]!);
+    if (body) {
+      shadeBody.fill(1);
+      castShadows(body, P.cx[p]!, P.cy[p]!, P.cz[p]!, z, coarseFrame, shadeBody);
+    }
     const base = p * nK;
     for (let k = 0; k < nK; k++) {
-      // Point form A·cosθe·cosθr/(r² + A/π), signed by the side of the patch the point is on.
-      const vx = cx[k]! - pcx;
-      const vy = cy[k]! - pcy;
-      const nd = vx * pnx + vy * pny;
-      if (nd === 0) continue;
-      const cosRr = -(vx * cnx[k]! + vy * cny[k]!); // × r
-      if (cosRr <= 0) continue;
-      const r2 = vx * vx + vy * vy + vz2;
-      kernel[base + k] = (nd * cosRr * area * shade[k]!) / (r2 * (r2 + soft));
+      const t = shade[k]! * (body && coarseIn[k] === 0 ? shadeBody[k]! : 1);
+      if (t === 0) continue;
+      const f = patchResponse(P, p, coarseR[k]!, 2);
+      if (f !== 0) kernel[base + k] = f * t;
     }
   }
   return {
@@ -137,31 +235,89 @@ export function buildGeometry(scene: Scene, grid: LightMapGrid, key: string): Ge
     frame: { nx, ny, x0: grid.x0, y0: grid.y0, dx, dy },
     n,
     z,
+    kind,
     px,
     py,
     nxs,
     nys,
-    occ,
-    patches,
-    optics: surfaceOptics(scene),
+    nzs,
+    occ: room.occFree,
+    body,
+    inBody,
     step,
     kx,
     ky,
+    coarseFrame,
     kernel,
+    walls: wallStrips(scene, z),
   };
 }
 
-/** Direct exposure of one light at every grid point (hot loop: no allocation, no acos/pow, no ray tests). */
-export function directGrid(L: PreparedLight, g: Geometry, out: Float32Array): void {
+/** Shadows of one light on the grid: walls and flags from the light (or the nine points of a big face), then the body. */
+function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
+  out.fill(1);
+  if (L.face) {
+    out.fill(0);
+    const pts = faceSamplePoints(L, L.face);
+    for (const [sx, sy, sz] of pts) {
+      tmp.fill(1);
+      castShadows(g.occ, sx, sy, sz, g.z, g.frame, tmp);
+      for (let k = 0; k < g.n; k++) out[k]! += tmp[k]!;
+    }
+    const inv = 1 / pts.length;
+    for (let k = 0; k < g.n; k++) out[k]! *= inv;
+  } else castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
+  if (g.body && g.inBody) {
+    tmp.fill(1);
+    castShadows(g.body, L.px, L.py, L.pz, g.z, g.frame, tmp);
+    const inB = g.inBody;
+    for (let k = 0; k < g.n; k++) if (inB[k] === 0) out[k]! *= tmp[k]!;
+  }
+}
+
+const rBuf: FieldReceptor = { x: 0, y: 0, z: 0, nx: 1, ny: 0, nz: 0, kind: 'flat' };
+
+/** The exact area-source light at grid point k before shadows (the meter's polygon integral). */
+function areaAt(L: RoomLight, g: Geometry, k: number): number {
+  const x = g.px[k]!;
+  const y = g.py[k]!;
+  const dx = x - L.px;
+  const dy = y - L.py;
+  const dz = g.z - L.pz;
+  const d = Math.hypot(dx, dy, dz);
+  const cosOff = d > 1e-6 ? (dx * L.ax + dy * L.ay + dz * L.az) / d : 1;
+  if (cosOff <= 1e-9 && L.modifier.backSpill <= 0) return 0;
+  rBuf.x = x;
+  rBuf.y = y;
+  rBuf.z = g.z;
+  if (g.kind === 'pointed') {
+    rBuf.nx = d > 1e-6 ? -dx / d : 1;
+    rBuf.ny = d > 1e-6 ? -dy / d : 0;
+    rBuf.nz = d > 1e-6 ? -dz / d : 0;
+    rBuf.kind = 'flat';
+  } else {
+    rBuf.nx = g.nxs[k]!;
+    rBuf.ny = g.nys[k]!;
+    rBuf.nz = g.nzs[k]!;
+    rBuf.kind = g.kind === 'dome' ? 'dome' : 'flat';
+  }
+  return areaUnshaded(L, L.face!, rBuf, cosOff);
+}
+
+/**
+ * Direct exposure of one light at every grid point, lux·s, as the meter's directLight: beam profile, the
+ * receptor's response (flat: cos i; dome: (1 + cos i)/2; pointed: 1), near-field term, shadows (soft from
+ * a big face's nine points). Big faces: the exact polygon integral on the coarse grid and near the light,
+ * its ratio to the point form interpolated between (coarse, then refined where it changes fast).
+ */
+export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
   const I = L.axialCdS;
   if (I <= 0) {
     out.fill(0);
     return;
   }
-  // Shadows first, as a transmission grid; then the geometry per point.
-  out.fill(1);
-  castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
-  const { px, py, nxs, nys, n } = g;
+  shadowGrid(L, g, out, tmp);
+  const { px, py, nxs, nys, nzs, n } = g;
   const lpx = L.px;
   const lpy = L.py;
   const lax = L.ax;
@@ -172,16 +328,23 @@ export function directGrid(L: PreparedLight, g: Geometry, out: Float32Array): vo
   const R2 = L.faceR2;
   const lut = L.lut;
   const last = PROFILE_LUT_SIZE - 1;
+  const kind = g.kind === 'dome' ? 1 : g.kind === 'pointed' ? 2 : 0;
+  const onWall = L.onWalls.length > 0;
+  const face = L.face;
+  // For big faces keep the point form (with shadows) to scale by the exact/point ratio below.
+  const pf = face ? tmp : null;
   for (let k = 0; k < n; k++) {
     const t = out[k]!;
+    if (pf) pf[k] = 0;
     if (t === 0) continue;
     const dx = px[k]! - lpx;
     const dy = py[k]! - lpy;
     const d2 = dx * dx + dy * dy + dz2;
     // A grid point on the light itself: directions are undefined; the clamp keeps every cosine in [−1, 1].
     const invD = 1 / Math.sqrt(d2 > 1e-12 ? d2 : 1e-12);
-    const cosInc = -(dx * nxs[k]! + dy * nys[k]!) * invD;
-    if (!(cosInc > 0)) {
+    const cosInc = -(dx * nxs[k]! + dy * nys[k]! + dz * nzs[k]!) * invD;
+    const resp = kind === 0 ? cosInc : kind === 1 ? (1 + cosInc) * 0.5 : 1;
+    if (!(resp > 1e-9) || (onWall && behindOwnWall(L, px[k]!, py[k]!))) {
       out[k] = 0;
       continue;
     }
@@ -192,6 +355,97 @@ export function directGrid(L: PreparedLight, g: Geometry, out: Float32Array): vo
     const a = lut[j]!;
     const prof = a + (lut[j + 1]! - a) * (f - j);
     const e2 = d2 + R2;
-    out[k] = (I * prof * cosInc * t) / (e2 > MIN_DISTANCE_SQ_M2 ? e2 : MIN_DISTANCE_SQ_M2);
+    const v = (I * prof * resp * t) / (e2 > MIN_DISTANCE_SQ_M2 ? e2 : MIN_DISTANCE_SQ_M2);
+    out[k] = v;
+    if (pf) pf[k] = (I * prof * resp) / (e2 > MIN_DISTANCE_SQ_M2 ? e2 : MIN_DISTANCE_SQ_M2);
+  }
+  if (face && pf) areaCorrection(L, g, out, pf);
+}
+
+/**
+ * Big faces: out holds point form × shadows, pf the point form alone. The exact value's ratio to the point
+ * form is found on the coarse grid and interpolated; points near the light, and coarse cells whose corners
+ * disagree by over a factor of two (a face's horizon crossing the cell), are computed exactly.
+ */
+function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float32Array): void {
+  const { nx, ny } = g.frame;
+  // The ratio varies slowly away from the face: found every AREA_RATIO_STEP bounce cells.
+  const st = g.step * AREA_RATIO_STEP;
+  const kx = Math.ceil((nx - 1) / st) + 1;
+  const ky = Math.ceil((ny - 1) / st) + 1;
+  const ratio = new Float64Array(kx * ky);
+  const idx = (a: number, b: number) => Math.min(ny - 1, b * st) * nx + Math.min(nx - 1, a * st);
+  for (let b = 0; b < ky; b++) {
+    for (let a = 0; a < kx; a++) {
+      const k = idx(a, b);
+      const p = pf[k]!;
+      const e = areaAt(L, g, k);
+      ratio[b * kx + a] = p > 0 ? e / p : e > 0 ? NaN : 1;
+    }
+  }
+  const near = AREA_REFINE_RADII * Math.sqrt(L.faceR2);
+  const near2 = near * near;
+  const dz2 = (g.z - L.pz) * (g.z - L.pz);
+  const cb = ky > 1 ? ky - 2 : 0;
+  const ca = kx > 1 ? kx - 2 : 0;
+  const at = (a: number, b: number) => ratio[Math.min(b, ky - 1) * kx + Math.min(a, kx - 1)]!;
+  // Cells whose corner ratios disagree by over a factor AREA_RATIO_SPREAD (or are undefined) are computed exactly throughout.
+  const exact = new Uint8Array(kx * ky);
+  for (let b = 0; b <= cb; b++) {
+    for (let a = 0; a <= ca; a++) {
+      const r00 = at(a, b);
+      const r10 = at(a + 1, b);
+      const r01 = at(a, b + 1);
+      const r11 = at(a + 1, b + 1);
+      const lo = Math.min(r00, r10, r01, r11);
+      const hi = Math.max(r00, r10, r01, r11);
+      if (Number.isNaN(lo + hi) || hi > lo * AREA_RATIO_SPREAD) exact[b * kx + a] = 1;
+    }
+  }
+  for (let j = 0; j < ny; j++) {
+    const b = Math.min(Math.floor(j / st), cb);
+    const j0 = b * st;
+    const j1 = Math.min(ny - 1, (b + 1) * st);
+    const fy = j1 > j0 ? (j - j0) / (j1 - j0) : 0;
+    for (let i = 0; i < nx; i++) {
+      const k = j * nx + i;
+      const p = pf[k]!;
+      if (!(p > 0)) continue;
+      const t = out[k]! / p;
+      const a = Math.min(Math.floor(i / st), ca);
+      const ddx = g.px[k]! - L.px;
+      const ddy = g.py[k]! - L.py;
+      if (exact[b * kx + a] === 1 || ddx * ddx + ddy * ddy + dz2 < near2) {
+        out[k] = areaAt(L, g, k) * t;
+        continue;
+      }
+      const i0 = a * st;
+      const i1 = Math.min(nx - 1, (a + 1) * st);
+      const fx = i1 > i0 ? (i - i0) / (i1 - i0) : 0;
+      const r = (at(a, b) * (1 - fx) + at(a + 1, b) * fx) * (1 - fy) + (at(a, b + 1) * (1 - fx) + at(a + 1, b + 1) * fx) * fy;
+      out[k] = p * r * t;
+    }
+  }
+}
+
+/** Each light's bounce on the coarse grid: Σ patches kernel × that light's patch luminance (Y) on the side seen. */
+export function bounceCoarse(room: Room, L: RoomLight, g: Geometry, out: Float64Array): void {
+  out.fill(0);
+  const lum = room.lum[L.index];
+  if (!lum || L.axialCdS <= 0) return;
+  const P = room.patches;
+  const nK = g.kx * g.ky;
+  const K = g.kernel;
+  for (let p = 0; p < P.count; p++) {
+    const o = 6 * p;
+    const yf = 0.2126 * lum[o]! + 0.7152 * lum[o + 1]! + 0.0722 * lum[o + 2]!;
+    const yb = 0.2126 * lum[o + 3]! + 0.7152 * lum[o + 4]! + 0.0722 * lum[o + 5]!;
+    if (yf === 0 && yb === 0) continue;
+    const base = p * nK;
+    for (let k = 0; k < nK; k++) {
+      const f = K[base + k]!;
+      if (f > 0) out[k]! += f * yf;
+      else if (f < 0) out[k]! -= f * yb;
+    }
   }
 }

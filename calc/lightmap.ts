@@ -1,24 +1,23 @@
 /**
- * The light map: exposure over a horizontal grid at subject height, in stops relative to the subject, with
- * one-stop contour lines. Built for drag frames: a cache keeps one direct-light grid per light and the
- * bounce kernels of the room, so moving one light recomputes that light's grid and a small bounce sum.
+ * The light map: exposure over a horizontal grid at subject height, in stops relative to the meter's own
+ * reading at the subject, with one-stop contour lines (and their SVG paths, ready to draw) and the tone the
+ * camera records along each wall. Built for drag frames: a cache keeps one direct-light grid and one coarse
+ * bounce grid per light, so moving one light recomputes that light alone.
  *
- * Model (coarser than the meter, documented in README.md):
- * - direct light: exactly as the meter (beam profile, cosine on the receptor, near-field term, plan
- *   occlusion with height ranges), at every grid point;
- * - bounce: surfaces split into patches of `patchSizeM` (default 1 m), patch → point by the point form
- *   A·cosθe·cosθr/(r² + A/π) with occlusion tested from the patch centre, evaluated on a grid `bounceStep`
- *   times coarser (default 4) and interpolated bilinearly. Bounce varies slowly, except right at walls and
- *   behind flags, where the interpolation blurs it over one coarse cell.
+ * Model: the meter's (room.ts, see README.md) — the same lights (area faces), occluders (the subject's body
+ * shades what is behind it), patches on walls, floor and ceiling with every bounce; the receptor is the
+ * setup's (a dome pointed at the camera from each point, a flat disc along the face, or pointed at each
+ * light). Direct light at every point; bounce on a grid `bounceStep` times coarser (default 4), interpolated.
  */
 import { contourLines, type ContourLevel } from './contours';
 import { contourLinesD3 } from './contours-d3';
-import { type Geometry, buildGeometry, directGrid } from './lightmap-grid';
-import { DARK_LUX_SECONDS } from './meter';
-import { type PreparedLight, prepareLight } from './prepare';
-import { type Scene, type SceneInput, parseScene } from './scene';
-import { directAt, patchFormFactor, patchIncident, reflectedLuminance, transmissionAlong } from './transport';
-import { DEG } from './vec';
+import { luxFromEv100, luxSecondsForAperture } from './exposure';
+import { kelvinToLinearRgb, relativeLuminance, type Rgb } from './colour';
+import { type Geometry, bounceCoarse, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
+import { DARK_LUX_SECONDS, recordedTone } from './meter';
+import type { RecordedTone } from './results';
+import { type Room, type RoomLight, buildRoom, coarseBounceInto, directLight, gather, subjectReceptors } from './room';
+import { type Scene, type SceneInput, parseScene } from './sceneSchema';
 
 /** Where to compute the map. Grid point (i, j) is at (x0 + i·(x1−x0)/(nx−1), y0 + j·(y1−y0)/(ny−1)). */
 export type LightMapGrid = {
@@ -31,14 +30,14 @@ export type LightMapGrid = {
   /** Height of the map plane, m; default the subject's height. */
   heightM?: number;
   /**
-   * Receptor facing at each point: 'subject' (default: the subject's facing, as if the subject stood there),
-   * 'camera' (each point faces the camera on the plan), or a plan angle in degrees.
+   * Receptor at each point. Default: the setup's receptor (scene.options.receptor) — a dome pointed at the
+   * camera, a flat disc along the subject's facing, or a flat disc pointed at each light — so the map reads the
+   * meter's value at the subject. Given: a flat disc facing 'subject' (the subject's facing), 'camera' (each
+   * point faces the camera on the plan) or a plan angle in degrees.
    */
   facing?: 'subject' | 'camera' | number;
   /** Bounce is computed every bounceStep points and interpolated (default 4; 1 = every point). */
   bounceStep?: number;
-  /** Bounce patch size for the map, m (default 1). */
-  patchSizeM?: number;
   /** Stops value given to unlit or very dark points (default −10). */
   floorStops?: number;
   /** Contour spacing in stops (default 1). */
@@ -54,6 +53,29 @@ export type LightMapGrid = {
   contourEngine?: 'fast' | 'd3';
 };
 
+/** One contour level as SVG path data in plan metres (traced where the map is computed; the UI only draws it). */
+export type ContourPath = {
+  stops: number;
+  /** "M x,y L x,y …" for every line of the level, coordinates rounded to the millimetre. */
+  d: string;
+  /** Where the level's label goes (the middle of its longest line), or null for a level too short to label. */
+  label: [number, number] | null;
+};
+
+/** The tone the camera records along one wall, on the side the camera is on (the meter's recorded tone). */
+export type WallTone = {
+  surfaceId: string;
+  x1: number;
+  y1: number;
+  x2: number;
+  y2: number;
+  /** Unit normal on the plan towards the camera's side (draw the strip on this side). */
+  nx: number;
+  ny: number;
+  /** Evenly spaced along the wall from end 1 to end 2, at the map's height (clamped to the wall). */
+  samples: RecordedTone[];
+};
+
 export type LightMapResult = {
   nx: number;
   ny: number;
@@ -64,18 +86,22 @@ export type LightMapResult = {
   dxM: number;
   dyM: number;
   heightM: number;
+  /** What each point reads: 'dome' pointed at the camera, 'flat' disc (along the face or the given facing), or 'pointed' at each light. */
+  receptor: 'dome' | 'flat' | 'pointed';
   /** Stops relative to the reference, row-major (index j·nx + i), clamped to [floorStops, +30]. */
   stops: Float32Array;
   /** Luminous exposure from all lights, lux·s, same layout. */
   luxSeconds: Float32Array;
   /** Exposure the stops are relative to, lux·s. */
   referenceLuxSeconds: number;
-  /** 'subject': the subject's exposure under the map's model; 'brightest': the subject is unlit, so the brightest point. */
+  /** 'subject': the meter's exposure reading at the subject (its receptor); 'brightest': the subject is unlit, so the brightest point. */
   reference: 'subject' | 'brightest';
   floorStops: number;
   minStops: number;
   maxStops: number;
   contours: ContourLevel[];
+  contourPaths: ContourPath[];
+  walls: WallTone[];
 };
 
 /** What the last update recomputed, for tests and the benchmark. */
@@ -92,61 +118,67 @@ export type LightMapCache = {
 
 type LightEntry = {
   key: string;
-  prepared: PreparedLight;
   direct: Float32Array;
-  /** Luminance of each patch lit by this light (cd·s/m²), for receptors on its front and its back. */
-  lumFront: Float64Array;
-  lumBack: Float64Array;
+  /** Bounce of this light on the coarse grid, lux·s. */
+  bounce: Float64Array;
+  /** Direct light at each wall sample, linear sRGB lux·s, [3·sample + c] over the walls in order. */
+  walls: Float64Array;
 };
 
 const DEFAULT_CONTOUR_MIN_STOPS = -6;
 /** Points far brighter than a barely lit subject are clamped here, which keeps the contour count bounded. */
 const MAP_CEILING_STOPS = 30;
 
-function lightEntry(L: PreparedLight, key: string, g: Geometry): LightEntry {
+function lightEntry(room: Room, L: RoomLight, g: Geometry, tmp: Float32Array): LightEntry {
   const direct = new Float32Array(g.n);
-  directGrid(L, g, direct);
-  const P = g.patches;
-  const incident = new Float64Array(P.count);
-  const lumFront = new Float64Array(P.count);
-  const lumBack = new Float64Array(P.count);
-  if (P.count > 0) {
-    patchIncident(L, P, g.occ, incident);
-    for (let p = 0; p < P.count; p++) {
-      const e = incident[p]!;
-      if (e === 0) continue;
-      const o = g.optics[P.surface[p]!]!;
-      if (e > 0) lumFront[p] = (e * reflectedLuminance(L.rgb, o.front.rgb)) / Math.PI;
-      else lumBack[p] = (-e * reflectedLuminance(L.rgb, o.back.rgb)) / Math.PI;
+  directGrid(L, g, direct, tmp);
+  const bounce = new Float64Array(g.kx * g.ky);
+  bounceCoarse(room, L, g, bounce);
+  let count = 0;
+  for (const w of g.walls) count += w.receptors.length;
+  const walls = new Float64Array(3 * count);
+  let m = 0;
+  for (const w of g.walls) {
+    for (const r of w.receptors) {
+      const h = directLight(L, room.occ, r).luxSeconds;
+      walls[m++] = h * L.rgb[0];
+      walls[m++] = h * L.rgb[1];
+      walls[m++] = h * L.rgb[2];
     }
   }
-  return { key, prepared: L, direct, lumFront, lumBack };
+  return { key: L.key, direct, bounce, walls };
 }
 
-/** The same model at one receptor (used for the subject reference). */
-function modelAt(
-  entries: LightEntry[],
-  g: Geometry,
-  x: number,
-  y: number,
-  z: number,
-  nx: number,
-  ny: number,
-  sumFront: Float64Array,
-  sumBack: Float64Array,
-): number {
-  let h = 0;
-  for (const e of entries) h += directAt(e.prepared, g.occ, x, y, z, nx, ny, 0).luxSeconds;
-  const P = g.patches;
-  const r = { x, y, z, nx, ny, nz: 0 };
-  for (let p = 0; p < P.count; p++) {
-    const f = patchFormFactor(P, p, r, 0);
-    if (f === 0) continue;
-    const lum = f > 0 ? sumFront[p]! : sumBack[p]!;
-    if (lum === 0) continue;
-    h += lum * Math.abs(f) * transmissionAlong(g.occ, P.cx[p]!, P.cy[p]!, P.cz[p]!, x, y, z, P.surface[p]!);
+/** The meter's exposure reading at the subject (its receptor; the room's caches answer it after the meter ran). */
+function subjectReading(room: Room): number {
+  const scene = room.scene;
+  const at = subjectReceptors(scene);
+  const sum = (gs: { direct: number; bounce: number }[]) => gs.reduce((s, x) => s + x.direct + x.bounce, 0);
+  switch (scene.options.receptor) {
+    case 'dome-camera':
+      return sum(gather(room, at.dome, true));
+    case 'flat-light':
+      return room.lights.reduce((s, L, i) => s + sum(gather(room, at.pointedAt(L), true, i)), 0);
+    default:
+      return sum(gather(room, at.face, true));
   }
-  return h;
+}
+
+/** SVG path data of each contour level, with a label point on its longest line. */
+export function contourPaths(levels: ContourLevel[]): ContourPath[] {
+  const r = (v: number) => Math.round(v * 1000) / 1000;
+  return levels.map((level) => {
+    let d = '';
+    let longest: [number, number][] | null = null;
+    for (const line of level.lines) {
+      if (line.length < 2) continue;
+      d += `M${r(line[0]![0])},${r(line[0]![1])}`;
+      for (let k = 1; k < line.length; k++) d += `L${r(line[k]![0])},${r(line[k]![1])}`;
+      if (!longest || line.length > longest.length) longest = line;
+    }
+    const mid = longest && longest.length > 12 ? longest[Math.floor(longest.length / 2)]! : null;
+    return { stops: level.stops, d, label: mid ? [r(mid[0]), r(mid[1])] : null };
+  });
 }
 
 function validateGrid(grid: LightMapGrid): void {
@@ -156,10 +188,17 @@ function validateGrid(grid: LightMapGrid): void {
   if (!ok) throw new Error('invalid light map grid: nx, ny must be integers 2–2048 and x0 ≠ x1, y0 ≠ y1 finite');
 }
 
+/** Per-channel white-balance gains of the camera (as the meter's recorded tones). */
+function whiteBalanceGains(scene: Scene): Rgb {
+  const w = kelvinToLinearRgb(scene.camera.whiteBalanceK);
+  const y = relativeLuminance(w);
+  return [y / w[0], y / w[1], y / w[2]];
+}
+
 export function createLightMapCache(): LightMapCache {
   let geometry: Geometry | null = null;
-  let commonKey = '';
   let entries = new Map<string, LightEntry>();
+  let tmp = new Float32Array(0);
   const stats: LightMapStats = { geometryRebuilt: false, lightsRecomputed: 0, lightsReused: 0 };
 
   function updateParsed(scene: Scene, grid: LightMapGrid): LightMapResult {
@@ -167,98 +206,71 @@ export function createLightMapCache(): LightMapCache {
     stats.geometryRebuilt = false;
     stats.lightsRecomputed = 0;
     stats.lightsReused = 0;
+    // The meter's room: after meterParsed on the same scene, its geometry, bounces and subject readings are cached.
+    const room = buildRoom(scene);
     const { skipContours: _s, floorStops: _f, contourStepStops: _c, contourMinStops: _m, contourEngine: _e, ...gridGeom } = grid;
+    const kind = mapReceptorKind(scene, grid);
     const gKey = JSON.stringify([
-      scene.surfaces,
-      scene.flags,
+      room.geometryKey,
       gridGeom,
-      scene.options.bounce,
-      grid.facing === 'camera' ? [scene.camera.x, scene.camera.y] : 0,
-      grid.facing === undefined || grid.facing === 'subject' ? scene.subject.facingDeg : 0,
-      grid.heightM ?? scene.subject.heightM,
+      kind,
+      kind !== 'flat' || grid.facing === 'camera' ? [scene.camera.x, scene.camera.y, scene.camera.heightM] : 0,
+      [scene.camera.x, scene.camera.y],
     ]);
     if (!geometry || geometry.key !== gKey) {
-      geometry = buildGeometry(scene, grid, gKey);
+      geometry = buildGeometry(room, grid, gKey);
       entries = new Map();
       stats.geometryRebuilt = true;
     }
     const g = geometry;
-    // Inputs every light depends on: continuous lights scale with the shutter; C and efficiency with options.
-    const cKey = JSON.stringify([scene.camera.shutterS, scene.options.calibrationC, scene.options.flashCdSPerWs]);
-    if (cKey !== commonKey) {
-      entries = new Map();
-      commonKey = cKey;
-    }
+    if (tmp.length !== g.n) tmp = new Float32Array(g.n);
     const next = new Map<string, LightEntry>();
     const list: LightEntry[] = [];
-    scene.lights.forEach((l, i) => {
-      const key = JSON.stringify(l);
-      const old = entries.get(l.id);
+    for (const L of room.lights) {
+      const old = entries.get(L.light.id);
       let e: LightEntry;
-      if (old && old.key === key) {
+      if (old && old.key === L.key) {
         e = old;
         stats.lightsReused++;
       } else {
-        e = lightEntry(prepareLight(l, i, scene), key, g);
+        e = lightEntry(room, L, g, tmp);
         stats.lightsRecomputed++;
       }
-      next.set(l.id, e);
+      next.set(L.light.id, e);
       list.push(e);
-    });
+    }
     entries = next;
 
-    // Sum of the lights: direct grids, and patch luminances for the bounce kernel.
+    // Sum of the lights: direct grids, and the coarse bounce interpolated once.
     const n = g.n;
-    const P = g.patches;
     const H = new Float64Array(n);
     for (const e of list) {
       const d = e.direct;
       for (let k = 0; k < n; k++) H[k]! += d[k]!;
     }
-    const sumFront = new Float64Array(P.count);
-    const sumBack = new Float64Array(P.count);
-    for (const e of list) {
-      for (let p = 0; p < P.count; p++) {
-        sumFront[p]! += e.lumFront[p]!;
-        sumBack[p]! += e.lumBack[p]!;
-      }
-    }
-    if (P.count > 0) {
-      const nK = g.kx * g.ky;
-      const coarse = new Float64Array(nK);
-      for (let p = 0; p < P.count; p++) {
-        const lf = sumFront[p]!;
-        const lb = sumBack[p]!;
-        if (lf === 0 && lb === 0) continue;
-        const base = p * nK;
-        for (let k = 0; k < nK; k++) {
-          const f = g.kernel[base + k]!;
-          if (f > 0) coarse[k]! += f * lf;
-          else if (f < 0) coarse[k]! -= f * lb;
-        }
-      }
-      // Bilinear interpolation of the coarse bounce onto the grid.
-      const { nx, ny } = g.frame;
-      const st = g.step;
-      const kx = g.kx;
-      for (let j = 0; j < ny; j++) {
-        const b = Math.min(Math.floor(j / st), g.ky - 2 < 0 ? 0 : g.ky - 2);
-        const fy = g.ky > 1 ? (j - b * st) / st : 0;
-        for (let i = 0; i < nx; i++) {
-          const a = Math.min(Math.floor(i / st), kx - 2 < 0 ? 0 : kx - 2);
-          const fx = kx > 1 ? (i - a * st) / st : 0;
-          const c00 = coarse[b * kx + a]!;
-          const c10 = coarse[b * kx + a + 1] ?? c00;
-          const c01 = coarse[(b + 1) * kx + a] ?? c00;
-          const c11 = coarse[(b + 1) * kx + a + 1] ?? c00;
-          H[j * nx + i]! += (c00 * (1 - fx) + c10 * fx) * (1 - fy) + (c01 * (1 - fx) + c11 * fx) * fy;
-        }
+    const nK = g.kx * g.ky;
+    const coarse = new Float64Array(nK);
+    for (const e of list) for (let k = 0; k < nK; k++) coarse[k]! += e.bounce[k]!;
+    const { nx, ny } = g.frame;
+    const st = g.step;
+    const kx = g.kx;
+    for (let j = 0; j < ny; j++) {
+      const b = Math.min(Math.floor(j / st), g.ky - 2 < 0 ? 0 : g.ky - 2);
+      const j1 = Math.min(ny - 1, (b + 1) * st);
+      const fy = g.ky > 1 ? (j - b * st) / (j1 - b * st) : 0;
+      for (let i = 0; i < nx; i++) {
+        const a = Math.min(Math.floor(i / st), kx - 2 < 0 ? 0 : kx - 2);
+        const i1 = Math.min(nx - 1, (a + 1) * st);
+        const fx = kx > 1 ? (i - a * st) / (i1 - a * st) : 0;
+        const c00 = coarse[b * kx + a]!;
+        const c10 = coarse[b * kx + a + 1] ?? c00;
+        const c01 = coarse[(b + 1) * kx + a] ?? c00;
+        const c11 = coarse[(b + 1) * kx + a + 1] ?? c00;
+        H[j * nx + i]! += (c00 * (1 - fx) + c10 * fx) * (1 - fy) + (c01 * (1 - fx) + c11 * fx) * fy;
       }
     }
 
-    const s = scene.subject;
-    const sn: [number, number] = [Math.cos(s.facingDeg * DEG), Math.sin(s.facingDeg * DEG)];
-    let ref = modelAt(list, g, s.x, s.y, s.heightM, sn[0], sn[1], sumFront, sumBack);
+    let ref = subjectReading(room);
     let reference: LightMapResult['reference'] = 'subject';
     if (!(ref > DARK_LUX_SECONDS)) {
       ref = 0;
@@ -289,8 +301,8 @@ export function createLightMapCache(): LightMapCache {
           grid.contourMinStops ?? DEFAULT_CONTOUR_MIN_STOPS,
         );
     return {
-      nx: g.frame.nx,
-      ny: g.frame.ny,
+      nx,
+      ny,
       x0: grid.x0,
       y0: grid.y0,
       x1: grid.x1,
@@ -298,6 +310,7 @@ export function createLightMapCache(): LightMapCache {
       dxM: g.frame.dx,
       dyM: g.frame.dy,
       heightM: g.z,
+      receptor: g.kind,
       stops,
       luxSeconds: lux,
       referenceLuxSeconds: ref,
@@ -306,6 +319,8 @@ export function createLightMapCache(): LightMapCache {
       minStops: minS,
       maxStops: maxS,
       contours,
+      contourPaths: contourPaths(contours),
+      walls: wallTones(room, g, list),
     };
   }
 
@@ -316,9 +331,38 @@ export function createLightMapCache(): LightMapCache {
     clear() {
       geometry = null;
       entries = new Map();
-      commonKey = '';
     },
   };
+}
+
+/** The recorded tone along each wall: every light's direct light (cached per light), the room's coarse bounce and the ambient, × the wall's colour × white balance, vs a correctly exposed mid-grey. */
+function wallTones(room: Room, g: Geometry, list: LightEntry[]): WallTone[] {
+  const scene = room.scene;
+  const cam = scene.camera;
+  const correctH = luxSecondsForAperture(cam.aperture, cam.iso, scene.options.calibrationC) * Math.pow(2, cam.ndStops);
+  const gains = whiteBalanceGains(scene);
+  const amb = scene.ambient ? kelvinToLinearRgb(scene.ambient.kelvin) : null;
+  const ambH = scene.ambient ? luxFromEv100(scene.ambient.ev100, scene.options.calibrationC) * cam.shutterS : 0;
+  let m = 0;
+  return g.walls.map((w) => {
+    const s = scene.surfaces[w.surfaceIndex]!;
+    const front = -(s.y2 - s.y1) * w.nx + (s.x2 - s.x1) * w.ny > 0;
+    const o = room.optics[w.surfaceIndex]!;
+    const rho = front ? o.front.rgb : o.back.rgb;
+    const samples = w.receptors.map((r) => {
+      const rgb: [number, number, number] = [0, 0, 0];
+      for (const e of list) {
+        rgb[0] += e.walls[m]!;
+        rgb[1] += e.walls[m + 1]!;
+        rgb[2] += e.walls[m + 2]!;
+      }
+      m += 3;
+      coarseBounceInto(room, r, false, false, rgb);
+      if (amb) for (let c = 0; c < 3; c++) rgb[c] = rgb[c]! + ambH * amb[c]!;
+      return recordedTone(rgb, rho, gains, correctH);
+    });
+    return { surfaceId: w.surfaceId, x1: w.x1, y1: w.y1, x2: w.x2, y2: w.y2, nx: w.nx, ny: w.ny, samples };
+  });
 }
 
 /** One-off light map (no reuse between calls). */

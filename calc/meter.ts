@@ -1,22 +1,33 @@
 /**
- * The scene-level meter: what a handheld incident meter (flat receptor) would read at the subject, the
- * background and chosen points, per light and in total, plus the derived advice (power for a target
- * aperture, key:fill, ambient, sync) and the mixed colour.
+ * The scene-level meter: what a handheld incident meter would read at the subject — by the scene's receptor
+ * (flat along the face, dome pointed at the camera, or flat pointed at each light) — at the background and at
+ * chosen points, per light and in total, plus the derived advice (power for a target aperture, rims against
+ * the key, key:fill, ambient, sync), the background as the camera records it and the mixed colour.
  *
  * Light is carried as luminous exposure H (lux·s) under the camera's shutter: flash as its I·t, continuous
  * light as E·t. An incident meter reads H as the f-number N = √(H·S/C) (ISO 2720, flash form).
  */
-import { type Rgb, cctOfLinearRgb, hueHex, kelvinToLinearRgb, relativeLuminance } from './colour';
+import { type Rgb, cctOfLinearRgb, hueHex, kelvinToLinearRgb, linearRgbToHex, relativeLuminance } from './colour';
 import { apertureForFlashExposure, exposureValue, guideNumberFromCandelaSeconds, luxFromEv100, luxSecondsForAperture } from './exposure';
 import { angleOfViewDeg } from './photometry';
-import { type SurfaceOptics, buildOccluders, buildPatches, prepareLight, surfaceOptics } from './prepare';
-import type { ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice } from './readings';
-import { type LightRole, type Scene, type SceneInput, parseScene } from './scene';
-import { type Receptor, directAt, patchFormFactor, patchIncident, transmissionAlong } from './transport';
+import type { ByReceptor, ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice, RecordedTone, VsKeyAdvice } from './results';
+import { type Gathered, type Room, bodyPanels, buildRoom, gather, gatherCoarse, subjectReceptors } from './room';
+import { type LightRole, type ReceptorId, type Scene, type SceneInput, parseScene } from './sceneSchema';
+import type { Receptor } from './transport';
 import { DEG } from './vec';
 
-/** Most patches one surface is split into by the meter. */
-export const METER_MAX_PATCHES_PER_SURFACE = 400;
+export { METER_MAX_PATCHES_PER_SURFACE } from './room';
+
+/** A reading more than this many stops under the camera is shown as "—" (common practice: black in the frame). */
+export const FAR_UNDER_STOPS = 12;
+/** Mid-grey the recorded tones are relative to: an 18 % card (common practice; L* 50 is 18.4 %). */
+export const MID_GREY_REFLECTANCE = 0.18;
+/** A channel over this many stops above a correctly exposed mid-grey clips (common practice: about +2.5). */
+export const CLIP_STOPS = 2.5;
+/** Every channel under this many stops below mid-grey reads as blocked-up black (common practice: about −5). */
+export const BLOCKED_STOPS = -5;
+/** Points across the lens's field the background range is sampled at. */
+export const BACKGROUND_RANGE_SAMPLES = 15;
 
 /**
  * Exposures at or below this (lux·s) count as no light: it is some 70 stops below f/1 at ISO 100, and keeps
@@ -27,17 +38,23 @@ export const DARK_LUX_SECONDS = 1e-20;
 const safeLog2Ratio = (a: number, b: number): number | null =>
   a > DARK_LUX_SECONDS && b > DARK_LUX_SECONDS ? Math.log2(a) - Math.log2(b) : null;
 
-type PointAccum = { direct: number; bounce: number; rgb: [number, number, number] };
-
 function reading(h: number, direct: number, bounce: number, scene: Scene, correctH: number): PointReading {
-  return {
+  const stops = safeLog2Ratio(h, correctH);
+  const farUnder = stops !== null && stops < -FAR_UNDER_STOPS;
+  const r: PointReading = {
     luxSeconds: h,
     directLuxSeconds: direct,
     bounceLuxSeconds: bounce,
-    aperture: h > DARK_LUX_SECONDS ? apertureForFlashExposure(h, scene.camera.iso, scene.options.calibrationC) : null,
-    stopsVsCamera: safeLog2Ratio(h, correctH),
+    aperture: h > DARK_LUX_SECONDS && !farUnder ? apertureForFlashExposure(h, scene.camera.iso, scene.options.calibrationC) : null,
+    stopsVsCamera: farUnder ? null : stops,
   };
+  if (farUnder) r.note = `more than ${FAR_UNDER_STOPS} stops under the camera: black in the frame`;
+  else if (!(h > DARK_LUX_SECONDS)) r.note = 'no light';
+  return r;
 }
+
+/** A reading with more fields (Object.assign: object spread is slow in this engine). */
+const withReading = <T extends object>(r: PointReading, more: T): PointReading & T => Object.assign(more, r);
 
 function colourReading(rgb: Rgb, wbK: number): ColourReading | null {
   const y = relativeLuminance(rgb);
@@ -50,35 +67,21 @@ function horizontalNormal(deg: number): { nx: number; ny: number; nz: number } {
   return { nx: Math.cos(deg * DEG), ny: Math.sin(deg * DEG), nz: 0 };
 }
 
-/**
- * The background point: where the camera's line of sight through the subject, continued past the subject,
- * first meets a surface (at the height of that line, clamped to the surface), nudged 1 mm towards the camera,
- * its receptor facing the camera side. Null when no surface is behind the subject and none is given.
- */
-export function findBackground(scene: Scene): { receptor: Receptor; surfaceId: string | null } | null {
-  const cam = scene.camera;
-  const sub = scene.subject;
-  if (scene.background) {
-    const b = scene.background;
-    const deg = b.facingDeg ?? (Math.atan2(cam.y - b.y, cam.x - b.x) / DEG);
-    return { receptor: { x: b.x, y: b.y, z: b.z, ...horizontalNormal(deg) }, surfaceId: null };
-  }
-  const dx = sub.x - cam.x;
-  const dy = sub.y - cam.y;
-  if (dx === 0 && dy === 0) return null;
-  let best = Infinity;
-  let hit: { receptor: Receptor; surfaceId: string } | null = null;
+/** Where a ray from (ox, oy) along (dx, dy) first meets a surface past `tMin` (in units of |d|), and the normal facing the ray's origin. */
+type SurfaceHit = { t: number; x: number; y: number; nx: number; ny: number; surface: Scene['surfaces'][number] };
+
+function firstSurfaceHit(scene: Scene, ox: number, oy: number, dx: number, dy: number, tMin: number, accept: (s: Scene['surfaces'][number], t: number) => boolean = () => true): SurfaceHit | null {
+  let hit: SurfaceHit | null = null;
   for (const s of scene.surfaces) {
     const ex = s.x2 - s.x1;
     const ey = s.y2 - s.y1;
     const denom = dx * ey - dy * ex;
     if (denom === 0) continue;
-    const apx = s.x1 - cam.x;
-    const apy = s.y1 - cam.y;
-    const t = (apx * ey - apy * ex) / denom; // 1 at the subject
+    const apx = s.x1 - ox;
+    const apy = s.y1 - oy;
+    const t = (apx * ey - apy * ex) / denom;
     const u = (apx * dy - apy * dx) / denom;
-    if (t <= 1 || u < 0 || u > 1 || t >= best) continue;
-    best = t;
+    if (t <= tMin || u < 0 || u > 1 || (hit && t >= hit.t) || !accept(s, t)) continue;
     const len = Math.hypot(ex, ey);
     let nx = -ey / len;
     let ny = ex / len;
@@ -86,20 +89,95 @@ export function findBackground(scene: Scene): { receptor: Receptor; surfaceId: s
       nx = -nx;
       ny = -ny;
     }
-    const z = Math.min(s.topM, Math.max(s.baseM, cam.heightM + t * (sub.heightM - cam.heightM)));
-    hit = {
-      receptor: { x: cam.x + t * dx + nx * 1e-3, y: cam.y + t * dy + ny * 1e-3, z, nx, ny, nz: 0 },
-      surfaceId: s.id,
-    };
+    hit = { t, x: ox + t * dx + nx * 1e-3, y: oy + t * dy + ny * 1e-3, nx, ny, surface: s };
   }
   return hit;
+}
+
+/** Gap kept between the subject's silhouette and the background point beside it, m (at the subject). */
+const SILHOUETTE_MARGIN_M = 0.05;
+
+/**
+ * Plan angles (radians) of the camera's rays that graze the subject's body on either side, or null with no
+ * body. The background behind the body is hidden from the lens; what the frame shows is beside it.
+ */
+function silhouetteRays(scene: Scene): [number, number] | null {
+  const cam = scene.camera;
+  const sub = scene.subject;
+  if (!sub.body) return null;
+  const centre = Math.atan2(sub.y - cam.y, sub.x - cam.x);
+  const dist = Math.hypot(sub.x - cam.x, sub.y - cam.y);
+  let lo = 0;
+  let hi = 0;
+  for (const p of bodyPanels(scene)) {
+    let a = Math.atan2(p.ay - cam.y, p.ax - cam.x) - centre;
+    a = Math.atan2(Math.sin(a), Math.cos(a));
+    lo = Math.min(lo, a);
+    hi = Math.max(hi, a);
+  }
+  const m = SILHOUETTE_MARGIN_M / Math.max(dist, 0.1);
+  return [centre + lo - m, centre + hi + m];
+}
+
+/** Does the camera's ray at plan angle a (radians) pass through the subject's body? */
+function hiddenBySubject(scene: Scene, a: number): boolean {
+  const rays = silhouetteRays(scene);
+  if (!rays) return false;
+  const c = Math.atan2(scene.subject.y - scene.camera.y, scene.subject.x - scene.camera.x);
+  const rel = (x: number) => Math.atan2(Math.sin(x - c), Math.cos(x - c));
+  return rel(a) > rel(rays[0]) && rel(a) < rel(rays[1]);
+}
+
+/**
+ * The background point: where the camera's line of sight through the subject, continued past the subject,
+ * first meets a surface (at the height of that line, clamped to the surface), nudged 1 mm towards the camera,
+ * its receptor facing the camera side. With the subject's body on, the point straight behind the subject is
+ * hidden from the lens: the background is read just beside the silhouette on both sides (`receptors`, averaged
+ * by the meter). Null when no surface is behind the subject and none is given.
+ */
+export function findBackground(scene: Scene): { receptor: Receptor; receptors: Receptor[]; surfaceId: string | null } | null {
+  const cam = scene.camera;
+  const sub = scene.subject;
+  if (scene.background) {
+    const b = scene.background;
+    const deg = b.facingDeg ?? (Math.atan2(cam.y - b.y, cam.x - b.x) / DEG);
+    const r = { x: b.x, y: b.y, z: b.z, ...horizontalNormal(deg) };
+    return { receptor: r, receptors: [r], surfaceId: null };
+  }
+  const dx = sub.x - cam.x;
+  const dy = sub.y - cam.y;
+  if (dx === 0 && dy === 0) return null;
+  const dist = Math.hypot(dx, dy);
+  const toReceptor = (h: SurfaceHit, tSub: number): Receptor => ({
+    x: h.x,
+    y: h.y,
+    z: Math.min(h.surface.topM, Math.max(h.surface.baseM, cam.heightM + (h.t / tSub) * (sub.heightM - cam.heightM))),
+    nx: h.nx,
+    ny: h.ny,
+    nz: 0,
+  });
+  const rays = silhouetteRays(scene);
+  const receptors: Receptor[] = [];
+  let surfaceId: string | null = null;
+  for (const a of rays ?? [Math.atan2(dy, dx)]) {
+    const ux = Math.cos(a);
+    const uy = Math.sin(a);
+    // Distance along this ray to the subject's depth (1 on the line through the subject).
+    const tSub = dist / Math.max(1e-9, ux * (dx / dist) + uy * (dy / dist));
+    const h = firstSurfaceHit(scene, cam.x, cam.y, ux, uy, tSub);
+    if (!h) continue;
+    receptors.push(toReceptor(h, tSub));
+    surfaceId ??= h.surface.id;
+  }
+  if (receptors.length === 0) return null;
+  return { receptor: receptors[0]!, receptors, surfaceId };
 }
 
 /**
  * Key and fill: if any light has role 'key', the brightest of those (at the subject) is the key; otherwise the
  * brightest 'auto' light is. Fill is every light with role 'fill' if any has it; otherwise every other 'auto'
- * light. Rim, background and other lights are never key or fill. The ratio compares exposures at the subject's
- * flat receptor, as metering each light alone does.
+ * light. Rim, hair, kicker, background and other lights are never key or fill. The exposures compared are the
+ * ratio readings (meterParsed: flat along the face with that receptor, else flat pointed at each light).
  */
 export function chooseKeyFill(
   lights: { id: string; role: LightRole; luxSeconds: number; enabled: boolean }[],
@@ -123,92 +201,86 @@ export function meter(input: SceneInput | Scene): MeterResult {
   return meterParsed(parseScene(input));
 }
 
+const SUBJECT_ROLES: readonly LightRole[] = ['auto', 'key', 'fill'];
+const RIM_ROLES: readonly LightRole[] = ['rim', 'hair', 'kicker'];
+
+
+const sumH = (g: Gathered): number => g.direct + g.bounce;
+
+/** Per light, the mean of the same lights gathered at several receptors. */
+function averageGathered(sets: Gathered[][]): Gathered[] {
+  if (sets.length === 1) return sets[0]!;
+  const k = 1 / sets.length;
+  return sets[0]!.map((g0, i) => {
+    const out: Gathered = { direct: 0, bounce: 0, rgb: [0, 0, 0], sample: g0.sample };
+    for (const set of sets) {
+      const g = set[i]!;
+      out.direct += g.direct * k;
+      out.bounce += g.bounce * k;
+      out.rgb[0] += g.rgb[0] * k;
+      out.rgb[1] += g.rgb[1] * k;
+      out.rgb[2] += g.rgb[2] * k;
+    }
+    return out;
+  });
+}
+
+/** Recorded tone of a point: incident light (linear sRGB lux·s) × the surface's reflectance × white balance. */
+export function recordedTone(rgb: Rgb, rho: Rgb, gains: Rgb, correctH: number): RecordedTone {
+  const stops: [number | null, number | null, number | null] = [null, null, null];
+  const lin: [number, number, number] = [0, 0, 0];
+  let clipped = false;
+  let blocked = true;
+  for (let c = 0; c < 3; c++) {
+    const v = (rgb[c]! * rho[c]! * gains[c]!) / (correctH * MID_GREY_REFLECTANCE);
+    lin[c] = MID_GREY_REFLECTANCE * v;
+    const st = v > 0 ? Math.log2(v) : null;
+    stops[c] = st;
+    if (st !== null && st > CLIP_STOPS) clipped = true;
+    if (st !== null && st >= BLOCKED_STOPS) blocked = false;
+  }
+  const any = lin.some((v) => v > 0);
+  return { stops, hex: any ? linearRgbToHex(lin) : null, clipped, blocked };
+}
+
 /** Like meter, for a scene already validated by sceneSchema (the editor parses once per frame for both the
  *  meter and the light map). */
 export function meterParsed(scene: Scene): MeterResult {
   const cam = scene.camera;
   const C = scene.options.calibrationC;
-  const lights = scene.lights.map((l, i) => prepareLight(l, i, scene));
-  const occ = buildOccluders(scene);
-  const useBounce = scene.options.bounce && scene.surfaces.some((s) => s.bounces);
-  const patches = useBounce
-    ? buildPatches(scene, scene.options.patchSizeM, METER_MAX_PATCHES_PER_SURFACE)
-    : buildPatches({ ...scene, surfaces: [] }, 1, 1);
-  const optics: SurfaceOptics = surfaceOptics(scene);
+  const room: Room = buildRoom(scene);
+  const lights = room.lights;
+  const receptorId: ReceptorId = scene.options.receptor;
 
   // Correct exposure at the camera: the H an incident meter reads as the camera's aperture, plus the lens ND.
   const correctH = luxSecondsForAperture(cam.aperture, cam.iso, C) * Math.pow(2, cam.ndStops);
 
-  const subjectR: Receptor = { x: scene.subject.x, y: scene.subject.y, z: scene.subject.heightM, ...horizontalNormal(scene.subject.facingDeg) };
+  const sub = scene.subject;
+  const at = subjectReceptors(scene);
+  const face = gather(room, at.face, true);
+  const dome = gather(room, at.dome, true);
+  // A flat disc at the subject pointed at each light, that light alone.
+  const pointed = lights.map((L, li) => gather(room, at.pointedAt(L), true, li)[0]!);
+  const byId: Record<ReceptorId, Gathered[]> = { 'flat-face': face, 'dome-camera': dome, 'flat-light': pointed };
+  const expo = byId[receptorId];
+  // Ratios: flat along the face with that receptor (as before); otherwise each light read pointed at it.
+  const ratioReads = receptorId === 'flat-face' ? face : pointed;
+
   const bg = findBackground(scene);
-  const probeR: Receptor[] = scene.probes.map((p) => ({ x: p.x, y: p.y, z: p.z, ...horizontalNormal(p.facingDeg ?? scene.subject.facingDeg) }));
-  const receptors: Receptor[] = [subjectR, ...(bg ? [bg.receptor] : []), ...probeR];
-  const nQ = receptors.length;
-
-  // Patch → receptor form factors with occlusion, shared by all lights.
-  const nP = patches.count;
-  const ff = new Float64Array(nP * nQ);
-  const seen = new Uint8Array(nP); // patches some receptor sees; the others need no light computed
-  for (let q = 0; q < nQ; q++) {
-    const r = receptors[q]!;
-    for (let i = 0; i < nP; i++) {
-      const f = patchFormFactor(patches, i, r, 4);
-      if (f === 0) continue;
-      const t = transmissionAlong(occ, patches.cx[i]!, patches.cy[i]!, patches.cz[i]!, r.x, r.y, r.z, patches.surface[i]!);
-      ff[i * nQ + q] = f * t;
-      if (t > 0) seen[i] = 1;
-    }
-  }
-
-  const incident = new Float64Array(nP);
-  const acc: PointAccum[][] = lights.map(() => receptors.map(() => ({ direct: 0, bounce: 0, rgb: [0, 0, 0] })));
-  const subjectDirect = lights.map((L) =>
-    directAt(L, occ, subjectR.x, subjectR.y, subjectR.z, subjectR.nx, subjectR.ny, subjectR.nz),
+  // Beside the silhouette on both sides (with the body on): the mean of the two points, per light.
+  const bgG = bg ? averageGathered(bg.receptors.map((r) => gather(room, { ...r, kind: 'flat' }, false))) : null;
+  const probeG = scene.probes.map((p) =>
+    gather(room, { x: p.x, y: p.y, z: p.z, ...horizontalNormal(p.facingDeg ?? sub.facingDeg), kind: 'flat' }, false),
   );
-  lights.forEach((L, li) => {
-    const row = acc[li]!;
-    for (let q = 0; q < nQ; q++) {
-      const r = receptors[q]!;
-      const d = q === 0 ? subjectDirect[li]! : directAt(L, occ, r.x, r.y, r.z, r.nx, r.ny, r.nz);
-      const a = row[q]!;
-      a.direct = d.luxSeconds;
-      a.rgb[0] += d.luxSeconds * L.rgb[0];
-      a.rgb[1] += d.luxSeconds * L.rgb[1];
-      a.rgb[2] += d.luxSeconds * L.rgb[2];
-    }
-    if (nP === 0 || L.axialCdS <= 0) return;
-    patchIncident(L, patches, occ, incident, seen);
-    for (let i = 0; i < nP; i++) {
-      const e = incident[i]!;
-      if (e === 0) continue;
-      const o = optics[patches.surface[i]!]!;
-      const side = e > 0 ? o.front : o.back;
-      const lum = Math.abs(e) / Math.PI; // luminance per unit reflectance, cd·s/m²
-      for (let q = 0; q < nQ; q++) {
-        const f = ff[i * nQ + q]!;
-        if (f === 0 || (f > 0) !== (e > 0)) continue; // receptor must be on the lit side
-        const w = lum * Math.abs(f);
-        const a = row[q]!;
-        const cr = L.rgb[0] * side.rgb[0] * w;
-        const cg = L.rgb[1] * side.rgb[1] * w;
-        const cb = L.rgb[2] * side.rgb[2] * w;
-        a.rgb[0] += cr;
-        a.rgb[1] += cg;
-        a.rgb[2] += cb;
-        a.bounce += 0.2126 * cr + 0.7152 * cg + 0.0722 * cb; // relative luminance, inlined
-      }
-    }
-  });
 
-  const total = (q: number): PointAccum => {
-    const t: PointAccum = { direct: 0, bounce: 0, rgb: [0, 0, 0] };
-    for (const row of acc) {
-      const a = row[q]!;
-      t.direct += a.direct;
-      t.bounce += a.bounce;
-      t.rgb[0] += a.rgb[0];
-      t.rgb[1] += a.rgb[1];
-      t.rgb[2] += a.rgb[2];
+  const totalOf = (gs: Gathered[]) => {
+    const t = { direct: 0, bounce: 0, rgb: [0, 0, 0] as [number, number, number] };
+    for (const g of gs) {
+      t.direct += g.direct;
+      t.bounce += g.bounce;
+      t.rgb[0] += g.rgb[0];
+      t.rgb[1] += g.rgb[1];
+      t.rgb[2] += g.rgb[2];
     }
     return t;
   };
@@ -229,16 +301,20 @@ export function meterParsed(scene: Scene): MeterResult {
     ambient && ambientRgb
       ? [rgb[0] + ambient.luxSeconds * ambientRgb[0], rgb[1] + ambient.luxSeconds * ambientRgb[1], rgb[2] + ambient.luxSeconds * ambientRgb[2]]
       : rgb;
+  // The flash must make up what the ambient does not give.
+  const ambientH = ambient?.luxSeconds ?? 0;
+  const lightsTargetH = targetH - ambientH;
 
-  const subjTotal = total(0);
+  const subjTotal = totalOf(expo);
   const subjH = subjTotal.direct + subjTotal.bounce;
-  const bgIndex = bg ? 1 : -1;
-  const bgTotal = bgIndex > 0 ? total(bgIndex) : null;
+  const bgTotal = bgG ? totalOf(bgG) : null;
 
-  const perLightH = acc.map((row) => row[0]!.direct + row[0]!.bounce);
-  const kf = chooseKeyFill(scene.lights.map((l, i) => ({ id: l.id, role: l.role, enabled: l.enabled, luxSeconds: perLightH[i]! })));
-  const keyH = kf.keyId ? perLightH[scene.lights.findIndex((l) => l.id === kf.keyId)]! : 0;
-  const fillH = kf.fillIds.reduce((s, id) => s + perLightH[scene.lights.findIndex((l) => l.id === id)]!, 0);
+  const ratioH = ratioReads.map(sumH);
+  const kf = chooseKeyFill(scene.lights.map((l, i) => ({ id: l.id, role: l.role, enabled: l.enabled, luxSeconds: ratioH[i]! })));
+  const keyIndex = kf.keyId ? scene.lights.findIndex((l) => l.id === kf.keyId) : -1;
+  const keyH = keyIndex >= 0 ? ratioH[keyIndex]! : 0;
+  const fillH = kf.fillIds.reduce((s, id) => s + ratioH[scene.lights.findIndex((l) => l.id === id)]!, 0);
+  const keyPointedH = keyIndex >= 0 ? sumH(pointed[keyIndex]!) : 0;
 
   const warnings: MeterWarning[] = [];
   const anyFlash = scene.lights.some((l) => l.enabled && l.kind === 'flash');
@@ -250,32 +326,67 @@ export function meterParsed(scene: Scene): MeterResult {
     });
   }
   if (!(subjH > DARK_LUX_SECONDS)) warnings.push({ code: 'no-light-on-subject', message: 'no light reaches the subject' });
+  if (ambient && lightsTargetH <= 0) {
+    warnings.push({ code: 'ambient-over-target', message: `the ambient alone reaches f/${targetAperture}: the lights can only add to it` });
+  }
+
+  // What the camera records on the background: the surface's colour (side facing the camera) or a mid-grey card.
+  const gains: Rgb = (() => {
+    const w = kelvinToLinearRgb(cam.whiteBalanceK);
+    const y = relativeLuminance(w);
+    return [y / w[0], y / w[1], y / w[2]];
+  })();
+  const surfaceRho = (surfaceId: string | null, nx: number, ny: number): Rgb => {
+    const s = surfaceId ? scene.surfaces.find((x) => x.id === surfaceId) : undefined;
+    if (!s) return [MID_GREY_REFLECTANCE, MID_GREY_REFLECTANCE, MID_GREY_REFLECTANCE];
+    const i = scene.surfaces.indexOf(s);
+    const front = -(s.y2 - s.y1) * nx + (s.x2 - s.x1) * ny > 0;
+    const o = room.optics[i]!;
+    return front ? o.front.rgb : o.back.rgb;
+  };
+  const bgRho = bg ? surfaceRho(bg.surfaceId, bg.receptor.nx, bg.receptor.ny) : null;
 
   const lightReadings: LightReading[] = lights.map((L, li) => {
     const l = L.light;
-    const row = acc[li]!;
-    const a = row[0]!;
-    const h = a.direct + a.bounce;
-    const d = subjectDirect[li]!;
+    const g = expo[li]!;
+    const h = sumH(g);
+    const d = face[li]!.sample;
+    const forSubject = SUBJECT_ROLES.includes(l.role);
     let forTarget: PowerAdvice = { stopsChange: null, fraction: null, beyondFull: false, belowMinimum: false };
-    if (h > DARK_LUX_SECONDS) {
-      const stopsChange = Math.log2(targetH) - Math.log2(h);
+    if (h > DARK_LUX_SECONDS && lightsTargetH > 0) {
+      const stopsChange = Math.log2(lightsTargetH) - Math.log2(h);
       const fraction = l.powerFraction * Math.pow(2, stopsChange);
       forTarget = { stopsChange, fraction, beyondFull: fraction > 1 + 1e-9, belowMinimum: fraction < L.minPowerFraction * (1 - 1e-9) };
-      if (l.enabled && forTarget.beyondFull) {
-        warnings.push({ code: 'beyond-full-power', lightId: l.id, message: `${l.id} needs ${(Math.log2(fraction)).toFixed(1)} stops above full power for f/${targetAperture}` });
+      if (l.enabled && forSubject && forTarget.beyondFull) {
+        warnings.push({ code: 'beyond-full-power', lightId: l.id, message: `${l.id}: over full power by ${Math.log2(fraction).toFixed(1)} stops for f/${targetAperture}` });
       }
-      if (l.enabled && forTarget.belowMinimum) {
+      if (l.enabled && forSubject && forTarget.belowMinimum) {
         warnings.push({ code: 'below-minimum-power', lightId: l.id, message: `${l.id} would need less than its lowest power for f/${targetAperture}` });
       }
     }
-    if (l.enabled && d.incidenceDeg >= 90 && L.axialCdS > 0 && (l.role === 'key' || l.role === 'fill')) {
-      warnings.push({ code: 'light-behind-subject-facing', lightId: l.id, message: `${l.id} is behind the subject's facing and reads nothing on a flat receptor` });
+    if (receptorId === 'flat-face' && l.enabled && d.incidenceDeg >= 90 && L.axialCdS > 0 && (l.role === 'key' || l.role === 'fill')) {
+      warnings.push({ code: 'light-behind-subject-facing', lightId: l.id, message: `${l.id} is behind the subject's facing and reads nothing on a flat receptor along the face` });
+    }
+    const pointedH = sumH(pointed[li]!);
+    let vsKey: VsKeyAdvice | null = null;
+    if (RIM_ROLES.includes(l.role)) {
+      const targetStops = l.targetVsKeyStops ?? scene.options.rimTargetStops;
+      const stops = safeLog2Ratio(pointedH, keyPointedH);
+      const stopsChange = stops === null ? null : targetStops - stops;
+      const fraction = stopsChange === null ? null : l.powerFraction * Math.pow(2, stopsChange);
+      vsKey = {
+        stops,
+        targetStops,
+        stopsChange,
+        fraction,
+        beyondFull: fraction !== null && fraction > 1 + 1e-9,
+        belowMinimum: fraction !== null && fraction < L.minPowerFraction * (1 - 1e-9),
+      };
     }
     const ratioRole: LightReading['ratioRole'] = kf.keyId === l.id ? 'key' : kf.fillIds.includes(l.id) ? 'fill' : 'none';
-    const bgA = bgIndex > 0 ? row[bgIndex]! : null;
-    return {
-      ...reading(h, a.direct, a.bounce, scene, correctH),
+    const bgA = bgG ? bgG[li]! : null;
+    const byReceptor: ByReceptor = { 'flat-face': sumH(face[li]!), 'dome-camera': sumH(dome[li]!), 'flat-light': pointedH };
+    return withReading(reading(h, g.direct, g.bounce, scene, correctH), {
       id: l.id,
       kind: l.kind,
       enabled: l.enabled,
@@ -294,12 +405,45 @@ export function meterParsed(scene: Scene): MeterResult {
       powerStops: Math.log2(l.powerFraction),
       minPowerFraction: L.minPowerFraction,
       forTarget,
-      backgroundStopsVsSubject: bgA ? safeLog2Ratio(bgA.direct + bgA.bounce, h) : null,
-    };
+      pointed: reading(pointedH, pointed[li]!.direct, pointed[li]!.bounce, scene, correctH),
+      byReceptor,
+      vsKey,
+      backgroundTone: l.role === 'background' && bgA && bgRho ? recordedTone(bgA.rgb, bgRho, gains, correctH) : null,
+      backgroundStopsVsSubject: bgA ? safeLog2Ratio(sumH(bgA), h) : null,
+    });
   });
 
-  const bgH = bgTotal ? bgTotal.direct + bgTotal.bounce : 0;
-  const combinedH = subjH + (ambient?.luxSeconds ?? 0);
+  let background: MeterResult['background'] = null;
+  if (bg && bgTotal && bgRho) {
+    const bgH = bgTotal.direct + bgTotal.bounce;
+    const recorded = recordedTone(withAmbient(bgTotal.rgb), bgRho, gains, correctH);
+    const range = backgroundRange(scene, room, gains, correctH, withAmbient, surfaceRho);
+    background = withReading(reading(bgH, bgTotal.direct, bgTotal.bounce, scene, correctH), {
+      point: { x: bg.receptor.x, y: bg.receptor.y, z: bg.receptor.z },
+      surfaceId: bg.surfaceId,
+      stopsVsSubject: safeLog2Ratio(bgH, subjH),
+      colour: colourReading(withAmbient(bgTotal.rgb), cam.whiteBalanceK),
+      recorded,
+      range,
+    });
+    const worst = range ? [recorded, range.brightest, range.darkest] : [recorded];
+    if (worst.some((t) => t.clipped)) {
+      const t = range?.brightest.clipped ? range.brightest : recorded;
+      const ch = ['red', 'green', 'blue'].filter((_, c) => (t.stops[c] ?? -Infinity) > CLIP_STOPS);
+      const top = Math.max(...t.stops.map((v) => v ?? -Infinity));
+      warnings.push({ code: 'background-clips', message: `the background's ${ch.join(' and ')} channel${ch.length > 1 ? 's' : ''} clip${ch.length > 1 ? '' : 's'}: +${top.toFixed(1)} stops over mid-grey (over +${CLIP_STOPS} clips, common practice)` });
+    }
+    if (recorded.blocked || range?.darkest.blocked) {
+      warnings.push({ code: 'background-blocked', message: `part of the background falls more than ${-BLOCKED_STOPS} stops under mid-grey: black in the frame (common practice)` });
+    }
+  }
+
+  const combinedH = subjH + ambientH;
+  const subjectByReceptor: ByReceptor = {
+    'flat-face': face.reduce((s, g) => s + sumH(g), 0),
+    'dome-camera': dome.reduce((s, g) => s + sumH(g), 0),
+    'flat-light': pointed.reduce((s, g) => s + sumH(g), 0),
+  };
   return {
     camera: {
       ev100: exposureValue(cam),
@@ -309,7 +453,10 @@ export function meterParsed(scene: Scene): MeterResult {
       overSync,
     },
     targetAperture,
-    subject: { ...reading(subjH, subjTotal.direct, subjTotal.bounce, scene, correctH), colour: colourReading(withAmbient(subjTotal.rgb), cam.whiteBalanceK) },
+    receptor: receptorId,
+    subjectByReceptor,
+    bounces: { passes: room.radiosity.passes, converged: room.radiosity.converged },
+    subject: withReading(reading(subjH, subjTotal.direct, subjTotal.bounce, scene, correctH), { colour: colourReading(withAmbient(subjTotal.rgb), cam.whiteBalanceK) }),
     lights: lightReadings,
     keyFill: {
       ...kf,
@@ -317,21 +464,11 @@ export function meterParsed(scene: Scene): MeterResult {
       ratioStops: safeLog2Ratio(keyH, fillH),
       litToShadowRatio: keyH > DARK_LUX_SECONDS && fillH > DARK_LUX_SECONDS ? (keyH + fillH) / fillH : null,
     },
-    background:
-      bg && bgTotal
-        ? {
-            ...reading(bgH, bgTotal.direct, bgTotal.bounce, scene, correctH),
-            point: { x: bg.receptor.x, y: bg.receptor.y, z: bg.receptor.z },
-            surfaceId: bg.surfaceId,
-            stopsVsSubject: safeLog2Ratio(bgH, subjH),
-            colour: colourReading(withAmbient(bgTotal.rgb), cam.whiteBalanceK),
-          }
-        : null,
+    background,
     probes: scene.probes.map((p, k) => {
-      const q = 1 + (bg ? 1 : 0) + k;
-      const t = total(q);
+      const t = totalOf(probeG[k]!);
       const h = t.direct + t.bounce;
-      return { ...reading(h, t.direct, t.bounce, scene, correctH), id: p.id, point: { x: p.x, y: p.y, z: p.z }, stopsVsSubject: safeLog2Ratio(h, subjH) };
+      return withReading(reading(h, t.direct, t.bounce, scene, correctH), { id: p.id, point: { x: p.x, y: p.y, z: p.z }, stopsVsSubject: safeLog2Ratio(h, subjH) });
     }),
     ambient,
     combined: {
@@ -339,7 +476,51 @@ export function meterParsed(scene: Scene): MeterResult {
       aperture: combinedH > DARK_LUX_SECONDS ? apertureForFlashExposure(combinedH, cam.iso, C) : null,
       stopsVsCamera: safeLog2Ratio(combinedH, correctH),
     },
-    allLightsStopsChange: safeLog2Ratio(targetH, subjH),
+    allLightsStopsChange: lightsTargetH > 0 ? safeLog2Ratio(lightsTargetH, subjH) : null,
     warnings,
   };
+}
+
+/**
+ * The background across the lens's horizontal field: rays from the camera at BACKGROUND_RANGE_SAMPLES angles
+ * across its horizontal angle of view, each meeting the first surface beyond the subject's distance, at the
+ * subject's height; the recorded tone there (cheap gather: coarse bounce). Brightest and darkest by luminance.
+ */
+function backgroundRange(
+  scene: Scene,
+  room: Room,
+  gains: Rgb,
+  correctH: number,
+  withAmbient: (rgb: [number, number, number]) => Rgb,
+  surfaceRho: (id: string | null, nx: number, ny: number) => Rgb,
+): NonNullable<MeterResult['background']>['range'] {
+  const cam = scene.camera;
+  const sub = scene.subject;
+  const half = angleOfViewDeg(cam.focalMm, cam.sensorWidthMm) / 2;
+  const subDist = Math.hypot(sub.x - cam.x, sub.y - cam.y);
+  const centre = Math.atan2(sub.y - cam.y, sub.x - cam.x) / DEG;
+  type Sample = RecordedTone & { point: { x: number; y: number; z: number }; y: number };
+  let best = null as Sample | null;
+  let worst = null as Sample | null;
+  let samples = 0;
+  for (let k = 0; k < BACKGROUND_RANGE_SAMPLES; k++) {
+    const a = (centre - half + (2 * half * (k + 0.5)) / BACKGROUND_RANGE_SAMPLES) * DEG;
+    const dx = Math.cos(a);
+    const dy = Math.sin(a);
+    if (hiddenBySubject(scene, a)) continue;
+    const h = firstSurfaceHit(scene, cam.x, cam.y, dx, dy, subDist * Math.cos(a - centre * DEG), (sf) => sub.heightM >= sf.baseM && sub.heightM <= sf.topM);
+    const hit = h ? { x: h.x, y: h.y, nx: h.nx, ny: h.ny, id: h.surface.id } : null;
+    if (!hit) continue;
+    samples++;
+    const rgb = gatherCoarse(room, { x: hit.x, y: hit.y, z: sub.heightM, nx: hit.nx, ny: hit.ny, nz: 0, kind: 'flat' }, false, true);
+    const tone = recordedTone(withAmbient([rgb[0], rgb[1], rgb[2]]), surfaceRho(hit.id, hit.nx, hit.ny), gains, correctH);
+    const rec: Sample = Object.assign(tone, { point: { x: hit.x, y: hit.y, z: sub.heightM }, y: 0 });
+    const st = tone.stops.map((v) => (v === null ? 0 : Math.pow(2, v)));
+    rec.y = 0.2126 * st[0]! + 0.7152 * st[1]! + 0.0722 * st[2]!;
+    if (!best || rec.y > best.y) best = rec;
+    if (!worst || rec.y < worst.y) worst = rec;
+  }
+  if (!best || !worst) return null;
+  const strip = (r: Sample): RecordedTone & { point: Sample['point'] } => ({ stops: r.stops, hex: r.hex, clipped: r.clipped, blocked: r.blocked, point: r.point });
+  return { brightest: strip(best), darkest: strip(worst), samples };
 }

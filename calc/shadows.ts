@@ -9,7 +9,7 @@
  * (point × occluder) ray test.
  */
 import type { GridFrame } from './contours';
-import type { Occluders } from './prepare';
+import type { Occluders } from './flatScene';
 
 const qu = new Float64Array(4);
 const qv = new Float64Array(4);

@@ -5,9 +5,12 @@
 import { quadIrradiancePerLuminance } from './bounce';
 import { type Rgb, relativeLuminance } from './colour';
 import { lookupProfile } from './modifiers';
-import { type Occluders, type Patches, type PreparedLight, MIN_DISTANCE_SQ_M2 } from './prepare';
+import { type Occluders, type Patches, type PreparedLight, MIN_DISTANCE_SQ_M2 } from './flatScene';
 
 const quad = new Float64Array(12);
+
+/** Cosines within this of zero count as zero (grazing light is no light, not rounding noise). */
+export const COS_EPSILON = 1e-9;
 const CORNER_SIGNS = [
   [-1, -1],
   [1, -1],
@@ -103,7 +106,7 @@ export function directAt(
   const incidenceDeg = (Math.acos(Math.max(-1, Math.min(1, cosInc))) * 180) / Math.PI;
   const offAxisDeg = (Math.acos(Math.max(-1, Math.min(1, cosOff))) * 180) / Math.PI;
   const geo = cosInc;
-  if (geo <= 0 || L.axialCdS <= 0) return { luxSeconds: 0, distanceM: d, incidenceDeg, offAxisDeg, transmission: 1 };
+  if (geo <= COS_EPSILON || L.axialCdS <= 0) return { luxSeconds: 0, distanceM: d, incidenceDeg, offAxisDeg, transmission: 1 };
   const transmission = transmissionAlong(occ, L.px, L.py, L.pz, qx, qy, qz);
   const luxSeconds =
     (L.axialCdS * lookupProfile(L.lut, cosOff) * geo * transmission) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
@@ -124,7 +127,7 @@ export function patchFormFactor(P: Patches, i: number, q: Receptor, exactWithin:
   const vx = q.x - P.cx[i]!;
   const vy = q.y - P.cy[i]!;
   const vz = q.z - P.cz[i]!;
-  const nd = vx * P.nx[i]! + vy * P.ny[i]!; // patch normal is horizontal
+  const nd = vx * P.nx[i]! + vy * P.ny[i]! + vz * P.nz[i]!;
   if (nd === 0) return 0;
   const side = nd > 0 ? 1 : -1;
   const r2 = vx * vx + vy * vy + vz * vz;
@@ -132,14 +135,17 @@ export function patchFormFactor(P: Patches, i: number, q: Receptor, exactWithin:
   const hh = P.halfH[i]!;
   const size = 2 * Math.max(hw, hh);
   if (r2 < exactWithin * exactWithin * size * size) {
-    const wx = P.wx[i]!;
-    const wy = P.wy[i]!;
-    // Corners relative to the receptor: centre − v ± w·halfW ± up·halfH.
+    const wx = P.wx[i]! * hw;
+    const wy = P.wy[i]! * hw;
+    const ux = P.vx[i]! * hh;
+    const uy = P.vy[i]! * hh;
+    const uz = P.vz[i]! * hh;
+    // Corners relative to the receptor: centre − v ± w·halfW ± v·halfH.
     let k = 0;
     for (const [sw, sh] of CORNER_SIGNS) {
-      quad[k++] = -vx + wx * hw * sw;
-      quad[k++] = -vy + wy * hw * sw;
-      quad[k++] = -vz + hh * sh;
+      quad[k++] = -vx + wx * sw + ux * sh;
+      quad[k++] = -vy + wy * sw + uy * sh;
+      quad[k++] = -vz + uz * sh;
     }
     return side * quadIrradiancePerLuminance(quad, q.nx, q.ny, q.nz);
   }
@@ -151,10 +157,18 @@ export function patchFormFactor(P: Patches, i: number, q: Receptor, exactWithin:
   return (side * a * cosE * cosR) / (r2 + a / Math.PI);
 }
 
+/** Most sub-samples per side when a beam is sampled over a patch. */
+const MAX_BEAM_SAMPLES = 6;
+/** Beyond this many half angles off the axis a patch is in the beam's tail and sampled at its centre only. */
+export const BEAM_TAIL_HALF_ANGLES = 3;
+
 /**
- * Illuminance-time on every patch from one light, signed by the side it lights (+ front, − back).
- * The patch's own surface does not shadow it. `needed`: patches to compute (others get 0), e.g. those
- * that some receptor sees.
+ * Illuminance-time on every patch from one light, signed by the side it lights (+ front, − back): the mean
+ * over the patch. A beam narrow against the patch (the patch spans more than half the beam's half angle as
+ * seen from the light) is sampled on an s × s grid over the patch (s ≤ 6), so a grid spot smaller than a
+ * patch lights it by the share it covers rather than by whether it hits the centre. Occlusion is tested from
+ * the patch centre. The patch's own surface does not shadow it. `needed`: patches to compute (others get 0).
+ * Patches wholly beyond `tailHalfAngles` half angles off the axis are in the beam's tail: one sample at the centre.
  */
 export function patchIncident(
   L: PreparedLight,
@@ -162,7 +176,9 @@ export function patchIncident(
   occ: Occluders,
   out: Float64Array,
   needed?: Uint8Array,
+  tailHalfAngles = BEAM_TAIL_HALF_ANGLES,
 ): void {
+  const halfRad = (L.modifier.halfAngleDeg * Math.PI) / 180;
   for (let i = 0; i < P.count; i++) {
     out[i] = 0;
     if (L.axialCdS <= 0 || (needed && needed[i] === 0)) continue;
@@ -172,15 +188,51 @@ export function patchIncident(
     const d2 = dx * dx + dy * dy + dz * dz;
     const d = Math.sqrt(d2);
     if (d === 0) continue;
-    const nd = -(dx * P.nx[i]! + dy * P.ny[i]!) / d; // cos of incidence on the front
-    if (nd === 0) continue;
-    const cosOff = (dx * L.ax + dy * L.ay + dz * L.az) / d;
-    const prof = lookupProfile(L.lut, cosOff);
-    if (prof <= 0) continue;
+    const pnx = P.nx[i]!;
+    const pny = P.ny[i]!;
+    const pnz = P.nz[i]!;
+    const nd = -(dx * pnx + dy * pny + dz * pnz) / d; // cos of incidence on the front
+    if (Math.abs(nd) < COS_EPSILON) continue;
+    const hw = P.halfW[i]!;
+    const hh = P.halfH[i]!;
+    const span = (2 * Math.max(hw, hh)) / d;
+    let s = span > halfRad / 2 ? Math.min(MAX_BEAM_SAMPLES, Math.ceil((2 * span) / halfRad)) : 1;
+    if (s > 1) {
+      // A patch whose nearest part lies beyond three half angles off the axis sees only the beam's tail
+      // (under 1/9 of the axis for the softest beam, far less for hard ones): its centre is sample enough.
+      const cosC = (dx * L.ax + dy * L.ay + dz * L.az) / d;
+      const offC = Math.acos(Math.max(-1, Math.min(1, cosC)));
+      if (offC - span * Math.SQRT1_2 > tailHalfAngles * halfRad) s = 1;
+    }
+    let e = 0;
+    if (s === 1) {
+      const cosOff = (dx * L.ax + dy * L.ay + dz * L.az) / d;
+      const prof = lookupProfile(L.lut, cosOff);
+      if (prof <= 0) continue;
+      e = (L.axialCdS * prof * Math.abs(nd)) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
+    } else {
+      const side = nd > 0 ? 1 : -1;
+      for (let a = 0; a < s; a++) {
+        const fu = ((a + 0.5) / s) * 2 - 1;
+        for (let b = 0; b < s; b++) {
+          const fv = ((b + 0.5) / s) * 2 - 1;
+          const qx = dx + P.wx[i]! * hw * fu + P.vx[i]! * hh * fv;
+          const qy = dy + P.wy[i]! * hw * fu + P.vy[i]! * hh * fv;
+          const qz = dz + P.vz[i]! * hh * fv;
+          const q2 = qx * qx + qy * qy + qz * qz;
+          const q = Math.sqrt(q2);
+          if (q === 0) continue;
+          const c = (-(qx * pnx + qy * pny + qz * pnz) / q) * side;
+          if (c <= 0) continue;
+          const prof = lookupProfile(L.lut, (qx * L.ax + qy * L.ay + qz * L.az) / q);
+          e += (prof * c) / Math.max(MIN_DISTANCE_SQ_M2, q2 + L.faceR2);
+        }
+      }
+      e = (e * L.axialCdS) / (s * s);
+    }
+    if (e <= 0) continue;
     const t = transmissionAlong(occ, L.px, L.py, L.pz, P.cx[i]!, P.cy[i]!, P.cz[i]!, P.surface[i]!);
     if (t <= 0) continue;
-    const e = (L.axialCdS * prof * Math.abs(nd) * t) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
-    out[i] = nd > 0 ? e : -e;
+    out[i] = nd > 0 ? e * t : -e * t;
   }
 }
-

@@ -3,7 +3,7 @@
  *
  * Frame: plan metres, x to the right, y down the screen (as SVG), z up (height above the floor).
  * This frame is left-handed as seen from above, which is harmless here: nothing in the meter depends on
- * handedness except the "front" side of a surface, defined in scene.ts.
+ * handedness except the "front" side of a surface, defined in sceneSchema.ts.
  */
 export type Vec3 = { x: number; y: number; z: number };
 

@@ -1,136 +1,216 @@
-// The plan canvas: draws the setup document it is given (it owns none of it) with the meter's light map
-// under it, and turns touches, mouse and wheel into editor actions. Two SVG layers: the static plan
-// (items memoised by identity, so a drag re-renders one item) and the interactive overlay.
-import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
+// The plan canvas: renders what the editor says (its document, camera, selection and the items shown) with
+// the meter's light map under it, and hands touches, mouse and wheel to the editor's tools and camera
+// actions. It owns no state of its own. Each item, beam and marker subscribes to its own item, so a drag
+// re-renders the dragged item's view, its beam and the handles — not the plan. Overlays (comment pins) are
+// children drawn in screen space with the same camera (`usePlanCamera`).
+import { createContext, memo, useContext, useEffect, useMemo, useRef, useSyncExternalStore } from 'react';
 import { Platform, Pressable, StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
 import { Gesture, GestureDetector } from 'react-native-gesture-handler';
 import Svg, { G } from 'react-native-svg';
+import { useShallow } from 'zustand/react/shallow';
 import type { LightMapResult } from '../calc';
 import type { Item, ItemOf } from '../model/document';
 import type { Point } from '../model/geometry';
 import { accessibleName, anchorOf } from '../model/kinds';
 import { M_PER_FT, type Units } from '../model/units';
-import { pressDown, pressMove, pressUp, tap, type Press } from './gestures';
-import { Beams } from './layers/Beams';
+import { pinchCamera, scaleBarLength, toScreen, type Camera } from './editor/camera';
+import { itemAt, planAt } from './editor/hit';
+import { useEditor, useEditorApi, useItem } from './editor/react';
+import { itemById, type PointerKind } from './editor/state';
+import { Beam } from './layers/Beams';
+import { attachWebPinch } from './webPinch';
+import { beamClipOf } from '../drawing/plan';
 import { Grid } from './layers/Grid';
+import { Handles } from './layers/Handles';
 import { HeatCanvas } from './layers/HeatCanvas';
+import { Labels } from './layers/Labels';
 import { LightMapLayer } from './layers/LightMapLayer';
 import { Overlay } from './layers/Overlay';
-import { useEditor, useEditorStore } from './state/store';
 import { ItemView, type PlanTheme } from './views';
-import { fitStage, panBy, scaleBarLength, toPlan, toScreen, zoomAt, type Viewport } from './viewport';
+
+/** A light map that changes at its own pace (the live meter's): only the map's own layers subscribe to it, so
+ *  a new map re-renders the tint and the contours, not the plan. */
+export type LightMapSource = { get: () => LightMapResult | null; subscribe: (onChange: () => void) => () => void };
 
 export type PlanCanvasProps = {
   theme: PlanTheme;
   units: Units;
-  lightMap: LightMapResult | null;
-  /** Mouse-first (wide screen): empty-space drags draw a selection box. */
-  boxSelect: boolean;
-  /** Keys held on a keyboard (Space pans, Shift adds to the selection). */
-  keys?: { current: { space: boolean; shift: boolean } };
+  /** A fixed map (read-only views) or a live one. */
+  lightMap: LightMapResult | null | LightMapSource;
   /** More buttons for the floating column beside zoom (the screen's view toggles). */
   controls?: React.ReactNode;
   /** Pixels at the bottom covered by something else (the phone's sheet), left out when fitting the stage. */
   insetBottom?: number;
-  /** Show only these items (the plan as it stands at one step); null shows everything. */
-  visibleIds?: Set<string> | null;
+  /** A tap on the plan goes here instead of selecting (pinning a comment): the plan point and the topmost
+   *  item under it. */
+  onTap?: (at: Point, item: Item | null) => void;
+  /** Drawn over the plan in screen pixels (comment pins); they read the camera with usePlanCamera. */
+  children?: React.ReactNode;
   testID?: string;
 };
 
-export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, boxSelect, keys, visibleIds, insetBottom = 0, controls, testID }: PlanCanvasProps) {
-  const store = useEditorStore();
-  const allItems = useEditor((s) => s.doc.items);
-  const items = useMemo(() => (visibleIds ? allItems.filter((i) => visibleIds.has(i.id)) : allItems), [allItems, visibleIds]);
-  // Presses reach only what is shown (a step view hides items placed later).
-  const shownRef = useRef<Item[] | undefined>(undefined);
-  shownRef.current = visibleIds ? items : undefined;
+/** The camera and a plan → screen transform, for overlays. */
+/** The prefix of the plan's item markers' test ids (`item-<id>`). A second, small plan on the same screen (the
+ *  comment pins' plan beside the editor's) uses another, so an id names one element. */
+export const ItemTestIds = createContext('item-');
+
+/** A second plan beside the one a screen already has (the comment pins' plan in the editor, on the share
+ *  page): it is hidden from assistive tech, which reaches the items on the main plan and the pins in the
+ *  thread's words; its markers and zoom buttons take no tab stop (tabIndex -1: react-native-web's Pressable
+ *  ignores `focusable`). Pointers still zoom, pan and pin on it. */
+export const SecondaryPlan = createContext(false);
+
+export function usePlanCamera(): Camera | null {
+  return useEditor((s) => s.camera);
+}
+
+const isSource = (m: PlanCanvasProps['lightMap']): m is LightMapSource => !!m && typeof (m as LightMapSource).get === 'function';
+const noSubscribe = () => () => {};
+/** The map as it stands now, re-rendering the caller when a live source brings a new one. */
+function useLightMap(m: PlanCanvasProps['lightMap']): LightMapResult | null {
+  const source = isSource(m) ? m : null;
+  const fixed = isSource(m) ? null : m;
+  return useSyncExternalStore(source ? source.subscribe : noSubscribe, source ? source.get : () => fixed, source ? source.get : () => fixed);
+}
+
+/** Per-items-array answers, so a selector run on every store change (each move of a drag) returns the very
+ *  same array while the document and the items shown stay as they were: no filtering, no shallow compare. */
+function cachedBy<T>(compute: (items: readonly Item[], visible: ReadonlySet<string> | null) => T) {
+  const cache = new WeakMap<readonly Item[], { visible: ReadonlySet<string> | null; value: T }>();
+  return (items: readonly Item[], visible: ReadonlySet<string> | null): T => {
+    const hit = cache.get(items);
+    if (hit && hit.visible === visible) return hit.value;
+    const value = compute(items, visible);
+    cache.set(items, { visible, value });
+    return value;
+  };
+}
+const shownIdsOf = cachedBy((items, visible) => items.filter((i) => !visible || visible.has(i.id)).map((i) => i.id));
+const lightIdsOf = cachedBy((items, visible) => items.filter((i) => i.kind === 'light' && (!visible || visible.has(i.id))).map((i) => i.id));
+const wallsOf = cachedBy((items) => items.filter((i) => i.kind === 'wall'));
+
+// One frame's wait (a timer where there are no animation frames, e.g. a headless test).
+const requestFrame = (f: () => void): number => (typeof requestAnimationFrame === 'function' ? requestAnimationFrame(f) : (setTimeout(f, 16) as unknown as number));
+const cancelFrame = (id: number) => (typeof cancelAnimationFrame === 'function' ? cancelAnimationFrame(id) : clearTimeout(id));
+
+export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, insetBottom = 0, controls, onTap, children, testID }: PlanCanvasProps) {
+  const editor = useEditorApi();
+  const shownIds = useEditor(useShallow((s) => shownIdsOf(s.doc.items, s.visibleIds)));
+  const lightIds = useEditor(useShallow((s) => lightIdsOf(s.doc.items, s.visibleIds)));
   const stage = useEditor((s) => s.doc.stage);
-  const selection = useEditor((s) => s.selection);
-  const readOnly = useEditor((s) => s.readOnly);
-  const [size, setSize] = useState({ w: 0, h: 0 });
-  const [view, setView] = useState<Viewport | null>(null);
-  const viewRef = useRef<Viewport | null>(null);
-  viewRef.current = view;
-  const pressRef = useRef<Press>({ mode: 'idle' });
-  const [box, setBox] = useState<{ from: Point; to: Point } | null>(null);
-  const pinchRef = useRef<{ start: Viewport; scale: number } | null>(null);
-  const downAt = useRef<Point | null>(null);
+  const camera = useEditor((s) => s.camera);
+  const size = useEditor(useShallow((s) => s.viewport));
+  const onTapRef = useRef(onTap);
+  onTapRef.current = onTap;
+
+  useEffect(() => {
+    if (size.insetBottom !== insetBottom) editor.dispatch('setViewport', { w: size.w, h: size.h, insetBottom });
+  }, [editor, insetBottom, size]);
 
   const onLayout = (e: LayoutChangeEvent) => {
     const { width: w, height: h } = e.nativeEvent.layout;
-    setSize({ w, h });
-    setView((v) => v ?? (w > 0 && h > insetBottom ? fitStage(stage, w, h - insetBottom) : null));
+    editor.dispatch('setViewport', { w, h, insetBottom });
   };
 
-  const tolerance = useCallback((pointer: 'touch' | 'mouse') => (pointer === 'touch' ? 22 : 10) / (viewRef.current?.scale ?? 80), []);
-
+  // The last pointer position the page saw over the plan (web), in the plan box's pixels.
+  const lastPointer = useRef<Point | null>(null);
+  // Where the page saw the press (web): the pan's own begin event can already be the first move.
+  const pressedAt = useRef<Point | null>(null);
   const gesture = useMemo(() => {
-    const at = (x: number, y: number) => toPlan(viewRef.current!, x, y);
+    // A mouse on a wide screen is precise and draws boxes; elsewhere presses are treated as a finger.
+    const kind = (): PointerKind => (editor.getState().input.boxSelect ? 'mouse' : 'touch');
+    let downAt: Point | null = null;
+    // Pointer moves are coalesced per animation frame: the editor (and React) see at most one move a frame,
+    // the newest, and the DOM is written once a frame, so the gesture library's per-event bounds check
+    // reads a layout that is already clean. A release flushes the waiting move first.
+    let waiting: Point | null = null;
+    let frame: number | null = null;
+    const flush = () => {
+      if (frame !== null) cancelFrame(frame);
+      frame = null;
+      const p = waiting;
+      waiting = null;
+      if (p) editor.pointer.move({ screen: p, pointer: kind() });
+    };
+    const queueMove = (p: Point) => {
+      waiting = p;
+      frame ??= requestFrame(() => {
+        frame = null;
+        flush();
+      });
+    };
     const drag = Gesture.Pan()
+      .withTestId('plan-drag')
       .runOnJS(true)
       .maxPointers(1)
       .minDistance(3)
       // Where the finger went down: on the web the pan's translation only counts from activation, so the
       // press point is taken at touch-down, not worked back from the translation.
       .onBegin((e) => {
-        downAt.current = { x: e.x, y: e.y };
+        downAt = { x: e.x, y: e.y };
       })
       .onStart((e) => {
-        if (!viewRef.current) return;
-        const sx = downAt.current?.x ?? e.x - e.translationX;
-        const sy = downAt.current?.y ?? e.y - e.translationY;
-        pressRef.current = pressDown(store, viewRef.current, at(sx, sy), { x: sx, y: sy }, {
-          toleranceM: tolerance(boxSelect ? 'mouse' : 'touch'),
-          boxSelect,
-          panKey: keys?.current.space ?? false,
-          additive: keys?.current.shift ?? false,
-          items: shownRef.current,
-        });
-        const r = pressMove(store, pressRef.current, at(e.x, e.y), { x: e.x, y: e.y });
-        if (r.view) setView(r.view);
+        const from = pressedAt.current ?? downAt ?? { x: e.x - e.translationX, y: e.y - e.translationY };
+        editor.pointer.down({ screen: from, pointer: kind() });
+        editor.pointer.move({ screen: lastPointer.current ?? { x: e.x, y: e.y }, pointer: kind() });
       })
-      .onUpdate((e) => {
-        if (!viewRef.current) return;
-        const r = pressMove(store, pressRef.current, at(e.x, e.y), { x: e.x, y: e.y });
-        pressRef.current = r.press;
-        if (r.view) setView(r.view);
-        if (r.press.mode === 'box') setBox({ from: r.press.from, to: r.press.to });
+      // On the web the pan reports the position of the move before last; the page's own last pointer
+      // position (below) is where the hand is, so the glyph follows it and the release lands where it was let go.
+      .onUpdate((e) => queueMove(lastPointer.current ?? { x: e.x, y: e.y }))
+      .onEnd((e) => {
+        waiting = lastPointer.current ?? { x: e.x, y: e.y };
+        flush();
       })
-      .onFinalize(() => {
-        pressRef.current = pressUp(store, pressRef.current);
-        setBox(null);
+      .onFinalize((e) => {
+        flush();
+        editor.pointer.up({ screen: { x: e.x, y: e.y }, pointer: kind() });
       });
+    // A pinch keeps the plan point first under the fingers under them (pinchCamera), panning as they move;
+    // two fingers that only slide pan until a pinch takes over.
+    let pinchStart: { camera: Camera; focal: Point } | null = null;
     const twoFingerPan = Gesture.Pan()
+      .enabled(Platform.OS !== 'web')
       .runOnJS(true)
       .minPointers(2)
-      .onChange((e) => setView((v) => (v ? panBy(v, e.changeX, e.changeY) : v)));
+      .onChange((e) => {
+        if (!pinchStart) editor.dispatch('pan', { dx: e.changeX, dy: e.changeY });
+      });
+    // (On the web the plan reads two touch points itself: webPinch.ts.)
     const pinch = Gesture.Pinch()
+      .enabled(Platform.OS !== 'web')
       .runOnJS(true)
-      .onStart(() => {
-        if (viewRef.current) pinchRef.current = { start: viewRef.current, scale: 1 };
+      .onStart((e) => {
+        const camera = editor.getState().camera;
+        pinchStart = camera ? { camera, focal: { x: e.focalX, y: e.focalY } } : null;
       })
       .onUpdate((e) => {
-        const p = pinchRef.current;
-        if (p) setView(zoomAt(p.start, e.scale, e.focalX, e.focalY));
+        if (pinchStart) editor.dispatch('setCamera', { camera: pinchCamera(pinchStart.camera, pinchStart.focal, e.scale, { x: e.focalX, y: e.focalY }) });
       })
-      .onEnd(() => {
-        pinchRef.current = null;
+      .onFinalize(() => {
+        pinchStart = null;
       });
     const press = Gesture.Tap()
       .runOnJS(true)
       .maxDistance(3)
       .onEnd((e, ok) => {
-        if (ok && viewRef.current) tap(store, at(e.x, e.y), { toleranceM: tolerance(boxSelect ? 'mouse' : 'touch'), additive: keys?.current.shift ?? false, items: shownRef.current });
+        if (!ok) return;
+        const screen = { x: e.x, y: e.y };
+        const tapHandler = onTapRef.current;
+        if (tapHandler) {
+          const s = editor.getState();
+          const at = planAt(s, screen);
+          if (at) tapHandler(at, itemAt(s, screen, 'touch'));
+          return;
+        }
+        editor.pointer.tap({ screen, pointer: kind() });
       });
     // A long press adds the item under the finger to the selection (multi-select on touch).
     const hold = Gesture.LongPress()
       .runOnJS(true)
       .minDuration(450)
-      .onStart((e) => {
-        if (viewRef.current) tap(store, at(e.x, e.y), { toleranceM: tolerance('touch'), additive: true, items: shownRef.current });
-      });
+      .onStart((e) => editor.pointer.hold({ screen: { x: e.x, y: e.y }, pointer: 'touch' }));
     return Gesture.Simultaneous(Gesture.Exclusive(drag, hold, press), pinch, twoFingerPan);
-  }, [store, boxSelect, keys, tolerance]);
+  }, [editor]);
 
   // Wheel zoom on the web (and trackpad pinch, which browsers send as ctrl+wheel).
   const hostRef = useRef<View>(null);
@@ -141,81 +221,140 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, box
     const onWheel = (e: WheelEvent) => {
       e.preventDefault();
       const r = el.getBoundingClientRect();
-      const factor = Math.exp(-e.deltaY * (e.ctrlKey ? 0.01 : 0.0015));
-      setView((v) => (v ? zoomAt(v, factor, e.clientX - r.left, e.clientY - r.top) : v));
+      editor.dispatch('zoom', { factor: Math.exp(-e.deltaY * (e.ctrlKey ? 0.01 : 0.0015)), at: { x: e.clientX - r.left, y: e.clientY - r.top } });
+    };
+    let box: DOMRect | null = null;
+    const onDown = (e: PointerEvent) => {
+      box = el.getBoundingClientRect();
+      lastPointer.current = { x: e.clientX - box.left, y: e.clientY - box.top };
+      pressedAt.current = lastPointer.current;
+    };
+    const onMove = (e: PointerEvent) => {
+      if (box && e.buttons) lastPointer.current = { x: e.clientX - box.left, y: e.clientY - box.top };
+    };
+    const onUp = (e: PointerEvent) => {
+      if (box) lastPointer.current = { x: e.clientX - box.left, y: e.clientY - box.top };
+      box = null;
     };
     el.addEventListener('wheel', onWheel, { passive: false });
-    return () => el.removeEventListener('wheel', onWheel);
-  }, []);
-
-  const lights = useMemo(() => items.filter((i): i is ItemOf<'light'> => i.kind === 'light'), [items]);
-  const selected = useMemo(() => new Set(selection), [selection]);
+    const detachPinch = attachWebPinch(el, editor);
+    window.addEventListener('pointerdown', onDown, { capture: true, passive: true });
+    window.addEventListener('pointermove', onMove, { capture: true, passive: true });
+    window.addEventListener('pointerup', onUp, { capture: true, passive: true });
+    return () => {
+      detachPinch();
+      el.removeEventListener('wheel', onWheel);
+      window.removeEventListener('pointerdown', onDown, { capture: true });
+      window.removeEventListener('pointermove', onMove, { capture: true });
+      window.removeEventListener('pointerup', onUp, { capture: true });
+    };
+  }, [editor]);
 
   return (
     <View style={[styles.host, { backgroundColor: theme.gridMinor }]} onLayout={onLayout} ref={hostRef} testID={testID}>
-      {view ? <View pointerEvents="none" style={[styles.stage, { backgroundColor: theme.background, left: view.tx, top: view.ty, width: stage.widthM * view.scale, height: stage.depthM * view.scale }]} /> : null}
-      {view && lightMap ? <HeatCanvas map={lightMap} view={view} /> : null}
-      {view ? (
+      {camera ? <View pointerEvents="none" style={[styles.stage, { backgroundColor: theme.background, left: camera.tx, top: camera.ty, width: stage.widthM * camera.scale, height: stage.depthM * camera.scale }]} /> : null}
+      {camera ? <MapTint source={lightMap} camera={camera} /> : null}
+      {camera ? (
         <GestureDetector gesture={gesture}>
           <View style={StyleSheet.absoluteFill} collapsable={false}>
             <Svg width={size.w} height={size.h}>
-              <G transform={`translate(${view.tx} ${view.ty}) scale(${view.scale})`}>
+              <G transform={`translate(${camera.tx} ${camera.ty}) scale(${camera.scale})`}>
                 <Grid stage={stage} theme={theme} />
-                {lightMap ? <LightMapLayer map={lightMap} ink={theme.ink} /> : null}
-                <Beams lights={lights} />
-                {items.map((it) => (
-                  <ItemView key={it.id} item={it} theme={theme} units={units} />
+                <MapLines source={lightMap} ink={theme.ink} units={units} />
+                <G pointerEvents="none">
+                  {lightIds.map((id) => (
+                    <PlanBeam key={id} id={id} />
+                  ))}
+                </G>
+                {shownIds.map((id) => (
+                  <PlanItem key={id} id={id} theme={theme} units={units} />
                 ))}
-                <Overlay items={items} selection={selection} box={box} theme={theme} scale={view.scale} readOnly={readOnly} />
+                <Labels theme={theme} units={units} />
+                <Overlay theme={theme} />
               </G>
+              <Handles theme={theme} units={units} />
             </Svg>
           </View>
         </GestureDetector>
       ) : null}
-      {view ? <A11yLayer items={items} view={view} selected={selected} /> : null}
-      {view ? <ScaleBar scale={view.scale} units={units} theme={theme} bottom={insetBottom + 12} /> : null}
-      {view ? (
-        <View style={styles.zoom}>
-          <ZoomButton label="Zoom in" text="+" onPress={() => setView((v) => v && zoomAt(v, 1.25, size.w / 2, size.h / 2))} />
-          <ZoomButton label="Zoom out" text="−" onPress={() => setView((v) => v && zoomAt(v, 0.8, size.w / 2, size.h / 2))} />
-          <ZoomButton label="Fit the stage" text="⤢" onPress={() => setView(fitStage(stage, size.w, size.h - insetBottom))} />
-          {controls}
-        </View>
-      ) : null}
+      {camera ? <A11yLayer ids={shownIds} /> : null}
+      {camera ? children : null}
+      {camera ? <ScaleBar units={units} theme={theme} bottom={insetBottom + 12} /> : null}
+      {camera ? <ZoomColumn controls={controls} /> : null}
     </View>
   );
 });
 
+/** The light map's tint under the plan: re-renders when a new map arrives (or the camera moves). */
+const MapTint = memo(function MapTint({ source, camera }: { source: PlanCanvasProps['lightMap']; camera: Camera }) {
+  const map = useLightMap(source);
+  return map ? <HeatCanvas map={map} view={camera} /> : null;
+});
+
+const MapLines = memo(function MapLines({ source, ink, units }: { source: PlanCanvasProps['lightMap']; ink: string; units: Units }) {
+  const map = useLightMap(source);
+  return map ? <LightMapLayer map={map} ink={ink} units={units} /> : null;
+});
+
+/** One item's glyph: subscribes to that item only. */
+const PlanItem = memo(function PlanItem({ id, theme, units }: { id: string; theme: PlanTheme; units: Units }) {
+  const item = useItem(id);
+  return item ? <ItemView item={item} theme={theme} units={units} /> : null;
+});
+
+const PlanBeam = memo(function PlanBeam({ id }: { id: string }) {
+  const item = useItem(id);
+  const walls = useEditor((s) => wallsOf(s.doc.items, null));
+  const stage = useEditor((s) => s.doc.stage);
+  const clip = useMemo(() => beamClipOf({ items: walls, stage }), [walls, stage]);
+  return item?.kind === 'light' ? <Beam light={item as ItemOf<'light'>} clip={clip} /> : null;
+});
+
 /** Every item is also a focusable element with its name, over its glyph: keyboard and screen-reader users
- *  reach items with Tab, and focusing one selects it. */
-function A11yLayer({ items, view, selected }: { items: Item[]; view: Viewport; selected: Set<string> }) {
+ *  reach items with Tab, and focusing one selects it. The markers stand where the document has the items:
+ *  a drag moves them once, at release, not with every move of the hand. */
+const A11yLayer = memo(function A11yLayer({ ids: shown }: { ids: string[] }) {
   return (
     <View style={StyleSheet.absoluteFill} pointerEvents="box-none">
-      {items.map((it) => {
-        const p = toScreen(view, anchorOf(it));
-        return <Marker key={it.id} id={it.id} name={accessibleName(it)} x={p.x} y={p.y} selected={selected.has(it.id)} />;
-      })}
+      {shown.map((id) => (
+        <Marker key={id} id={id} />
+      ))}
     </View>
   );
-}
+});
 
-const Marker = memo(function Marker({ id, name, x, y, selected }: { id: string; name: string; x: number; y: number; selected: boolean }) {
-  const store = useEditorStore();
+const Marker = memo(function Marker({ id }: { id: string }) {
+  const editor = useEditorApi();
+  const item = useEditor((s) => itemById(s, id));
+  const camera = useEditor((s) => s.camera);
+  const selected = useEditor((s) => s.selection.includes(id));
+  const testIdPrefix = useContext(ItemTestIds);
+  const secondary = useContext(SecondaryPlan);
+  if (!item || !camera) return null;
+  const p = toScreen(camera, anchorOf(item));
   return (
     <Pressable
       accessibilityRole="button"
-      accessibilityLabel={name}
+      accessibilityLabel={accessibleName(item)}
       accessibilityState={{ selected }}
-      onFocus={() => store.dispatch('select', { ids: [id] })}
-      onPress={() => store.dispatch('select', { ids: [id] })}
+      onFocus={() => editor.dispatch('select', { ids: [id] })}
+      onPress={() => {
+        editor.dispatch('select', { ids: [id] });
+        editor.opens.request(id);
+      }}
       pointerEvents="none"
-      style={[styles.a11y, { left: x - 10, top: y - 10 }]}
-      testID={`item-${id}`}
+      focusable={!secondary}
+      // react-native-web's Pressable sets its own tab stop unless given a tabIndex: a hidden plan's marker
+      // takes none (axe: aria-hidden-focus).
+      tabIndex={secondary ? -1 : undefined}
+      style={[styles.a11y, { left: p.x - 12, top: p.y - 12 }]}
+      testID={`${testIdPrefix}${id}`}
     />
   );
 });
 
-function ScaleBar({ scale, units, theme, bottom }: { scale: number; units: Units; theme: PlanTheme; bottom: number }) {
+const ScaleBar = memo(function ScaleBar({ units, theme, bottom }: { units: Units; theme: PlanTheme; bottom: number }) {
+  const scale = useEditor((s) => s.camera?.scale ?? 80);
   const unitM = units === 'metric' ? 1 : M_PER_FT;
   const n = scaleBarLength(scale, unitM);
   const px = n * unitM * scale;
@@ -227,11 +366,25 @@ function ScaleBar({ scale, units, theme, bottom }: { scale: number; units: Units
       </Text>
     </View>
   );
-}
+});
 
-function ZoomButton({ label, text, onPress }: { label: string; text: string; onPress: () => void }) {
+/** Zoom, fit and the screen's own view buttons (it re-renders when those change, not with the plan). */
+const ZoomColumn = memo(function ZoomColumn({ controls }: { controls?: React.ReactNode }) {
+  const editor = useEditorApi();
+  const focusable = !useContext(SecondaryPlan);
   return (
-    <Pressable accessibilityRole="button" accessibilityLabel={label} onPress={onPress} style={styles.zoomButton}>
+    <View style={styles.zoom}>
+      <ZoomButton label="Zoom in" text="+" focusable={focusable} onPress={() => editor.dispatch('zoom', { factor: 1.25 })} />
+      <ZoomButton label="Zoom out" text="−" focusable={focusable} onPress={() => editor.dispatch('zoom', { factor: 0.8 })} />
+      <ZoomButton label="Fit the stage" text="⤢" focusable={focusable} onPress={() => editor.dispatch('fit')} />
+      {controls}
+    </View>
+  );
+});
+
+function ZoomButton({ label, text, onPress, focusable }: { label: string; text: string; onPress: () => void; focusable: boolean }) {
+  return (
+    <Pressable accessibilityRole="button" accessibilityLabel={label} onPress={onPress} focusable={focusable} tabIndex={focusable ? undefined : -1} style={styles.zoomButton}>
       <Text style={styles.zoomText}>{text}</Text>
     </Pressable>
   );
@@ -240,7 +393,7 @@ function ZoomButton({ label, text, onPress }: { label: string; text: string; onP
 const styles = StyleSheet.create({
   host: { flex: 1, overflow: 'hidden' },
   stage: { position: 'absolute' },
-  a11y: { position: 'absolute', width: 20, height: 20, borderRadius: 10 },
+  a11y: { position: 'absolute', width: 24, height: 24, borderRadius: 12 },
   scaleBar: { position: 'absolute', left: 12, bottom: 12, alignItems: 'flex-start', gap: 2 },
   scaleText: { fontFamily: 'IBMPlexMono_400Regular', fontSize: 12 },
   zoom: { position: 'absolute', right: 10, top: 10, gap: 6 },

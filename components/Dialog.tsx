@@ -12,7 +12,7 @@ export function Dialog({ visible, title, onClose, children, label }: { visible: 
       <View style={[s.backdrop, sheet ? s.bottom : s.centre]}>
         <Pressable style={StyleSheet.absoluteFill} onPress={onClose} accessibilityLabel="Close" accessibilityRole="button" />
         <View style={[s.panel, sheet ? s.sheet : s.card]} accessibilityViewIsModal role="dialog" aria-label={label ?? title}>
-          <Text accessibilityRole="header" style={s.title}>
+          <Text role="heading" aria-level={2} style={s.title}>
             {title}
           </Text>
           <ScrollView keyboardShouldPersistTaps="handled">{children}</ScrollView>

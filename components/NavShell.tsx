@@ -5,6 +5,7 @@ import { Pressable, StyleSheet, Text, View, useWindowDimensions } from 'react-na
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { WIDE_MIN, colours, fonts, space } from '../constants/theme';
 import { Mark, NavGlyph, type NavGlyphName } from './Glyph';
+import { OfflineBanner } from './offline/OfflineBanner';
 
 const destinations: { href: '/setups' | '/classes' | '/account'; label: string; glyph: NavGlyphName }[] = [
   { href: '/setups', label: 'Setups', glyph: 'setups' },
@@ -50,7 +51,10 @@ export function NavShell({ children }: { children: ReactNode }) {
           {items}
         </View>
       ) : null}
-      <View style={s.main}>{children}</View>
+      <View style={s.main}>
+        {immersive ? null : <OfflineBanner />}
+        {children}
+      </View>
       {wide || immersive ? null : (
         <View style={[s.bar, { paddingBottom: Math.max(insets.bottom, space.sm) }]} role="navigation">
           {items}

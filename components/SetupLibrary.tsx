@@ -9,10 +9,13 @@ import { useCreateSetup, useDeleteSetup, useDuplicateSetup, useRestoreSetup, use
 import type { SetupSort, SetupSummary } from '../model/api';
 import { Chip, ChipRow, Segmented } from './Chips';
 import { InvitationBanner } from './library/InvitationBanner';
+import { DaySheetBar } from './library/DaySheetBar';
 import { SetupCard, type CardActions } from './library/SetupCard';
 import { ConfirmDeleteDialog, DuplicateDialog, NewSetupDialog, writableStudios } from './library/SetupDialogs';
 import { Toast, useToast } from './Toast';
 import { Body, Button, Card, ErrorText, Title } from './ui';
+import { count } from '../model/format';
+import { usePageTitle } from '../hooks/pageTitle';
 
 function useDebounced<T>(value: T, ms: number): T {
   const [v, setV] = useState(value);
@@ -35,6 +38,7 @@ const sorts: { value: SetupSort; label: string }[] = [
 ];
 
 export function SetupLibrary() {
+  usePageTitle('Setups');
   const router = useRouter();
   const { width } = useWindowDimensions();
   const columns = width >= WIDE_MIN + 300 ? 3 : width >= TABLET_MIN ? 2 : 1;
@@ -70,6 +74,8 @@ export function SetupLibrary() {
   const [creating, setCreating] = useState(false);
   const [copying, setCopying] = useState<SetupSummary | null>(null);
   const [deleting, setDeleting] = useState<SetupSummary | null>(null);
+  /** Picking setups for a shoot day's sheets, in the order tapped; null when not picking. */
+  const [picking, setPicking] = useState<string[] | null>(null);
 
   const open = (id: string) => router.push(`/setups/${id}`);
   const failed = (what: string) => (e: Error) => toast.show({ text: `${what} failed: ${e.message}` });
@@ -81,7 +87,7 @@ export function SetupLibrary() {
     });
   };
   const actions: CardActions = {
-    onOpen: (s) => open(s.id),
+    onOpen: (s) => (picking ? setPicking(picking.includes(s.id) ? picking.filter((x) => x !== s.id) : [...picking, s.id]) : open(s.id)),
     onDuplicate: (s) => setCopying(s),
     onDelete: (s) => setDeleting(s),
     onRestore: (s) =>
@@ -111,7 +117,7 @@ export function SetupLibrary() {
   const tagChips =
     section === 'library'
       ? (tags.data ?? []).map((t) => (
-          <Chip key={`#${t.tag}`} label={`#${t.tag}`} hint={`${t.count} setups`} selected={tag === t.tag} onPress={() => setTag(tag === t.tag ? undefined : t.tag)} />
+          <Chip key={`#${t.tag}`} label={`#${t.tag}`} hint={count(t.count, 'setup')} selected={tag === t.tag} onPress={() => setTag(tag === t.tag ? undefined : t.tag)} />
         ))
       : [];
   return (
@@ -119,7 +125,10 @@ export function SetupLibrary() {
       <View style={s.head}>
         <View style={s.titleRow}>
           <Title>Setups</Title>
-          {writableStudios(studios).length ? <Button label="New setup" onPress={() => setCreating(true)} testID="new-setup" /> : null}
+          <View style={{ flexDirection: 'row', gap: space.sm }}>
+            {section === 'library' && !picking ? <Button kind="quiet" label="Day sheets" onPress={() => setPicking([])} testID="pick-day" /> : null}
+            {writableStudios(studios).length ? <Button label="New setup" onPress={() => setCreating(true)} testID="new-setup" /> : null}
+          </View>
         </View>
         <InvitationBanner onJoined={(name) => toast.show({ text: `You joined ${name}.` })} />
         <TextInput
@@ -162,7 +171,7 @@ export function SetupLibrary() {
           keyExtractor={(x) => x.id}
           contentContainerStyle={s.list}
           columnWrapperStyle={columns > 1 ? { gap: space.md } : undefined}
-          renderItem={({ item }) => <SetupCard setup={item} section={section} maxWidth={maxCardWidth} actions={actions} />}
+          renderItem={({ item }) => <SetupCard setup={item} section={section} maxWidth={maxCardWidth} actions={actions} pickedNo={picking ? picking.indexOf(item.id) + 1 || 0 : null} />}
           onEndReachedThreshold={0.5}
           onEndReached={() => list.hasNextPage && !list.isFetchingNextPage && list.fetchNextPage()}
           ListFooterComponent={list.isFetchingNextPage ? <ActivityIndicator color={colours.accent} style={{ margin: space.lg }} /> : null}
@@ -182,6 +191,7 @@ export function SetupLibrary() {
         />
       )}
 
+      {picking && section === 'library' ? <DaySheetBar chosen={picking} onDone={() => setPicking(null)} /> : null}
       <NewSetupDialog
         visible={creating}
         studios={studios}

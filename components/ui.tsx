@@ -2,10 +2,25 @@
 import type { ReactNode } from 'react';
 import { ActivityIndicator, Pressable, StyleSheet, Text, View, type TextProps, type ViewStyle } from 'react-native';
 import { colours, fonts, radius, space } from '../constants/theme';
+import { usePageTitle } from '../hooks/pageTitle';
 
-export function Title({ children }: { children: ReactNode }) {
+/**
+ * The page's one top-level heading (h1). It also titles the page after what it shows: its text, or `page`
+ * when the heading is not plain text (or says it differently).
+ */
+export function Title({ children, page }: { children: ReactNode; page?: string }) {
+  usePageTitle(page ?? (typeof children === 'string' ? children.trim() : null));
   return (
-    <Text accessibilityRole="header" style={s.title}>
+    <Text role="heading" aria-level={1} style={s.title}>
+      {children}
+    </Text>
+  );
+}
+
+/** A section's heading (h2) under the page's Title. */
+export function SectionHeading({ children, style }: { children: ReactNode; style?: TextProps['style'] }) {
+  return (
+    <Text role="heading" aria-level={2} style={[s.section, style]}>
       {children}
     </Text>
   );
@@ -66,6 +81,7 @@ export function ErrorText({ children }: { children: ReactNode }) {
 
 const s = StyleSheet.create({
   title: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 26, marginBottom: space.md },
+  section: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 18, marginBottom: space.sm },
   body: { color: colours.text, fontFamily: fonts.sans, fontSize: 15, lineHeight: 22 },
   num: { color: colours.text, fontFamily: fonts.mono, fontSize: 14 },
   button: {

@@ -8,11 +8,12 @@ export const colours = {
   gridMajor: '#363b42',
   text: '#ece9e2',
   textDim: '#a3a49f',
-  textFaint: '#73766f',
+  // Every text colour reads at 4.5:1 or more on graphite, panel and panelRaised (WCAG 2.2 AA; tests/unit/theme.test.ts).
+  textFaint: '#9c9f98',
   accent: '#f0b24a', // warm tungsten amber: buttons, selection
   accentText: '#1d2024',
   cool: '#7cc4d8', // daylight cyan: secondary readings
-  danger: '#ef6b5b',
+  danger: '#f47c6c',
   ok: '#8fcf7a',
   paper: '#fbfaf7',
   ink: '#1b1c1e',

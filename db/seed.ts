@@ -1,20 +1,23 @@
 // Seeds the demo studio, class, users and setups once (skipped when the demo owner exists), then the demo
 // class's lesson and assignment once (skipped when the lesson is there), so a database seeded before
 // lessons existed gets them too.
-import { and, eq } from 'drizzle-orm';
-import { createAuth } from '../server/auth';
+import { and, eq, inArray } from 'drizzle-orm';
+import { generateRandomString, hashPassword } from 'better-auth/crypto';
 import type { Db } from './client';
 import { DEMO_CLASS, DEMO_JOIN_CODE, DEMO_PASSWORD, DEMO_STUDIO, demoUsers } from './demo';
 import { createAssignment } from './assignments';
 import { addLessonSetup, createLesson, updateLesson, updateLessonSetup, lessonSetupOf } from './lessons';
-import { classMembers, classes, lessons, studioMembers, studios, user } from './schema';
+import { account, classMembers, classes, lessons, studioMembers, studios, user } from './schema';
 import { DEMO_ASSIGNMENT, DEMO_LESSON } from './seed-lesson';
 import { createSetup } from './setups';
 import { demoSetups } from './seed-setups';
-import { studiosOf } from './studios';
+import { createPersonalStudio, studiosOf } from './studios';
 
 export async function seedDemo(db: Db): Promise<boolean> {
   const people = await seedDemoPeople(db);
+  // The demo people's addresses count as confirmed (they are invented, no mail reaches them), also in a
+  // database seeded before addresses were confirmed.
+  await db.update(user).set({ emailVerified: true }).where(inArray(user.email, Object.values(demoUsers).map((u) => u.email)));
   const lesson = await seedDemoLesson(db);
   return people || lesson;
 }
@@ -23,11 +26,17 @@ async function seedDemoPeople(db: Db): Promise<boolean> {
   const [existing] = await db.select({ id: user.id }).from(user).where(eq(user.email, demoUsers.owner.email));
   if (existing) return false;
 
-  const auth = createAuth(db, { baseURL: 'http://127.0.0.1', secret: 'seed-only-secret-0123456789abcdef' });
+  // The rows better-auth's e-mail sign-up writes (a user and its 'credential' account holding the password
+  // hash), written here so db/ does not depend on the server's auth set-up. Demo addresses count as verified.
+  const password = await hashPassword(DEMO_PASSWORD);
   const ids: Record<string, string> = {};
   for (const [key, u] of Object.entries(demoUsers)) {
-    const r = await auth.api.signUpEmail({ body: { name: u.name, email: u.email, password: DEMO_PASSWORD } });
-    ids[key] = r.user.id;
+    const id = generateRandomString(32);
+    await db.insert(user).values({ id, name: u.name, email: u.email, emailVerified: true });
+    await db.insert(account).values({ id: generateRandomString(32), accountId: id, providerId: 'credential', userId: id, password });
+    // and the personal studio every new account gets at sign-up (server/auth.ts)
+    await createPersonalStudio(db, { id, name: u.name });
+    ids[key] = id;
   }
 
   await db.transaction(async (tx) => {
@@ -48,6 +57,8 @@ async function seedDemoPeople(db: Db): Promise<boolean> {
         notes: s.notes,
         tags: s.tags,
         isTemplate: s.template,
+        // the demo's template is in the gallery for everyone, as if an operator had published it
+        forEveryone: s.template,
         document: s.document,
       });
     }

@@ -1,8 +1,9 @@
 // Setup queries. Callers (server/routes) have already checked the caller's role. Every list is one query.
-import { and, arrayContains, asc, desc, eq, gt, ilike, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
+import { and, arrayContains, asc, desc, eq, gt, ilike, inArray, isNotNull, isNull, or, sql, type Placeholder, type SQL } from 'drizzle-orm';
 import type { SetupDetail, SetupSaved, SetupSort, SetupSummary, TagCount } from '../model/api';
 import { CURRENT_SCHEMA_VERSION, parseDocument, type SetupDocument } from '../model/document';
 import type { Db } from './client';
+import { unreadCountSql } from './comments';
 import { setups, setupVersions, studioMembers, studios, user } from './schema';
 
 export type SetupRow = typeof setups.$inferSelect;
@@ -58,29 +59,19 @@ const orders = {
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (m) => `\\${m}`);
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
-/** One page of setups for a user: their studios' setups, every studio's templates, or their restorable deletions. */
-export async function listSetups(db: Db, userId: string, o: ListOptions): Promise<{ setups: SetupSummary[]; nextCursor: string | null }> {
-  const orderName = o.mode === 'deleted' ? 'deleted' : o.sort;
-  const order = orders[orderName];
-  const cursor = o.cursor ? decodeCursor(o.cursor, orderName) : null;
-  if (o.cursor && !cursor) throw new BadCursor();
-
-  const member = and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, userId));
+/**
+ * The list's query. `userId` and `limit` may be placeholders: a first page without search, tag or studio (what
+ * opening the library asks for, by far the most common list) is one prepared statement per mode and order.
+ */
+function listQuery(db: Db, o: { mode: ListMode; orderName: keyof typeof orders; userId: string | Placeholder; limit: number | Placeholder; extra: (SQL | undefined)[] }) {
+  const order = orders[o.orderName];
+  const member = and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, o.userId));
   const conds: (SQL | undefined)[] = [];
-  if (o.mode === 'templates') conds.push(eq(setups.isTemplate, true), isNull(setups.deletedAt));
+  // Templates: the gallery for everyone, and the caller's own studios' templates.
+  if (o.mode === 'templates') conds.push(eq(setups.isTemplate, true), isNull(setups.deletedAt), or(eq(setups.forEveryone, true), isNotNull(studioMembers.role)));
   else if (o.mode === 'deleted') conds.push(isNotNull(setups.deletedAt), gt(setups.deletedAt, restoreWindow), inArray(studioMembers.role, ['owner', 'editor']));
   else conds.push(isNull(setups.deletedAt));
-  if (o.studio) conds.push(eq(setups.studioId, o.studio));
-  if (o.q) {
-    const pat = `%${escapeLike(o.q.trim())}%`;
-    conds.push(or(ilike(setups.title, pat), ilike(setups.notes, pat), arrayContains(setups.tags, [o.q.trim().toLowerCase()])));
-  }
-  if (o.tag) conds.push(arrayContains(setups.tags, [o.tag]));
-  if (cursor) {
-    const k = sql`${cursor.k}::${sql.raw(order.cast)}`;
-    conds.push(order.dir === 'desc' ? sql`(${order.key}, ${setups.id}) < (${k}, ${cursor.id}::uuid)` : sql`(${order.key}, ${setups.id}) > (${k}, ${cursor.id}::uuid)`);
-  }
-
+  conds.push(...o.extra);
   const base = db
     .select({
       id: setups.id,
@@ -91,11 +82,14 @@ export async function listSetups(db: Db, userId: string, o: ListOptions): Promis
       tags: setups.tags,
       version: setups.version,
       isTemplate: setups.isTemplate,
+      forEveryone: setups.forEveryone,
       itemCount: setups.itemCount,
       createdAt: setups.createdAt,
       updatedAt: setups.updatedAt,
       deletedAt: setups.deletedAt,
       role: studioMembers.role,
+      // Comments stay inside the studio: another studio's template shows none.
+      unreadComments: sql<number>`case when ${studioMembers.role} is null then 0 else ${unreadCountSql(o.userId, setups.id)} end`,
       sortKey: sql<string>`${order.text}`,
     })
     .from(setups)
@@ -103,19 +97,56 @@ export async function listSetups(db: Db, userId: string, o: ListOptions): Promis
     .leftJoin(user, eq(user.id, setups.ownerId));
   const joined = o.mode === 'templates' ? base.leftJoin(studioMembers, member) : base.innerJoin(studioMembers, member);
   const dir = order.dir === 'desc' ? desc : asc;
-  const rows = await joined
+  return joined
     .where(and(...conds))
     .orderBy(dir(order.key), dir(setups.id))
-    .limit(o.limit + 1);
+    .limit(o.limit);
+}
+
+/** One page of setups for a user: their studios' setups, the templates they may use (the gallery for everyone and their studios' own), or their restorable deletions. */
+export async function listSetups(db: Db, userId: string, o: ListOptions): Promise<{ setups: SetupSummary[]; nextCursor: string | null }> {
+  const orderName = o.mode === 'deleted' ? 'deleted' : o.sort;
+  const order = orders[orderName];
+  const cursor = o.cursor ? decodeCursor(o.cursor, orderName) : null;
+  if (o.cursor && !cursor) throw new BadCursor();
+
+  const extra: (SQL | undefined)[] = [];
+  if (o.studio) extra.push(eq(setups.studioId, o.studio));
+  if (o.q) {
+    const pat = `%${escapeLike(o.q.trim())}%`;
+    extra.push(or(ilike(setups.title, pat), ilike(setups.notes, pat), arrayContains(setups.tags, [o.q.trim().toLowerCase()])));
+  }
+  if (o.tag) extra.push(arrayContains(setups.tags, [o.tag]));
+  if (cursor) {
+    const k = sql`${cursor.k}::${sql.raw(order.cast)}`;
+    extra.push(order.dir === 'desc' ? sql`(${order.key}, ${setups.id}) < (${k}, ${cursor.id}::uuid)` : sql`(${order.key}, ${setups.id}) > (${k}, ${cursor.id}::uuid)`);
+  }
+
+  const rows = extra.length
+    ? await listQuery(db, { mode: o.mode, orderName, userId, limit: o.limit + 1, extra })
+    : await prepared(db, `list_${o.mode}_${orderName}`, () =>
+        listQuery(db, { mode: o.mode, orderName, userId: sql.placeholder('userId'), limit: sql.placeholder('limit'), extra: [] }).prepare(`list_${o.mode}_${orderName}`),
+      ).execute({ userId, limit: o.limit + 1 });
 
   const page = rows.slice(0, o.limit);
   const last = page[page.length - 1];
   return {
-    setups: page.map(({ sortKey: _k, ...r }) => ({
-      ...r,
+    setups: page.map((r) => ({
+      id: r.id,
+      studioId: r.studioId,
+      studioName: r.studioName,
+      ownerName: r.ownerName,
+      title: r.title,
+      tags: r.tags,
+      version: r.version,
+      isTemplate: r.isTemplate,
+      forEveryone: r.forEveryone,
+      itemCount: r.itemCount,
       createdAt: r.createdAt.toISOString(),
       updatedAt: r.updatedAt.toISOString(),
       deletedAt: iso(r.deletedAt),
+      role: r.role,
+      unreadComments: r.unreadComments,
       restorableUntil: r.deletedAt ? new Date(r.deletedAt.getTime() + RESTORE_DAYS * 86_400_000).toISOString() : null,
     })),
     nextCursor: rows.length > o.limit && last ? encodeCursor({ o: orderName, k: last.sortKey, id: last.id }) : null,
@@ -141,7 +172,7 @@ export async function tagsInUse(db: Db, userId: string, studio?: string): Promis
 export async function getSetupAccess(db: Db, id: string, userId: string) {
   const q = prepared(db, 'setup_access', () =>
     db
-      .select({ id: setups.id, studioId: setups.studioId, isTemplate: setups.isTemplate, deletedAt: setups.deletedAt, version: setups.version, role: studioMembers.role })
+      .select({ id: setups.id, studioId: setups.studioId, isTemplate: setups.isTemplate, forEveryone: setups.forEveryone, deletedAt: setups.deletedAt, version: setups.version, role: studioMembers.role })
       .from(setups)
       .leftJoin(studioMembers, and(eq(studioMembers.studioId, setups.studioId), eq(studioMembers.userId, sql.placeholder('userId'))))
       .where(eq(setups.id, sql.placeholder('id')))
@@ -169,6 +200,7 @@ export const savedColumns = {
   schemaVersion: setups.schemaVersion,
   version: setups.version,
   isTemplate: setups.isTemplate,
+  forEveryone: setups.forEveryone,
   createdAt: setups.createdAt,
   updatedAt: setups.updatedAt,
 };
@@ -196,7 +228,7 @@ export async function getSetupDetail(db: Db, id: string, userId: string) {
   const { documentJson, deletedAt, ...meta } = row;
   const current = meta.schemaVersion === CURRENT_SCHEMA_VERSION;
   return {
-    access: { id: meta.id, studioId: meta.studioId, isTemplate: meta.isTemplate, deletedAt, version: meta.version, role: meta.role } satisfies SetupAccess,
+    access: { id: meta.id, studioId: meta.studioId, isTemplate: meta.isTemplate, forEveryone: meta.forEveryone, deletedAt, version: meta.version, role: meta.role } satisfies SetupAccess,
     meta: { ...meta, schemaVersion: CURRENT_SCHEMA_VERSION, createdAt: meta.createdAt.toISOString(), updatedAt: meta.updatedAt.toISOString() } satisfies Omit<SetupDetail, 'document'>,
     documentJson: current ? documentJson : JSON.stringify(parseDocument(JSON.parse(documentJson))),
   };
@@ -229,7 +261,7 @@ export async function recordVersion(tx: Conn, setupId: string, userId: string | 
 
 export async function createSetup(
   db: Conn,
-  v: { studioId: string; ownerId: string; title: string; document: SetupDocument; notes?: string; tags?: string[]; isTemplate?: boolean },
+  v: { studioId: string; ownerId: string; title: string; document: SetupDocument; notes?: string; tags?: string[]; isTemplate?: boolean; forEveryone?: boolean },
 ): Promise<SetupRow> {
   return db.transaction(async (tx) => {
     const [row] = await tx
@@ -243,7 +275,8 @@ export async function createSetup(
         document: v.document,
         schemaVersion: v.document.schemaVersion,
         itemCount: v.document.items.length,
-        isTemplate: v.isTemplate ?? false,
+        isTemplate: (v.isTemplate || v.forEveryone) ?? false,
+        forEveryone: v.forEveryone ?? false,
       })
       .returning();
     await recordVersion(tx, row!.id, v.ownerId);
@@ -259,7 +292,7 @@ export type SetupChanges = { title?: string; notes?: string; tags?: string[]; do
  * and the history row is inserted by the same statement, unless the new state equals the latest recorded
  * one. Returns null when nothing was saved (wrong version, deleted, missing).
  */
-export async function saveSetup(db: Db, id: string, fromVersion: number, c: SetupChanges, userId: string): Promise<SetupSaved | null> {
+export async function saveSetup(db: Db, id: string, fromVersion: number, c: SetupChanges, userId: string, idempotencyKey: string | null = null): Promise<SetupSaved | null> {
   const r = await db.$client.query<SavedRow>({
     name: 'setup_save',
     text: `
@@ -269,6 +302,9 @@ export async function saveSetup(db: Db, id: string, fromVersion: number, c: Setu
           notes = coalesce($4, notes),
           tags = coalesce($5::text[], tags),
           is_template = coalesce($6, is_template),
+          -- a setup that stops being a template leaves the gallery for everyone too (the route lets only an
+          -- operator do that to a setup in the gallery)
+          for_everyone = for_everyone and coalesce($6, is_template),
           document = coalesce($7::jsonb, document),
           schema_version = coalesce($8, schema_version),
           item_count = coalesce($9, item_count),
@@ -283,8 +319,12 @@ export async function saveSetup(db: Db, id: string, fromVersion: number, c: Setu
         select u.id, u.version, u.title, u.notes, u.tags, u.document, u.schema_version, u.item_count, $10, u.updated_at
         from upd u
         where not exists (select 1 from latest l where l.document = u.document and l.title = u.title and l.notes = u.notes and l.tags = u.tags)
+      ), receipt as (
+        insert into save_receipts (user_id, key, setup_id, result)
+        select $10, $11, u.id, to_jsonb(u) - 'document' from upd u where $11::text is not null
+        on conflict do nothing
       )
-      select id, studio_id, owner_id, title, notes, tags, schema_version, version, is_template, created_at, updated_at from upd`,
+      select id, studio_id, owner_id, title, notes, tags, schema_version, version, is_template, for_everyone, created_at, updated_at from upd`,
     values: [
       id,
       fromVersion,
@@ -296,10 +336,26 @@ export async function saveSetup(db: Db, id: string, fromVersion: number, c: Setu
       c.document?.schemaVersion ?? null,
       c.document?.items.length ?? null,
       userId,
+      idempotencyKey,
     ],
   });
   const row = r.rows[0];
   if (!row) return null;
+  return savedOf(row);
+}
+
+/** The answer of an earlier save by `userId` with this Idempotency-Key, if it committed (within a day). */
+export async function savedByKey(db: Db, userId: string, key: string, setupId: string): Promise<SetupSaved | null> {
+  const r = await db.$client.query<{ result: SavedRow }>(`select result from save_receipts where user_id = $1 and key = $2 and setup_id = $3 and created_at > now() - interval '1 day'`, [userId, key, setupId]);
+  return r.rows[0] ? savedOf(r.rows[0].result) : null;
+}
+
+/** Forget receipts older than a day. */
+export async function pruneSaveReceipts(db: Db): Promise<void> {
+  await db.$client.query(`delete from save_receipts where created_at < now() - interval '1 day'`);
+}
+
+function savedOf(row: SavedRow): SetupSaved {
   return {
     id: row.id,
     studioId: row.studio_id,
@@ -310,6 +366,7 @@ export async function saveSetup(db: Db, id: string, fromVersion: number, c: Setu
     schemaVersion: row.schema_version,
     version: row.version,
     isTemplate: row.is_template,
+    forEveryone: row.for_everyone ?? false,
     createdAt: new Date(row.created_at).toISOString(),
     updatedAt: new Date(row.updated_at).toISOString(),
   };
@@ -324,6 +381,8 @@ type SavedRow = {
   schema_version: number;
   version: number;
   is_template: boolean;
+  /** Missing in receipts written before the gallery for everyone existed. */
+  for_everyone?: boolean;
   created_at: Date | string;
   updated_at: Date | string;
 };
@@ -363,4 +422,18 @@ export async function duplicateSetup(db: Db, sourceId: string, to: { studioId: s
     await recordVersion(tx, id, to.ownerId);
     return id;
   });
+}
+
+/**
+ * Publish a template to, or withdraw it from, the gallery for everyone (the route has checked the caller is an
+ * operator). Publishing makes it a template of its studio too; withdrawing leaves it one. Not a save: the
+ * version and the document stay as they are. Null when the setup is not live.
+ */
+export async function setForEveryone(db: Db, id: string, forEveryone: boolean): Promise<{ id: string; isTemplate: boolean; forEveryone: boolean } | null> {
+  const [row] = await db
+    .update(setups)
+    .set(forEveryone ? { forEveryone: true, isTemplate: true } : { forEveryone: false })
+    .where(and(eq(setups.id, id), isNull(setups.deletedAt)))
+    .returning({ id: setups.id, isTemplate: setups.isTemplate, forEveryone: setups.forEveryone });
+  return row ?? null;
 }

@@ -24,7 +24,7 @@ export async function createStudio(db: Db, userId: string, name: string): Promis
   return db.transaction(async (tx) => {
     const [s] = await tx.insert(studios).values({ name, createdBy: userId }).returning();
     await tx.insert(studioMembers).values({ studioId: s!.id, userId, role: 'owner' });
-    return { id: s!.id, name: s!.name, personal: false, role: 'owner' as const, memberCount: 1, createdAt: s!.createdAt.toISOString() };
+    return { id: s!.id, name: s!.name, personal: false, role: 'owner' as const, memberCount: 1, createdAt: s!.createdAt.toISOString(), crewMayCopy: s!.crewMayCopy };
   });
 }
 
@@ -42,7 +42,7 @@ const memberCount = sql<number>`(select count(*)::int from ${studioMembers} c wh
 /** The user's studios with member counts: one query. */
 export async function studioViewsOf(db: Db, userId: string, studioId?: string): Promise<StudioView[]> {
   const rows = await db
-    .select({ id: studios.id, name: studios.name, personal: studios.personal, role: studioMembers.role, memberCount, createdAt: studios.createdAt })
+    .select({ id: studios.id, name: studios.name, personal: studios.personal, role: studioMembers.role, memberCount, createdAt: studios.createdAt, crewMayCopy: studios.crewMayCopy })
     .from(studioMembers)
     .innerJoin(studios, eq(studios.id, studioMembers.studioId))
     .where(and(eq(studioMembers.userId, userId), studioId ? eq(studios.id, studioId) : undefined))
@@ -50,8 +50,13 @@ export async function studioViewsOf(db: Db, userId: string, studioId?: string): 
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
 
-export async function renameStudio(db: Db, studioId: string, name: string) {
-  await db.update(studios).set({ name }).where(eq(studios.id, studioId));
+export async function updateStudio(db: Db, studioId: string, changes: { name?: string; crewMayCopy?: boolean }) {
+  await db.update(studios).set(changes).where(eq(studios.id, studioId));
+}
+
+export async function crewMayCopy(db: Db, studioId: string): Promise<boolean> {
+  const [r] = await db.select({ v: studios.crewMayCopy }).from(studios).where(eq(studios.id, studioId));
+  return r?.v ?? false;
 }
 
 export async function isPersonalStudio(db: Db, studioId: string): Promise<boolean> {

@@ -4,32 +4,22 @@
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type {
   AssignmentDetail,
-  AssignmentSummary,
-  AssignmentWork,
-  ClassInvitation,
-  ClassListResponse,
-  ClassMember,
   ClassView,
   CreateAssignmentBody,
+  UpdateAssignmentBody,
   InviteToClassBody,
-  JoinedClass,
   LessonDetail,
-  LessonSetup,
-  LessonSummary,
-  SetupDetail,
   SubmissionComment,
   SubmissionCommentBody,
   SubmissionDetail,
-  SubmissionSummary,
-  UpdateAssignmentBody,
   UpdateLessonBody,
   UpdateLessonSetupBody,
 } from '../model/api';
 import { parseDocument } from '../model/document';
-import { api } from './api';
+import { call } from './api';
 import { meKeys } from './me';
 
-export const classKeys = {
+const classKeys = {
   all: ['classes'] as const,
   list: () => [...classKeys.all, 'list'] as const,
   detail: (id: string) => [...classKeys.all, 'detail', id] as const,
@@ -52,11 +42,11 @@ const submissionIn = (s: SubmissionDetail): SubmissionDetail => ({ ...withDoc(s)
 // Classes and the roster
 
 export function useClasses() {
-  return useQuery({ queryKey: classKeys.list(), queryFn: ({ signal }) => api<ClassListResponse>('/classes', { signal }) });
+  return useQuery({ queryKey: classKeys.list(), queryFn: ({ signal }) => call('listClasses', { signal }) });
 }
 
 export function useClass(id: string) {
-  return useQuery({ queryKey: classKeys.detail(id), queryFn: ({ signal }) => api<ClassView>(`/classes/${id}`, { signal }) });
+  return useQuery({ queryKey: classKeys.detail(id), queryFn: ({ signal }) => call('getClass', { params: { id }, signal }) });
 }
 
 function classesChanged(qc: QueryClient) {
@@ -67,7 +57,7 @@ function classesChanged(qc: QueryClient) {
 export function useCreateClass() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { name: string }) => api<ClassView>('/classes', { method: 'POST', body }),
+    mutationFn: (body: { name: string }) => call('createClass', { body }),
     onSuccess: (c) => {
       qc.setQueryData(classKeys.detail(c.id), c);
       classesChanged(qc);
@@ -77,30 +67,30 @@ export function useCreateClass() {
 
 export function useJoinClass() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: (body: { code: string }) => api<JoinedClass>('/classes/join', { method: 'POST', body }), onSuccess: () => classesChanged(qc) });
+  return useMutation({ mutationFn: (body: { code: string }) => call('joinClass', { body }), onSuccess: () => classesChanged(qc) });
 }
 
 export function useAcceptClassInvitation() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: (classId: string) => api<JoinedClass>(`/classes/${classId}/accept`, { method: 'POST' }), onSuccess: () => classesChanged(qc) });
+  return useMutation({ mutationFn: (classId: string) => call('acceptClass', { params: { id: classId } }), onSuccess: () => classesChanged(qc) });
 }
 
 export function useNewJoinCode(classId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: () => api<{ joinCode: string }>(`/classes/${classId}/join-code`, { method: 'POST' }),
+    mutationFn: () => call('newJoinCode', { params: { id: classId } }),
     onSuccess: ({ joinCode }) => qc.setQueryData<ClassView>(classKeys.detail(classId), (c) => (c ? { ...c, joinCode } : c)),
   });
 }
 
 export function useClassMembers(classId: string) {
-  return useQuery({ queryKey: classKeys.members(classId), queryFn: ({ signal }) => api<{ members: ClassMember[] }>(`/classes/${classId}/members`, { signal }).then((r) => r.members) });
+  return useQuery({ queryKey: classKeys.members(classId), queryFn: ({ signal }) => call('classMembers', { params: { id: classId }, signal }).then((r) => r.members) });
 }
 
 export function useRemoveClassMember(classId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (userId: string) => api<void>(`/classes/${classId}/members/${userId}`, { method: 'DELETE' }),
+    mutationFn: (userId: string) => call('removeClassMember', { params: { id: classId, userId } }),
     onSettled: () => {
       void qc.invalidateQueries({ queryKey: classKeys.members(classId) });
       void qc.invalidateQueries({ queryKey: classKeys.detail(classId) });
@@ -113,14 +103,14 @@ export function useClassInvitations(classId: string, enabled: boolean) {
   return useQuery({
     queryKey: classKeys.invitations(classId),
     enabled,
-    queryFn: ({ signal }) => api<{ invitations: ClassInvitation[] }>(`/classes/${classId}/invitations`, { signal }).then((r) => r.invitations),
+    queryFn: ({ signal }) => call('classInvitations', { params: { id: classId }, signal }).then((r) => r.invitations),
   });
 }
 
 export function useInviteToClass(classId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: InviteToClassBody) => api<ClassInvitation>(`/classes/${classId}/invitations`, { method: 'POST', body }),
+    mutationFn: (body: InviteToClassBody) => call('inviteToClass', { params: { id: classId }, body }),
     onSuccess: () => void qc.invalidateQueries({ queryKey: classKeys.invitations(classId) }),
   });
 }
@@ -128,7 +118,7 @@ export function useInviteToClass(classId: string) {
 export function useWithdrawClassInvitation(classId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (id: string) => api<void>(`/classes/${classId}/invitations/${id}`, { method: 'DELETE' }),
+    mutationFn: (id: string) => call('cancelClassInvitation', { params: { id: classId, invitationId: id } }),
     onSettled: () => void qc.invalidateQueries({ queryKey: classKeys.invitations(classId) }),
   });
 }
@@ -137,13 +127,13 @@ export function useWithdrawClassInvitation(classId: string) {
 // Lessons
 
 export function useLessons(classId: string) {
-  return useQuery({ queryKey: classKeys.lessons(classId), queryFn: ({ signal }) => api<{ lessons: LessonSummary[] }>(`/classes/${classId}/lessons`, { signal }).then((r) => r.lessons) });
+  return useQuery({ queryKey: classKeys.lessons(classId), queryFn: ({ signal }) => call('classLessons', { params: { id: classId }, signal }).then((r) => r.lessons) });
 }
 
 export function useCreateLesson(classId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { title: string; summary?: string }) => api<LessonSummary>(`/classes/${classId}/lessons`, { method: 'POST', body }),
+    mutationFn: (body: { title: string; summary?: string }) => call('createLesson', { params: { id: classId }, body }),
     onSuccess: () => {
       void qc.invalidateQueries({ queryKey: classKeys.lessons(classId) });
       void qc.invalidateQueries({ queryKey: classKeys.detail(classId) });
@@ -152,7 +142,7 @@ export function useCreateLesson(classId: string) {
 }
 
 export function useLesson(id: string) {
-  return useQuery({ queryKey: classKeys.lesson(id), queryFn: ({ signal }) => api<LessonDetail>(`/lessons/${id}`, { signal }).then(lessonIn) });
+  return useQuery({ queryKey: classKeys.lesson(id), queryFn: ({ signal }) => call('getLesson', { params: { id }, signal }).then(lessonIn) });
 }
 
 function lessonChanged(qc: QueryClient, l: { id: string; classId: string }) {
@@ -163,7 +153,7 @@ function lessonChanged(qc: QueryClient, l: { id: string; classId: string }) {
 export function useUpdateLesson(lesson: { id: string; classId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: UpdateLessonBody) => api<LessonDetail>(`/lessons/${lesson.id}`, { method: 'PATCH', body }).then(lessonIn),
+    mutationFn: (body: UpdateLessonBody) => call('updateLesson', { params: { id: lesson.id }, body }).then(lessonIn),
     onSuccess: (l) => {
       qc.setQueryData(classKeys.lesson(lesson.id), l);
       lessonChanged(qc, lesson);
@@ -174,7 +164,7 @@ export function useUpdateLesson(lesson: { id: string; classId: string }) {
 export function useDeleteLesson(lesson: { id: string; classId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: () => api<void>(`/lessons/${lesson.id}`, { method: 'DELETE' }),
+    mutationFn: () => call('deleteLesson', { params: { id: lesson.id } }),
     onSuccess: () => {
       qc.removeQueries({ queryKey: classKeys.lesson(lesson.id) });
       void qc.invalidateQueries({ queryKey: classKeys.lessons(lesson.classId) });
@@ -185,7 +175,7 @@ export function useDeleteLesson(lesson: { id: string; classId: string }) {
 export function useAddLessonSetup(lesson: { id: string; classId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { setupId: string; note?: string }) => api<LessonSetup>(`/lessons/${lesson.id}/setups`, { method: 'POST', body }),
+    mutationFn: (body: { setupId: string; note?: string }) => call('addLessonSetup', { params: { id: lesson.id }, body }),
     onSuccess: () => lessonChanged(qc, lesson),
   });
 }
@@ -194,7 +184,7 @@ export function useAddLessonSetup(lesson: { id: string; classId: string }) {
 export function useUpdateLessonSetup(lesson: { id: string; classId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ entryId, ...body }: UpdateLessonSetupBody & { entryId: string }) => api<LessonSetup>(`/lessons/${lesson.id}/setups/${entryId}`, { method: 'PATCH', body }),
+    mutationFn: ({ entryId, ...body }: UpdateLessonSetupBody & { entryId: string }) => call('updateLessonSetup', { params: { id: lesson.id, entryId }, body }),
     onMutate: async ({ entryId, note, stepNotes }) => {
       await qc.cancelQueries({ queryKey: classKeys.lesson(lesson.id) });
       const before = qc.getQueryData<LessonDetail>(classKeys.lesson(lesson.id));
@@ -214,7 +204,7 @@ export function useUpdateLessonSetup(lesson: { id: string; classId: string }) {
 export function useRefreshLessonSetup(lesson: { id: string; classId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (entryId: string) => api<LessonSetup>(`/lessons/${lesson.id}/setups/${entryId}/refresh`, { method: 'POST' }),
+    mutationFn: (entryId: string) => call('refreshLessonSetup', { params: { id: lesson.id, entryId } }),
     onSettled: () => lessonChanged(qc, lesson),
   });
 }
@@ -222,7 +212,7 @@ export function useRefreshLessonSetup(lesson: { id: string; classId: string }) {
 export function useRemoveLessonSetup(lesson: { id: string; classId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (entryId: string) => api<void>(`/lessons/${lesson.id}/setups/${entryId}`, { method: 'DELETE' }),
+    mutationFn: (entryId: string) => call('removeLessonSetup', { params: { id: lesson.id, entryId } }),
     onSettled: () => lessonChanged(qc, lesson),
   });
 }
@@ -233,18 +223,18 @@ export function useRemoveLessonSetup(lesson: { id: string; classId: string }) {
 export function useClassAssignments(classId: string) {
   return useQuery({
     queryKey: classKeys.assignments(classId),
-    queryFn: ({ signal }) => api<{ assignments: AssignmentSummary[] }>(`/classes/${classId}/assignments`, { signal }).then((r) => r.assignments),
+    queryFn: ({ signal }) => call('classAssignments', { params: { id: classId }, signal }).then((r) => r.assignments),
   });
 }
 
 export function useAssignment(id: string) {
-  return useQuery({ queryKey: classKeys.assignment(id), queryFn: ({ signal }) => api<AssignmentDetail>(`/assignments/${id}`, { signal }).then(assignmentIn) });
+  return useQuery({ queryKey: classKeys.assignment(id), queryFn: ({ signal }) => call('getAssignment', { params: { id }, signal }).then(assignmentIn) });
 }
 
 export function useCreateAssignment(lesson: { id: string; classId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateAssignmentBody) => api<AssignmentDetail>(`/lessons/${lesson.id}/assignments`, { method: 'POST', body }).then(assignmentIn),
+    mutationFn: (body: CreateAssignmentBody) => call('createAssignment', { params: { id: lesson.id }, body }).then(assignmentIn),
     onSuccess: (a) => {
       qc.setQueryData(classKeys.assignment(a.id), a);
       lessonChanged(qc, lesson);
@@ -256,7 +246,7 @@ export function useCreateAssignment(lesson: { id: string; classId: string }) {
 export function useUpdateAssignment(a: { id: string; classId: string; lessonId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: UpdateAssignmentBody) => api<AssignmentDetail>(`/assignments/${a.id}`, { method: 'PATCH', body }).then(assignmentIn),
+    mutationFn: (body: UpdateAssignmentBody) => call('updateAssignment', { params: { id: a.id }, body }).then(assignmentIn),
     onSuccess: (d) => {
       qc.setQueryData(classKeys.assignment(a.id), d);
       void qc.invalidateQueries({ queryKey: classKeys.assignments(a.classId) });
@@ -268,7 +258,7 @@ export function useUpdateAssignment(a: { id: string; classId: string; lessonId: 
 export function useStartAssignment(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (from: 'reference' | 'blank') => api<AssignmentWork>(`/assignments/${id}/start`, { method: 'POST', body: { from } }),
+    mutationFn: (from: 'reference' | 'blank') => call('startAssignment', { params: { id }, body: { from } }),
     onSuccess: (mine) => qc.setQueryData<AssignmentDetail>(classKeys.assignment(id), (a) => (a ? { ...a, mine } : a)),
   });
 }
@@ -276,14 +266,14 @@ export function useStartAssignment(id: string) {
 export function useSubmissions(assignmentId: string) {
   return useQuery({
     queryKey: classKeys.submissions(assignmentId),
-    queryFn: ({ signal }) => api<{ submissions: SubmissionSummary[] }>(`/assignments/${assignmentId}/submissions`, { signal }).then((r) => r.submissions),
+    queryFn: ({ signal }) => call('listSubmissions', { params: { id: assignmentId }, signal }).then((r) => r.submissions),
   });
 }
 
 export function useSubmit(assignmentId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: () => api<SubmissionDetail>(`/assignments/${assignmentId}/submissions`, { method: 'POST', body: {} }).then(submissionIn),
+    mutationFn: () => call('submit', { params: { id: assignmentId }, body: {} }).then(submissionIn),
     onSuccess: (s) => {
       qc.setQueryData(classKeys.submission(s.id), s);
       void qc.invalidateQueries({ queryKey: classKeys.assignment(assignmentId) });
@@ -293,13 +283,13 @@ export function useSubmit(assignmentId: string) {
 }
 
 export function useSubmission(id: string) {
-  return useQuery({ queryKey: classKeys.submission(id), queryFn: ({ signal }) => api<SubmissionDetail>(`/submissions/${id}`, { signal }).then(submissionIn) });
+  return useQuery({ queryKey: classKeys.submission(id), queryFn: ({ signal }) => call('getSubmission', { params: { id }, signal }).then(submissionIn) });
 }
 
 export function useReviewSubmission(s: { id: string; assignmentId: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { reviewed?: boolean; shared?: boolean }) => api<SubmissionDetail>(`/submissions/${s.id}`, { method: 'PATCH', body }).then(submissionIn),
+    mutationFn: (body: { reviewed?: boolean; shared?: boolean }) => call('updateSubmission', { params: { id: s.id }, body }).then(submissionIn),
     onSuccess: (d) => {
       qc.setQueryData(classKeys.submission(s.id), d);
       void qc.invalidateQueries({ queryKey: classKeys.submissions(s.assignmentId) });
@@ -312,7 +302,7 @@ export function useReviewSubmission(s: { id: string; assignmentId: string }) {
 export function useCommentOnSubmission(id: string, me: { id: string; name: string }) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: SubmissionCommentBody) => api<SubmissionComment>(`/submissions/${id}/comments`, { method: 'POST', body }),
+    mutationFn: (body: SubmissionCommentBody) => call('addSubmissionComment', { params: { id }, body }),
     onMutate: async (body) => {
       await qc.cancelQueries({ queryKey: classKeys.submission(id) });
       const before = qc.getQueryData<SubmissionDetail>(classKeys.submission(id));
@@ -333,6 +323,6 @@ export function useWorkingCopy(setupId: string | null) {
     staleTime: 0,
     refetchOnMount: 'always',
     refetchOnWindowFocus: true,
-    queryFn: ({ signal }) => api<SetupDetail>(`/setups/${setupId}`, { signal }).then(withDoc),
+    queryFn: ({ signal }) => call('getSetup', { params: { id: setupId ?? '' }, signal }).then(withDoc),
   });
 }

@@ -1,15 +1,15 @@
 // Photos attached to a setup: query-key factory, the list, upload (multipart) and delete.
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { ApiError, PhotoKind, SetupPhoto } from '../model/api';
-import { ApiRequestError, api } from './api';
+import type { PhotoKind, SetupPhoto } from '../model/api';
+import { call } from './api';
 
-export const photoKeys = {
+const photoKeys = {
   all: ['photos'] as const,
   list: (setupId: string) => [...photoKeys.all, 'list', setupId] as const,
 };
 
 export function usePhotos(setupId: string) {
-  return useQuery({ queryKey: photoKeys.list(setupId), queryFn: ({ signal }) => api<{ photos: SetupPhoto[] }>(`/setups/${setupId}/photos`, { signal }).then((r) => r.photos) });
+  return useQuery({ queryKey: photoKeys.list(setupId), queryFn: ({ signal }) => call('listPhotos', { params: { id: setupId }, signal }).then((r) => r.photos) });
 }
 
 /** What to upload: a web File/Blob, or a native file by its uri. */
@@ -24,13 +24,7 @@ export function useUploadPhoto(setupId: string) {
       // React Native's FormData takes { uri, name, type } for a file on the device.
       if ('blob' in file) form.append('photo', file.blob, file.name);
       else form.append('photo', file as unknown as Blob);
-      const res = await fetch(`/api/setups/${setupId}/photos`, { method: 'POST', body: form, credentials: 'same-origin' });
-      const data = (await res.json().catch(() => null)) as SetupPhoto | ApiError | null;
-      if (!res.ok) {
-        const e = (data as ApiError | null)?.error;
-        throw new ApiRequestError(res.status, e?.code ?? 'http_error', e?.message ?? `HTTP ${res.status}`, e?.fields ?? {}, data);
-      }
-      return data as SetupPhoto;
+      return call('uploadPhoto', { params: { id: setupId }, body: form });
     },
     onSuccess: (photo) => {
       qc.setQueryData<SetupPhoto[]>(photoKeys.list(setupId), (old) => [photo, ...(old ?? []).filter((p) => p.id !== photo.id)]);
@@ -42,7 +36,7 @@ export function useUploadPhoto(setupId: string) {
 export function useDeletePhoto(setupId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (photoId: string) => api<void>(`/setups/${setupId}/photos/${photoId}`, { method: 'DELETE' }),
+    mutationFn: (photoId: string) => call('deletePhoto', { params: { id: setupId, photoId } }),
     onMutate: async (photoId) => {
       await qc.cancelQueries({ queryKey: photoKeys.list(setupId) });
       const before = qc.getQueryData<SetupPhoto[]>(photoKeys.list(setupId));

@@ -2,9 +2,8 @@
 // (optimistically) and invalidate what they touched. Lists are invalidated, never a setup's detail while the
 // editor holds it (that would fight the user's edits).
 import { useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData, type QueryClient } from '@tanstack/react-query';
-import type { CreateSetupBody, DuplicateSetupBody, HistoryResponse, SetupComment, SetupDetail, SetupListResponse, SetupSaved, SetupSort, TagCount, UpdateSetupBody } from '../model/api';
-import { parseDocument } from '../model/document';
-import { ApiRequestError, api } from './api';
+import type { CreateSetupBody, DuplicateSetupBody, SetupDetail, SetupListResponse, SetupSort, UpdateSetupBody } from '../model/api';
+import { ApiRequestError, call, type CallArgs } from './api';
 
 export type LibrarySection = 'library' | 'templates' | 'deleted';
 export type SetupFilter = { studio?: string; q?: string; tag?: string; sort?: SetupSort; section?: LibrarySection };
@@ -19,17 +18,17 @@ export const setupKeys = {
   tags: (studio?: string) => [...setupKeys.all, 'tags', studio ?? 'all'] as const,
 };
 
-function listQuery(f: SetupFilter, cursor: string | null) {
-  const p = new URLSearchParams();
-  if (f.studio) p.set('studio', f.studio);
-  if (f.q) p.set('q', f.q);
-  if (f.tag) p.set('tag', f.tag);
-  if (f.sort && f.sort !== 'updated') p.set('sort', f.sort);
-  if (f.section === 'templates') p.set('templates', '1');
-  if (f.section === 'deleted') p.set('deleted', '1');
-  if (cursor) p.set('cursor', cursor);
-  const s = p.toString();
-  return s ? `?${s}` : '';
+/** The library list's query: only what differs from the server's defaults. */
+export function listQuery(f: SetupFilter, cursor: string | null): CallArgs<'listSetups'>['query'] {
+  return {
+    studio: f.studio || undefined,
+    q: f.q || undefined,
+    tag: f.tag || undefined,
+    sort: f.sort && f.sort !== 'updated' ? f.sort : undefined,
+    templates: f.section === 'templates' ? 1 : undefined,
+    deleted: f.section === 'deleted' ? 1 : undefined,
+    cursor: cursor ?? undefined,
+  };
 }
 
 /** One section of the library, page by page (infinite scroll). */
@@ -37,7 +36,7 @@ export function useSetupList(f: SetupFilter) {
   return useInfiniteQuery({
     queryKey: setupKeys.list(f),
     initialPageParam: null as string | null,
-    queryFn: ({ pageParam, signal }) => api<SetupListResponse>(`/setups${listQuery(f, pageParam)}`, { signal }),
+    queryFn: ({ pageParam, signal }) => call('listSetups', { query: listQuery(f, pageParam), signal }),
     getNextPageParam: (last) => last.nextCursor,
   });
 }
@@ -45,16 +44,20 @@ export function useSetupList(f: SetupFilter) {
 export function useTags(studio?: string) {
   return useQuery({
     queryKey: setupKeys.tags(studio),
-    queryFn: ({ signal }) => api<{ tags: TagCount[] }>(`/tags${studio ? `?studio=${studio}` : ''}`, { signal }).then((r) => r.tags ?? []),
+    queryFn: ({ signal }) => call('listTags', { query: { studio }, signal }).then((r) => r.tags ?? []),
   });
 }
+
+/** The document model's parser, loaded with the plan screens (components/shareScreen.ts): the library and the
+ *  sign-in page never download the setup document's schema or the meter it brings. */
+export const documentParser = () => import('../components/shareScreen').then((m) => m.parseDocument);
 
 /** Read a setup, its document parsed (and migrated) with the shared schema. The editor owns it once open. */
 export function useSetup(id: string) {
   return useQuery({
     queryKey: setupKeys.detail(id),
     queryFn: async ({ signal }) => {
-      const s = await api<SetupDetail>(`/setups/${id}`, { signal });
+      const [s, parseDocument] = await Promise.all([call('getSetup', { params: { id }, signal }), documentParser()]);
       return { ...s, document: parseDocument(s.document) };
     },
     staleTime: Infinity,
@@ -78,7 +81,7 @@ export function conflictOf(err: unknown): SetupDetail | null {
 export function useSaveSetup(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: UpdateSetupBody) => api<SetupSaved>(`/setups/${id}`, { method: 'PUT', body }),
+    mutationFn: (body: UpdateSetupBody) => call('updateSetup', { params: { id }, body }),
     onMutate: async ({ version: _v, ...changes }) => {
       await qc.cancelQueries({ queryKey: setupKeys.detail(id) });
       const before = qc.getQueryData<SetupDetail>(setupKeys.detail(id));
@@ -113,8 +116,10 @@ function removeFromLists(qc: QueryClient, id: string) {
 export function useCreateSetup() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateSetupBody) => api<SetupDetail>('/setups', { method: 'POST', body }),
-    onSuccess: (s) => {
+    mutationFn: (body: CreateSetupBody) => call('createSetup', { body }),
+    // Awaited before the caller goes on (to the editor, which this also starts loading).
+    onSuccess: async (s) => {
+      const parseDocument = await documentParser();
       qc.setQueryData(setupKeys.detail(s.id), { ...s, document: parseDocument(s.document) });
       listsChanged(qc);
     },
@@ -124,8 +129,9 @@ export function useCreateSetup() {
 export function useDuplicateSetup() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, ...body }: DuplicateSetupBody & { id: string }) => api<SetupDetail>(`/setups/${id}/duplicate`, { method: 'POST', body }),
-    onSuccess: (s) => {
+    mutationFn: ({ id, ...body }: DuplicateSetupBody & { id: string }) => call('duplicateSetup', { params: { id }, body }),
+    onSuccess: async (s) => {
+      const parseDocument = await documentParser();
       qc.setQueryData(setupKeys.detail(s.id), { ...s, document: parseDocument(s.document) });
       listsChanged(qc);
     },
@@ -135,7 +141,7 @@ export function useDuplicateSetup() {
 export function useDeleteSetup() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (id: string) => api<void>(`/setups/${id}`, { method: 'DELETE' }),
+    mutationFn: (id: string) => call('deleteSetup', { params: { id } }),
     onMutate: async (id) => {
       await qc.cancelQueries({ queryKey: setupKeys.lists() });
       return { putBack: removeFromLists(qc, id) };
@@ -151,7 +157,7 @@ export function useDeleteSetup() {
 export function useRestoreSetup() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (id: string) => api<SetupDetail>(`/setups/${id}/restore`, { method: 'POST' }),
+    mutationFn: (id: string) => call('restoreSetup', { params: { id } }),
     onMutate: async (id) => {
       await qc.cancelQueries({ queryKey: setupKeys.lists() });
       return { putBack: removeFromLists(qc, id) };
@@ -165,7 +171,7 @@ export function useSetupHistory(id: string) {
   return useInfiniteQuery({
     queryKey: setupKeys.history(id),
     initialPageParam: null as number | null,
-    queryFn: ({ pageParam, signal }) => api<HistoryResponse>(`/setups/${id}/history${pageParam ? `?before=${pageParam}` : ''}`, { signal }),
+    queryFn: ({ pageParam, signal }) => call('setupHistory', { params: { id }, query: { before: pageParam ?? undefined }, signal }),
     getNextPageParam: (last) => last.nextBefore,
   });
 }
@@ -175,7 +181,7 @@ export function useRestoreVersion(id: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: ({ versionId, version }: { versionId: string; version?: number }) =>
-      api<SetupSaved>(`/setups/${id}/history/${versionId}/restore`, { method: 'POST', body: version ? { version } : {} }),
+      call('restoreVersion', { params: { id, versionId }, body: version ? { version } : {} }),
     onSuccess: () => {
       void qc.invalidateQueries({ queryKey: setupKeys.detail(id) });
       void qc.invalidateQueries({ queryKey: setupKeys.history(id) });
@@ -184,25 +190,4 @@ export function useRestoreVersion(id: string) {
   });
 }
 
-export function useComments(id: string) {
-  return useQuery({
-    queryKey: setupKeys.comments(id),
-    queryFn: ({ signal }) => api<{ comments: SetupComment[] }>(`/setups/${id}/comments`, { signal }).then((r) => r.comments),
-  });
-}
-
-export function useAddComment(id: string, me: { id: string; name: string }) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (body: { body: string; itemId?: string }) => api<SetupComment>(`/setups/${id}/comments`, { method: 'POST', body }),
-    onMutate: async (body) => {
-      await qc.cancelQueries({ queryKey: setupKeys.comments(id) });
-      const before = qc.getQueryData<SetupComment[]>(setupKeys.comments(id));
-      const draft: SetupComment = { id: `draft-${Date.now()}`, body: body.body, itemId: body.itemId ?? null, createdAt: new Date().toISOString(), author: me };
-      qc.setQueryData<SetupComment[]>(setupKeys.comments(id), [...(before ?? []), draft]);
-      return { before };
-    },
-    onError: (_e, _b, ctx) => qc.setQueryData(setupKeys.comments(id), ctx?.before),
-    onSettled: () => void qc.invalidateQueries({ queryKey: setupKeys.comments(id) }),
-  });
-}
+// Comments: hooks/comments.ts.

@@ -1,24 +1,25 @@
 // Share links, the shared view of a setup, and sending to the crew: query-key factory, queries, mutations.
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateShareBody, SendToCrewBody, SendToCrewResult, ShareCreated, ShareLink, SharedSetup } from '../model/api';
+import type { CreateShareBody, SendToCrewBody, ShareLink } from '../model/api';
 import { parseDocument } from '../model/document';
-import { api } from './api';
+import { call } from './api';
 
-export const shareKeys = {
+const shareKeys = {
   all: ['shares'] as const,
   list: (setupId: string) => [...shareKeys.all, 'list', setupId] as const,
   shared: (token: string) => [...shareKeys.all, 'shared', token] as const,
+  membership: (token: string) => [...shareKeys.all, 'membership', token] as const,
 };
 
 /** The setup's live share links (members only; no tokens in the list). */
 export function useShares(setupId: string) {
-  return useQuery({ queryKey: shareKeys.list(setupId), queryFn: ({ signal }) => api<{ shares: ShareLink[] }>(`/setups/${setupId}/shares`, { signal }).then((r) => r.shares) });
+  return useQuery({ queryKey: shareKeys.list(setupId), queryFn: ({ signal }) => call('listShares', { params: { id: setupId }, signal }).then((r) => r.shares) });
 }
 
 export function useCreateShare(setupId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateShareBody) => api<ShareCreated>(`/setups/${setupId}/shares`, { method: 'POST', body }),
+    mutationFn: (body: CreateShareBody) => call('createShare', { params: { id: setupId }, body }),
     onSuccess: () => void qc.invalidateQueries({ queryKey: shareKeys.list(setupId) }),
   });
 }
@@ -26,7 +27,7 @@ export function useCreateShare(setupId: string) {
 export function useRevokeShare(setupId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (shareId: string) => api<void>(`/setups/${setupId}/shares/${shareId}`, { method: 'DELETE' }),
+    mutationFn: (shareId: string) => call('revokeShare', { params: { id: setupId, shareId } }),
     onMutate: async (shareId) => {
       await qc.cancelQueries({ queryKey: shareKeys.list(setupId) });
       const before = qc.getQueryData<ShareLink[]>(shareKeys.list(setupId));
@@ -43,7 +44,7 @@ export function useSharedSetup(token: string) {
   return useQuery({
     queryKey: shareKeys.shared(token),
     queryFn: async ({ signal }) => {
-      const s = await api<SharedSetup>(`/shared/${token}`, { signal });
+      const s = await call('sharedSetup', { params: { token }, signal });
       return { ...s, document: parseDocument(s.document) };
     },
     refetchOnWindowFocus: true,
@@ -54,7 +55,16 @@ export function useSharedSetup(token: string) {
 export function useSendToCrew(setupId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: SendToCrewBody) => api<SendToCrewResult>(`/setups/${setupId}/send`, { method: 'POST', body }),
+    mutationFn: (body: SendToCrewBody) => call('sendToCrew', { params: { id: setupId }, body }),
     onSuccess: () => void qc.invalidateQueries({ queryKey: shareKeys.list(setupId) }),
+  });
+}
+
+/** Whether the visitor of a share link is signed in and a member of its studio (then: comments). Quietly null otherwise. */
+export function useShareMembership(token: string) {
+  return useQuery({
+    queryKey: shareKeys.membership(token),
+    queryFn: ({ signal }) => call('sharedMembership', { params: { token }, signal }).catch(() => null),
+    retry: false,
   });
 }

@@ -1,50 +1,38 @@
 // Studios, members and invitations on the server: the query-key factory, queries, and mutations that update
 // the cache at once and invalidate what they touched.
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { InvitationCreated, InvitationPreview, InviteMemberBody, StudioInvitation, StudioMember, StudioRole, StudioView } from '../model/api';
-import { api } from './api';
+import type { InviteMemberBody, StudioInvitation, StudioMember, StudioRole, StudioView } from '../model/api';
+import { call } from './api';
 import { meKeys } from './me';
 import { setupKeys } from './setups';
 
-export const studioKeys = {
+const studioKeys = {
   all: ['studios'] as const,
   list: () => [...studioKeys.all, 'list'] as const,
   detail: (id: string) => [...studioKeys.all, 'detail', id] as const,
   members: (id: string) => [...studioKeys.all, 'members', id] as const,
   invitations: (id: string) => [...studioKeys.all, 'invitations', id] as const,
 };
-export const invitationKeys = {
+const invitationKeys = {
   all: ['invitations'] as const,
   carried: () => [...invitationKeys.all, 'carried'] as const,
   preview: (token: string) => [...invitationKeys.all, 'preview', token] as const,
 };
 
 export function useStudios() {
-  return useQuery({ queryKey: studioKeys.list(), queryFn: ({ signal }) => api<{ studios: StudioView[] }>('/studios', { signal }).then((r) => r.studios) });
+  return useQuery({ queryKey: studioKeys.list(), queryFn: ({ signal }) => call('listStudios', { signal }).then((r) => r.studios) });
 }
 
 export function useStudio(id: string) {
-  return useQuery({ queryKey: studioKeys.detail(id), queryFn: ({ signal }) => api<StudioView>(`/studios/${id}`, { signal }) });
+  return useQuery({ queryKey: studioKeys.detail(id), queryFn: ({ signal }) => call('getStudio', { params: { id }, signal }) });
 }
 
 export function useCreateStudio() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { name: string }) => api<StudioView>('/studios', { method: 'POST', body }),
+    mutationFn: (body: { name: string }) => call('createStudio', { body }),
     onSuccess: (s) => {
       qc.setQueryData<StudioView[]>(studioKeys.list(), (old) => (old ? [...old, s] : old));
-      void qc.invalidateQueries({ queryKey: studioKeys.list() });
-      void qc.invalidateQueries({ queryKey: meKeys.all });
-    },
-  });
-}
-
-export function useRenameStudio(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (body: { name: string }) => api<StudioView>(`/studios/${id}`, { method: 'PATCH', body }),
-    onSuccess: (s) => {
-      qc.setQueryData(studioKeys.detail(id), s);
       void qc.invalidateQueries({ queryKey: studioKeys.list() });
       void qc.invalidateQueries({ queryKey: meKeys.all });
     },
@@ -54,14 +42,14 @@ export function useRenameStudio(id: string) {
 export function useMembers(studioId: string) {
   return useQuery({
     queryKey: studioKeys.members(studioId),
-    queryFn: ({ signal }) => api<{ members: StudioMember[] }>(`/studios/${studioId}/members`, { signal }).then((r) => r.members),
+    queryFn: ({ signal }) => call('studioMembers', { params: { id: studioId }, signal }).then((r) => r.members),
   });
 }
 
 export function useInvitations(studioId: string, enabled = true) {
   return useQuery({
     queryKey: studioKeys.invitations(studioId),
-    queryFn: ({ signal }) => api<{ invitations: StudioInvitation[] }>(`/studios/${studioId}/invitations`, { signal }).then((r) => r.invitations),
+    queryFn: ({ signal }) => call('studioInvitations', { params: { id: studioId }, signal }).then((r) => r.invitations),
     enabled,
   });
 }
@@ -70,7 +58,7 @@ export function useInvitations(studioId: string, enabled = true) {
 export function useInvite(studioId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: InviteMemberBody) => api<InvitationCreated>(`/studios/${studioId}/members`, { method: 'POST', body }),
+    mutationFn: (body: InviteMemberBody) => call('inviteMember', { params: { id: studioId }, body }),
     onSuccess: (r) => {
       qc.setQueryData<StudioInvitation[]>(studioKeys.invitations(studioId), (old) => [r.invitation, ...(old ?? []).filter((i) => i.email !== r.invitation.email)]);
       void qc.invalidateQueries({ queryKey: studioKeys.invitations(studioId) });
@@ -81,7 +69,7 @@ export function useInvite(studioId: string) {
 export function useRevokeInvitation(studioId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (invitationId: string) => api<void>(`/studios/${studioId}/invitations/${invitationId}`, { method: 'DELETE' }),
+    mutationFn: (invitationId: string) => call('cancelStudioInvitation', { params: { id: studioId, invitationId } }),
     onMutate: async (invitationId) => {
       await qc.cancelQueries({ queryKey: studioKeys.invitations(studioId) });
       const before = qc.getQueryData<StudioInvitation[]>(studioKeys.invitations(studioId));
@@ -97,8 +85,10 @@ export function useRevokeInvitation(studioId: string) {
 export function useChangeMember(studioId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ userId, role }: { userId: string; role: StudioRole | null }) =>
-      role ? api<unknown>(`/studios/${studioId}/members/${userId}`, { method: 'PATCH', body: { role } }) : api<void>(`/studios/${studioId}/members/${userId}`, { method: 'DELETE' }),
+    mutationFn: async ({ userId, role }: { userId: string; role: StudioRole | null }) => {
+      if (role) await call('changeMemberRole', { params: { id: studioId, userId }, body: { role } });
+      else await call('removeMember', { params: { id: studioId, userId } });
+    },
     onMutate: async ({ userId, role }) => {
       await qc.cancelQueries({ queryKey: studioKeys.members(studioId) });
       const before = qc.getQueryData<StudioMember[]>(studioKeys.members(studioId));
@@ -120,19 +110,19 @@ export function useChangeMember(studioId: string) {
 export function useCarriedInvitation() {
   return useQuery({
     queryKey: invitationKeys.carried(),
-    queryFn: ({ signal }) => api<{ invitation: (InvitationPreview & { token: string }) | null }>('/invitations', { signal }).then((r) => r.invitation ?? null),
+    queryFn: ({ signal }) => call('myInvitation', { signal }).then((r) => r.invitation ?? null),
     staleTime: 5 * 60_000,
   });
 }
 
 export function useInvitationPreview(token: string) {
-  return useQuery({ queryKey: invitationKeys.preview(token), queryFn: ({ signal }) => api<InvitationPreview>(`/invitations/${token}`, { signal }) });
+  return useQuery({ queryKey: invitationKeys.preview(token), queryFn: ({ signal }) => call('invitationPreview', { params: { token }, signal }) });
 }
 
 export function useAcceptInvitation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (token: string) => api<{ studioId: string; role: StudioRole }>(`/invitations/${token}/accept`, { method: 'POST' }),
+    mutationFn: (token: string) => call('acceptInvitation', { params: { token } }),
     onSuccess: () => {
       qc.setQueryData(invitationKeys.carried(), null);
       void qc.invalidateQueries({ queryKey: invitationKeys.all });
@@ -147,7 +137,7 @@ export function useAcceptInvitation() {
 export function useForgetInvitation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: () => api<void>('/invitations', { method: 'DELETE' }),
+    mutationFn: () => call('dismissInvitation'),
     onMutate: () => qc.setQueryData(invitationKeys.carried(), null),
   });
 }

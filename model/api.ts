@@ -4,35 +4,23 @@ import { z } from 'zod';
 import { migrateDocument, setupDocumentSchema, type SetupDocument } from './document';
 import { checkSchema, type Check, type CheckResult } from './classes';
 import { idSchema, pointSchema } from './geometry';
+import { multiLine, oneLine, plainQuery } from './text';
+import { inviteMemberBody, personName, setupTitle, studioName, studioRoles, tagSchema, tagsSchema, uuid, type StudioRole } from './forms';
 
-export const signUpBody = z.object({
-  name: z.string().trim().min(1, 'enter your name').max(80),
-  email: z.string().trim().email('enter an e-mail address'),
-  password: z.string().min(8, 'at least 8 characters').max(128),
-});
-export const signInBody = z.object({
-  email: z.string().trim().email('enter an e-mail address'),
-  password: z.string().min(1, 'enter your password').max(128),
-});
+// The forms' schemas and fields live in model/forms.ts (light enough for the sign-in page); they are part of the API.
+export * from './forms';
 
-export const studioRoles = ['owner', 'editor', 'crew'] as const;
-export type StudioRole = (typeof studioRoles)[number];
+
 export type ClassRole = 'instructor' | 'student';
 
 // ---------------------------------------------------------------------------------------------
 // Fields
 
-const uuid = (what: string) => z.string().uuid(`${what} id`);
-/** Tags are compared lower-case; a list keeps each tag once. */
-export const tagSchema = z.string().trim().toLowerCase().min(1, 'an empty tag').max(40, 'at most 40 characters');
-export const tagsSchema = z
-  .array(tagSchema)
-  .max(30, 'at most 30 tags')
-  .transform((tags) => [...new Set(tags)]);
-export const setupTitle = z.string().trim().min(1, 'give the setup a title').max(200, 'at most 200 characters');
-export const setupNotes = z.string().max(20000, 'at most 20 000 characters');
+export const setupNotes = multiLine({ max: 20000 });
 /** A document as sent by a client: brought up to the current schema version, then validated. */
 export const documentInput = z.preprocess(migrateDocument, setupDocumentSchema);
+/** An update body must change something: an empty one is a 400 naming the body. */
+const somethingToChange = [(b: object) => Object.values(b).some((v) => v !== undefined), { message: 'nothing to change: send at least one field' }] as const;
 const flag = z.enum(['0', '1', 'true', 'false']).transform((v) => v === '1' || v === 'true');
 
 // ---------------------------------------------------------------------------------------------
@@ -44,14 +32,14 @@ export type SetupSort = (typeof setupSorts)[number];
 export const listSetupsQuery = z
   .object({
     studio: uuid('a studio').optional(),
-    q: z.string().max(200, 'at most 200 characters').optional(),
+    q: plainQuery(200).optional(),
     tag: tagSchema.optional(),
     sort: z.enum(setupSorts).default('updated'),
-    /** Templates from every studio instead of the caller's setups. */
+    /** The templates the caller may use (the gallery for everyone and their studios' own) instead of their setups. */
     templates: flag.optional(),
     /** The caller's deleted setups that can still be restored (newest deletion first; `sort` is ignored). */
     deleted: flag.optional(),
-    cursor: z.string().max(400).optional(),
+    cursor: plainQuery(400).optional(),
     limit: z.coerce.number().int().min(1).max(100).default(30),
   })
   .strict()
@@ -65,7 +53,7 @@ export const createSetupBody = z
     document: documentInput.optional(),
     notes: setupNotes.optional(),
     tags: tagsSchema.optional(),
-    /** Publish as a template readable by every user; studio owners only. */
+    /** A template of its studio (its members start new setups from it); studio owners only. */
     isTemplate: z.boolean().optional(),
   })
   .strict();
@@ -93,13 +81,41 @@ export const duplicateSetupBody = z
   .strict();
 export type DuplicateSetupBody = z.infer<typeof duplicateSetupBody>;
 
+/** PUT /api/setups/:id/everyone: publish a template to, or withdraw it from, the gallery for everyone (operators only). */
+export const forEveryoneBody = z.object({ forEveryone: z.boolean('true or false') }).strict();
+export type ForEveryoneBody = z.infer<typeof forEveryoneBody>;
+export type ForEveryoneResponse = { id: string; isTemplate: boolean; forEveryone: boolean };
+
+/** A comment on a setup or a submission. */
+export const commentText = multiLine({ min: 1, minMessage: 'write something', max: 4000, trim: true });
+
+/** A new comment on a setup: a thread's start (optionally pinned to an item or a point) or a reply to one. */
 export const commentBody = z
   .object({
-    body: z.string().trim().min(1, 'write something').max(4000, 'at most 4000 characters'),
+    body: commentText,
     itemId: idSchema.optional(),
+    /** A point on the plan, metres. */
+    point: pointSchema.optional(),
+    /** The thread this replies to (its first comment); a reply carries no pin of its own. */
+    parentId: uuid('a comment').optional(),
+  })
+  .strict()
+  .refine((c) => !(c.itemId && c.point), { message: 'pin to an item or to a point, not both', path: ['point'] })
+  .refine((c) => !(c.parentId && (c.itemId || c.point)), { message: 'a reply is pinned where its thread is', path: ['parentId'] });
+export type CommentBody = z.infer<typeof commentBody>;
+/** Resolve or reopen a thread. */
+export const resolveCommentBody = z.object({ resolved: z.boolean('true or false') }).strict();
+export type ResolveCommentBody = z.infer<typeof resolveCommentBody>;
+/** Several setups' crew sheets in one PDF (a shoot day), in the order given, behind a cover listing them. */
+export const daySheetBody = z
+  .object({
+    setupIds: z.array(uuid('a setup')).min(1, 'choose at least one setup').max(20, 'at most 20 setups').refine((a) => new Set(a).size === a.length, 'a setup is listed twice'),
+    title: z.string().trim().max(120, 'at most 120 characters').optional(),
+    /** The day, as printed on the cover (free text: "Saturday 14 March"). */
+    date: z.string().trim().max(60, 'at most 60 characters').optional(),
   })
   .strict();
-export type CommentBody = z.infer<typeof commentBody>;
+export type DaySheetBody = z.infer<typeof daySheetBody>;
 
 export const historyQuery = z
   .object({ before: z.coerce.number().int().min(1).optional(), limit: z.coerce.number().int().min(1).max(100).default(50) })
@@ -117,6 +133,8 @@ export type SetupSummary = {
   tags: string[];
   version: number;
   isTemplate: boolean;
+  /** In the gallery for everyone (an operator published it). */
+  forEveryone?: boolean;
   itemCount: number;
   updatedAt: string;
   ownerName?: string | null;
@@ -126,6 +144,8 @@ export type SetupSummary = {
   restorableUntil?: string | null;
   /** The caller's role in the setup's studio; null for another studio's template. */
   role?: StudioRole | null;
+  /** Comments by others since the caller last read the setup's comments. */
+  unreadComments?: number;
 };
 export type SetupListResponse = { setups: SetupSummary[]; nextCursor: string | null };
 
@@ -143,6 +163,8 @@ export type SetupDetail = {
   schemaVersion: number;
   version: number;
   isTemplate: boolean;
+  /** In the gallery for everyone (an operator published it). Optional for clients and fixtures that predate it. */
+  forEveryone?: boolean;
   createdAt: string;
   updatedAt: string;
   /** The caller's role in the setup's studio; null when they read another studio's template. Crew is read-only. */
@@ -170,29 +192,37 @@ export type SetupComment = {
   id: string;
   body: string;
   itemId: string | null;
+  /** A point on the plan, metres, or null. */
+  point: { x: number; y: number } | null;
+  /** The thread's first comment for a reply; null for a thread's start. */
+  parentId: string | null;
+  /** Set on a thread's start once resolved. */
+  resolvedAt: string | null;
+  resolvedBy: { id: string; name: string } | null;
   createdAt: string;
   author: { id: string; name: string } | null;
 };
+/** A setup's comments oldest first, and when the caller last read them before this answer (null: never). */
+export type CommentsResponse = { comments: SetupComment[]; lastReadAt: string | null };
 
 export type TagCount = { tag: string; count: number };
 
 // ---------------------------------------------------------------------------------------------
 // Studios, members, invitations
 
-export const studioName = z.string().trim().min(1, 'give the studio a name').max(80, 'at most 80 characters');
-export const createStudioBody = z.object({ name: studioName }).strict();
-export const updateStudioBody = z.object({ name: studioName }).strict();
-export const inviteMemberBody = z
+export const updateStudioBody = z
   .object({
-    email: z.string().trim().toLowerCase().email('enter an e-mail address').max(254),
-    role: z.enum(studioRoles, 'owner, editor or crew'),
+    name: studioName.optional(),
+    /** The studio setting "crew may copy setups out" (off by default). */
+    crewMayCopy: z.boolean('true or false').optional(),
   })
-  .strict();
+  .strict()
+  .refine((b) => b.name !== undefined || b.crewMayCopy !== undefined, { message: 'change the name or crewMayCopy' });
 export type InviteMemberBody = z.infer<typeof inviteMemberBody>;
 export const updateMemberBody = z.object({ role: z.enum(studioRoles, 'owner, editor or crew') }).strict();
 
 export type StudioSummary = { id: string; name: string; personal: boolean; role: StudioRole };
-export type StudioView = StudioSummary & { memberCount: number; createdAt: string };
+export type StudioView = StudioSummary & { memberCount: number; createdAt: string; crewMayCopy: boolean };
 export type StudioMember = { userId: string; name: string; email: string; role: StudioRole; joinedAt: string };
 export type StudioInvitation = {
   id: string;
@@ -227,22 +257,11 @@ export type ApiError = { error: { code: string; message: string; fields?: Record
 // ---------------------------------------------------------------------------------------------
 // Forms on the client, built from the same fields
 
-/** "New setup": tags typed as one comma-separated line. */
-export const newSetupForm = z.object({
-  title: setupTitle,
-  studioId: uuid('a studio'),
-  tags: z
-    .string()
-    .max(1200)
-    .transform((s) => s.split(',').map((t) => t.trim()).filter(Boolean))
-    .pipe(tagsSchema),
-});
-export const duplicateForm = z.object({ title: setupTitle, studioId: uuid('a studio') });
 
 /** PATCH /api/me: the account's own settings. */
 export const updateMeBody = z
   .object({
-    name: z.string().trim().min(1, 'enter your name').max(80).optional(),
+    name: personName.optional(),
     units: z.enum(['metric', 'imperial']).optional(),
     paper: z.enum(['a4', 'letter']).optional(),
   })
@@ -263,6 +282,15 @@ export const planPngQuery = z
     v: z.coerce.number().int().min(0).optional(),
   })
   .strict();
+/** GET …/frame.png: the frame (what the camera records) `width` px wide; `step` (1-based) for the plan at a step. */
+export const framePngQuery = z
+  .object({
+    width: z.coerce.number().int().min(80, 'at least 80 px').max(2000, 'at most 2000 px').default(640),
+    look: z.enum(['colour', 'mono']).default('colour'),
+    step: z.coerce.number().int().min(1).max(100).optional(),
+    v: z.coerce.number().int().min(0).optional(),
+  })
+  .strict();
 /** GET …/plan.svg takes no options (the drawing scales). */
 export const planSvgQuery = z.object({}).strict();
 /** GET …/crew-sheet.pdf: paper and units default to the account's (or, for a share link, its creator's). */
@@ -270,7 +298,7 @@ export const crewSheetQuery = z
   .object({ paper: z.enum(paperSizes).optional(), units: z.enum(['metric', 'imperial']).optional(), download: z.enum(['0', '1']).optional() })
   .strict();
 
-export const createShareBody = z.object({ label: z.string().trim().max(80, 'at most 80 characters').optional() }).strict();
+export const createShareBody = z.object({ label: oneLine({ max: 80 }).optional() }).strict();
 export type CreateShareBody = z.infer<typeof createShareBody>;
 /** A share link as listed to the setup's studio. Only its token's hash is stored, so the list names a link by
  *  its label and the token's last characters; the whole address is given once, when it is made. */
@@ -278,6 +306,8 @@ export type ShareLink = { id: string; label: string; tokenTail: string; createdA
 /** POST /api/setups/:id/shares: the link (the only time its token is sent) and its row. */
 export type ShareCreated = { token: string; url: string; share: ShareLink };
 /** GET /api/shared/:token: the setup as the holder of the link sees it. */
+/** A signed-in member opening a share link: the setup behind it, for the comment thread. */
+export type ShareMembership = { setupId: string; role: StudioRole; me: { id: string; name: string } };
 export type SharedSetup = {
   title: string;
   notes: string;
@@ -294,7 +324,7 @@ export const MAX_RECIPIENTS = 10;
 export const sendToCrewBody = z
   .object({
     to: z.array(emailAddress).min(1, 'add at least one address').max(MAX_RECIPIENTS, `at most ${MAX_RECIPIENTS} addresses`).transform((a) => [...new Set(a)]),
-    message: z.string().trim().max(2000, 'at most 2000 characters').optional(),
+    message: multiLine({ max: 2000, trim: true }).optional(),
     /** Attach the crew sheet PDF as well as the link (default yes). */
     attachPdf: z.boolean().default(true),
   })
@@ -313,13 +343,16 @@ export const sendToCrewForm = z.object({
       else if (new Set(list.map((a) => a.toLowerCase())).size > MAX_RECIPIENTS) ctx.addIssue({ code: 'custom', message: `at most ${MAX_RECIPIENTS} addresses` });
     })
     .transform((list) => [...new Set(list.map((a) => a.trim().toLowerCase()))]),
-  message: z.string().max(2000, 'at most 2000 characters'),
+  message: multiLine({ max: 2000 }),
 });
 export type SendToCrewResult = { sent: string[]; url: string; shareId: string; attached: boolean };
 
 export const photoKinds = ['reference', 'result'] as const;
 export type PhotoKind = (typeof photoKinds)[number];
 export const MAX_PHOTO_BYTES = 20 * 1024 * 1024;
+/** The most pixels a photo may have (read from its header before anything decodes it): 64 MP covers today's
+ *  high-resolution cameras; an image bomb (a small file of a huge picture) is refused unread. */
+export const MAX_PHOTO_PIXELS = 64_000_000;
 export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/heic', 'image/heif'] as const;
 export const uploadPhotoFields = z.object({ kind: z.enum(photoKinds, 'reference or result').default('result') }).strict();
 /** A photo attached to a setup, with the camera settings its EXIF gave (null where it said nothing). */
@@ -345,12 +378,12 @@ export type SetupPhoto = {
 // Classes, lessons, assignments, submissions
 
 export const classRoles = ['instructor', 'student'] as const;
-export const className = z.string().trim().min(1, 'give the class a name').max(120, 'at most 120 characters');
+export const className = oneLine({ min: 1, minMessage: 'give the class a name', max: 120 });
 export const createClassBody = z.object({ name: className }).strict();
 export const updateClassBody = z.object({ name: className }).strict();
 /** Join codes are typed by people: case and spaces do not matter. */
 export const joinClassBody = z
-  .object({ code: z.string().transform((s) => s.replace(/[\s-]/g, '').toUpperCase()).pipe(z.string().min(4, 'a join code has at least 4 letters').max(12, 'at most 12 letters')) })
+  .object({ code: z.string().transform((s) => s.replace(/[\s-]/g, '').toUpperCase()).pipe(z.string().min(4, 'a join code has at least 4 letters').max(12, 'at most 12 letters').regex(/^[A-Z0-9]+$/, 'letters and digits only')) })
   .strict();
 export const inviteToClassBody = z
   .object({
@@ -360,26 +393,28 @@ export const inviteToClassBody = z
   .strict();
 export type InviteToClassBody = z.input<typeof inviteToClassBody>;
 
-const lessonTitle = z.string().trim().min(1, 'give the lesson a title').max(200, 'at most 200 characters');
-const teachingText = z.string().max(8000, 'at most 8000 characters');
+const lessonTitle = oneLine({ min: 1, minMessage: 'give the lesson a title', max: 200 });
+const teachingText = multiLine({ max: 8000 });
 export const createLessonBody = z.object({ title: lessonTitle, summary: teachingText.optional() }).strict();
 export const updateLessonBody = z
   .object({ title: lessonTitle.optional(), summary: teachingText.optional(), published: z.boolean().optional(), position: z.number().int().min(0).max(10000).optional() })
-  .strict();
+  .strict()
+  .refine(...somethingToChange);
 export type UpdateLessonBody = z.infer<typeof updateLessonBody>;
 export const addLessonSetupBody = z.object({ setupId: uuid('a setup'), note: teachingText.optional() }).strict();
 export const updateLessonSetupBody = z
   .object({
     note: teachingText.optional(),
     /** The instructor's words per step id; an empty text removes a step's note. */
-    stepNotes: z.record(idSchema, z.string().max(4000, 'at most 4000 characters')).optional(),
+    stepNotes: z.record(idSchema, multiLine({ max: 4000 })).optional(),
     /** Move to this place in the lesson (0 = first). */
     position: z.number().int().min(0).max(1000).optional(),
   })
-  .strict();
+  .strict()
+  .refine(...somethingToChange);
 export type UpdateLessonSetupBody = z.infer<typeof updateLessonSetupBody>;
 
-const assignmentTitle = z.string().trim().min(1, 'give the assignment a title').max(200, 'at most 200 characters');
+const assignmentTitle = oneLine({ min: 1, minMessage: 'give the assignment a title', max: 200 });
 const dueAt = z.iso.datetime({ offset: true, error: 'a date and time, e.g. 2027-03-01T18:00:00Z' }).nullable();
 export const createAssignmentBody = z
   .object({
@@ -394,15 +429,16 @@ export const createAssignmentBody = z
 export type CreateAssignmentBody = z.input<typeof createAssignmentBody>;
 export const updateAssignmentBody = z
   .object({ title: assignmentTitle.optional(), brief: teachingText.optional(), check: checkSchema.nullable().optional(), referenceId: uuid('a lesson setup').nullable().optional(), dueAt: dueAt.optional() })
-  .strict();
+  .strict()
+  .refine(...somethingToChange);
 export type UpdateAssignmentBody = z.input<typeof updateAssignmentBody>;
 export const startAssignmentBody = z.object({ from: z.enum(['reference', 'blank'], 'reference or blank').default('reference') }).strict();
 /** Submit the working copy (default) or another setup the student can read. */
 export const submitBody = z.object({ setupId: uuid('a setup').optional() }).strict();
-export const updateSubmissionBody = z.object({ reviewed: z.boolean().optional(), shared: z.boolean().optional() }).strict();
+export const updateSubmissionBody = z.object({ reviewed: z.boolean().optional(), shared: z.boolean().optional() }).strict().refine(...somethingToChange);
 export const submissionCommentBody = z
   .object({
-    body: z.string().trim().min(1, 'write something').max(4000, 'at most 4000 characters'),
+    body: commentText,
     itemId: idSchema.optional(),
     /** A point on the plan, metres. */
     point: pointSchema.optional(),
@@ -506,6 +542,3 @@ export type SubmissionDetail = SubmissionSummary & {
   canReview: boolean;
 };
 
-/** The forgotten-password form, and the form that sets a new one from the e-mailed link. */
-export const forgotPasswordBody = z.object({ email: z.string().trim().email('enter an e-mail address') });
-export const resetPasswordBody = z.object({ password: z.string().min(8, 'at least 8 characters').max(128) });

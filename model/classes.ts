@@ -2,14 +2,14 @@
 // `evaluateCheck` (run by the server when a plan is submitted and by the client before, the same code),
 // and the plain-words change line a lesson shows as each step is placed.
 //
-// Both read the meter through `computeReadings` (model/readings.ts), so a check or a change line can never
+// Both read the meter through `computeReadings` (model/setupReadings.ts), so a check or a change line can never
 // disagree with the Meter panel.
 import { z } from 'zod';
 import type { MeterResult } from '../calc';
 import type { Item, SetupDocument } from './document';
 import { kinds } from './kinds';
-import { computeReadings } from './readings';
-import { itemsAtStep } from './scene';
+import { computeReadings } from './setupReadings';
+import { itemsAtStep } from './documentToScene';
 import { formatAperture, formatStops } from './units';
 
 // ---------------------------------------------------------------------------------------------
@@ -30,13 +30,17 @@ export const checkMeasures = {
 } as const;
 export type CheckMeasure = keyof typeof checkMeasures;
 
+/** A subject target may name the receptor it is read by (default: the setup's own). */
+const receptorSchema = z.enum(['dome-camera', 'flat-light', 'flat-face'], { error: 'receptor is one of dome-camera, flat-light, flat-face' });
+const RECEPTOR_WORDS = { 'dome-camera': 'a dome pointed at the camera', 'flat-light': 'a flat disc pointed at each light', 'flat-face': 'a flat disc along the face' } as const;
+
 const stops = (what: string) => z.number({ error: `${what} in stops` }).finite().min(-20, 'at least −20').max(20, 'at most 20');
 const bounds = <T extends z.ZodType<number>>(v: T) => ({ min: v.nullable().default(null), max: v.nullable().default(null) });
 
-export const criterionSchema = z.discriminatedUnion(
+const criterionSchema = z.discriminatedUnion(
   'measure',
   [
-    z.object({ measure: z.literal('subject'), ...bounds(stops('subject')) }).strict(),
+    z.object({ measure: z.literal('subject'), ...bounds(stops('subject')), receptor: receptorSchema.optional() }).strict(),
     z.object({ measure: z.literal('background'), ...bounds(stops('background')) }).strict(),
     z.object({ measure: z.literal('keyFill'), ...bounds(z.number({ error: 'a ratio such as 3 for 3:1' }).finite().min(1, 'at least 1 (1:1)').max(256, 'at most 256')) }).strict(),
     z.object({ measure: z.literal('lights'), ...bounds(z.number({ error: 'a number of lights' }).int('a whole number').min(0).max(64)) }).strict(),
@@ -57,7 +61,7 @@ export const checkSchema = z
   });
 export type Check = z.infer<typeof checkSchema>;
 
-export type CriterionResult = {
+type CriterionResult = {
   measure: CheckMeasure;
   label: string;
   /** The target in words: "2.0 stops or more under the subject". */
@@ -84,8 +88,15 @@ function measure(c: Criterion, doc: SetupDocument, m: MeterResult | null): { val
   switch (c.measure) {
     case 'lights':
       return { value: itemsAtStep(doc).filter((i) => i.kind === 'light' && i.on).length, note: null };
-    case 'subject':
-      return m?.subject.stopsVsCamera != null ? { value: m.subject.stopsVsCamera, note: null } : { value: null, note: 'no light reaches the subject' };
+    case 'subject': {
+      if (m?.subject.stopsVsCamera == null) return { value: null, note: 'no light reaches the subject' };
+      if (!c.receptor || c.receptor === m.receptor) return { value: m.subject.stopsVsCamera, note: null };
+      // The same light read by another receptor: shift by the ratio of the two readings.
+      const by = m.subjectByReceptor;
+      return by[c.receptor] > 0 && by[m.receptor] > 0
+        ? { value: m.subject.stopsVsCamera + Math.log2(by[c.receptor] / by[m.receptor]), note: null }
+        : { value: null, note: `no light on ${RECEPTOR_WORDS[c.receptor]}` };
+    }
     case 'background':
       if (!m?.background) return { value: null, note: 'no wall or backdrop behind the subject' };
       return m.background.stopsVsSubject != null ? { value: m.background.stopsVsSubject, note: null } : { value: null, note: 'no light on the subject or the background' };
@@ -116,7 +127,7 @@ export function describeTarget(c: Criterion): string {
     if (min !== null && max !== null) return `between ${ratioText(min)} and ${ratioText(max)}`;
     return min !== null ? `${ratioText(min)} or more` : `${ratioText(max!)} or less`;
   }
-  const ref = c.measure === 'background' ? 'the subject' : 'the camera';
+  const ref = c.measure === 'background' ? 'the subject' : c.measure === 'subject' && c.receptor ? `the camera, read by ${RECEPTOR_WORDS[c.receptor]}` : 'the camera';
   const s = (v: number) => `${Math.abs(v).toFixed(1)} stop${Math.abs(v) === 1 ? '' : 's'}`;
   if (min !== null && max !== null) return `between ${formatStops(min)} and ${formatStops(max)} stops vs ${ref}`;
   if (max !== null) return max <= 0 ? `${s(max)} or more under ${ref}` : `at most ${s(max)} over ${ref}`;
@@ -139,7 +150,7 @@ export function evaluateCheck(check: Check, doc: SetupDocument): CheckResult {
 // The change line
 
 /** A change smaller than this (stops) reads as "unchanged": below what a meter's display shows. */
-export const UNCHANGED_STOPS = 0.05;
+const UNCHANGED_STOPS = 0.05;
 
 /** How an item is named in a sentence: its label, else its kind ("the reflector"). */
 export function itemName(i: Item): string {
@@ -167,7 +178,7 @@ function leadNames(items: Item[], first: boolean): string {
  * Light more than this far under the camera's exposure (stops) counts as none: it records as black, far
  * below what any sensor holds detail in (common practice), and "+19 stops" would say nothing useful.
  */
-export const DARK_STOPS = -8;
+const DARK_STOPS = -8;
 const lit = (p: { stopsVsCamera: number | null }) => p.stopsVsCamera !== null && p.stopsVsCamera > DARK_STOPS;
 
 /** "+0.3 stop", "−2.0 stops", "unchanged". */
@@ -186,6 +197,11 @@ export type ChangeInput = {
   /** What the plan lacks for a reading after the step ("a subject"). */
   missingAfter: string[];
   first: boolean;
+  /**
+   * Which side of the camera's line through the subject each light stands on, against the key: a kicker on the
+   * far side from the key lights the face's shadow side (from the plan; absent = not said).
+   */
+  sides?: Record<string, 'key side' | 'shadow side'>;
 };
 
 /**
@@ -193,7 +209,7 @@ export type ChangeInput = {
  * unchanged". Light on the subject and on the background is compared as exposure (lux·s), so the line says
  * what the new item added, whatever the camera is set to.
  */
-export function describeChange({ added, before, after, missingAfter, first }: ChangeInput): string {
+export function describeChange({ added, before, after, missingAfter, first, sides }: ChangeInput): string {
   const lead = added.length === 0 ? 'this step places nothing new' : `${first ? 'starting with' : 'adding'} ${leadNames(added, first)}`;
   if (!after) return missingAfter.length ? `${lead}: nothing to meter yet (needs ${missingAfter.join(' and ')})` : `${lead}: the meter cannot read the plan here`;
   const amb = after.ambient;
@@ -216,6 +232,16 @@ export function describeChange({ added, before, after, missingAfter, first }: Ch
     else parts.push(`background ${formatStops(bg.stopsVsCamera)} vs the camera`);
   } else if (bgBefore) parts.push('the background goes dark');
 
+  // Rims, hair lights and kickers the step adds: their level against the key, read pointed at each light.
+  for (const item of added) {
+    const l = after.lights.find((x) => x.id === item.id);
+    if (!l?.enabled || !l.vsKey || l.vsKey.stops === null) continue;
+    const v = l.vsKey.stops;
+    const side = sides?.[l.id] ? ` on the ${sides[l.id]}` : '';
+    const words = Math.abs(v) < UNCHANGED_STOPS ? 'level with the key' : v > 0 ? `${stopsChangeText(v)} over the key` : `${stopsChangeText(-v).slice(1)} under the key`;
+    parts.push(`${added.length > 1 ? `${itemName(item)} ` : ''}${words}${side}`);
+  }
+
   const kf = after.keyFill;
   const kfBefore = before?.keyFill.ratio ?? null;
   if (kf.ratio !== null && (kfBefore === null || Math.abs(Math.log2(kf.ratio / kfBefore)) >= 0.1)) parts.push(`key:fill now ${ratioText(kf.ratio)}`);
@@ -232,5 +258,26 @@ export function stepChangeLine(doc: SetupDocument, stepIndex: number): string {
   const added = itemsAtStep(doc, stepIndex).filter((i) => !earlier.has(i.id));
   const after = computeReadings(doc, { stepIndex });
   const before = computeReadings(doc, { stepIndex: stepIndex - 1 }).meter;
-  return describeChange({ added, before, after: after.meter, missingAfter: after.build.missing, first: stepIndex === 0 });
+  return describeChange({ added, before, after: after.meter, missingAfter: after.build.missing, first: stepIndex === 0, sides: lightSides(doc, stepIndex, after.meter) });
+}
+
+/** Each light's side of the camera's line through the subject, against the key's (plan positions at the step). */
+function lightSides(doc: SetupDocument, stepIndex: number, m: MeterResult | null): Record<string, 'key side' | 'shadow side'> {
+  const items = itemsAtStep(doc, stepIndex);
+  const cam = items.find((i) => i.kind === 'camera');
+  const sub = items.find((i) => i.kind === 'subject');
+  const key = m?.keyFill.keyId ? items.find((i) => i.id === m.keyFill.keyId) : undefined;
+  if (!cam || !sub || !key || key.kind !== 'light' || cam.kind !== 'camera' || sub.kind !== 'subject') return {};
+  const dx = sub.x - cam.x;
+  const dy = sub.y - cam.y;
+  const sideOf = (x: number, y: number) => Math.sign(dx * (y - sub.y) - dy * (x - sub.x));
+  const k = sideOf(key.x, key.y);
+  const out: Record<string, 'key side' | 'shadow side'> = {};
+  if (k === 0) return out;
+  for (const i of items) {
+    if (i.kind !== 'light' || i.id === key.id) continue;
+    const s = sideOf(i.x, i.y);
+    if (s !== 0) out[i.id] = s === k ? 'key side' : 'shadow side';
+  }
+  return out;
 }

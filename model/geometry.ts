@@ -2,6 +2,7 @@
 // Frame: metres on the floor plan, x to the right, y down the screen (as in SVG), heights (z) up from the floor.
 // Plan angles in degrees: 0° along +x, increasing towards +y (clockwise on screen, as SVG rotate()).
 import { z } from 'zod';
+import { oneLine } from './text';
 
 export const metres = (max = 200) => z.number().finite().min(-max).max(max);
 export const positiveMetres = (max = 50) => z.number().finite().positive().max(max);
@@ -18,7 +19,7 @@ export const idSchema = z.string().min(1).max(64).regex(/^[A-Za-z0-9_-]+$/, 'let
 /** Fields every plan item has. */
 export const itemBase = {
   id: idSchema,
-  label: z.string().max(80).default(''),
+  label: oneLine({ max: 80 }).default(''),
   locked: z.boolean().default(false),
 };
 

@@ -1,45 +1,27 @@
-// What the editor needs to know about each kind of plan item: its name in the kit palette, how a new one
-// is made, where it is, how it moves and how near a point it is (hit testing). Pure: no React, no SVG.
+// What the editor needs to know about each kind of plan item, derived from the kinds' own modules
+// (model/items/): the kinds' map, making an item, where it is, how it moves and turns, how near a point it is
+// (hit testing) and the inspector's full field list. Pure: no React, no SVG.
+import type { z } from 'zod';
 import { GELS } from '../calc';
 import type { Point } from './geometry';
 import { distance, direction } from './geometry';
 import type { Item, ItemKind, ItemOf } from './document';
 import { itemSchema } from './document';
-import { panelEnds } from './scene';
+import { numberField, textField, lengthField, switchField, type FieldSpec } from './fields';
+import { kindList } from './items';
+import type { KindDef } from './items/kind';
+import { panelEnds } from './items/shaper';
 
-type KindInfo<K extends ItemKind> = {
-  /** The name shown in the kit palette and the inspector. */
-  label: string;
-  group: 'room' | 'people' | 'camera' | 'light' | 'shaper' | 'note';
-  /** Radius of the glyph on the plan (point items), metres; used for hit testing and selection. */
-  radiusM: number;
-  /** Raw fields of a new item dropped at `at` (parsed with the shared schema, which fills the defaults). */
-  create: (at: Point) => Record<string, unknown>;
-};
+type KindOf<K extends ItemKind> = KindDef<Extract<(typeof kindList)[number], { kind: K }>['schema']>;
 
-const seg = (at: Point, lengthM: number) => ({ a: { x: at.x - lengthM / 2, y: at.y }, b: { x: at.x + lengthM / 2, y: at.y } });
+/** Kind → its definition (schema, label, group, geometry, defaults, meter part, crew line, fields). */
+export const kinds = Object.fromEntries(kindList.map((k) => [k.kind, k])) as unknown as { [K in ItemKind]: KindOf<K> };
 
-export const kinds: { [K in ItemKind]: KindInfo<K> } = {
-  wall: { label: 'Wall', group: 'room', radiusM: 0.15, create: (at) => ({ ...seg(at, 3), surface: 'wall' }) },
-  subject: { label: 'Subject', group: 'people', radiusM: 0.3, create: (at) => ({ x: at.x, y: at.y, facingDeg: 90 }) },
-  prop: { label: 'Prop', group: 'people', radiusM: 0.25, create: (at) => ({ x: at.x, y: at.y, shape: 'stool' }) },
-  camera: { label: 'Camera', group: 'camera', radiusM: 0.25, create: (at) => ({ x: at.x, y: at.y, aimDeg: -90 }) },
-  light: {
-    label: 'Light',
-    group: 'light',
-    radiusM: 0.25,
-    create: (at) => ({ x: at.x, y: at.y, aimDeg: -90, source: { type: 'strobe', energyWs: 500 }, power: 1 / 4, modifier: 'softbox' }),
-  },
-  reflector: { label: 'Reflector', group: 'shaper', radiusM: 0.2, create: (at) => ({ x: at.x, y: at.y, rotationDeg: -90 }) },
-  flag: { label: 'Flag', group: 'shaper', radiusM: 0.2, create: (at) => ({ x: at.x, y: at.y, rotationDeg: -90 }) },
-  vflat: { label: 'V-flat', group: 'shaper', radiusM: 0.2, create: (at) => ({ x: at.x, y: at.y, rotationDeg: -90 }) },
-  scrim: { label: 'Scrim', group: 'shaper', radiusM: 0.2, create: (at) => ({ x: at.x, y: at.y, rotationDeg: -90 }) },
-  note: { label: 'Note', group: 'note', radiusM: 0.3, create: (at) => ({ x: at.x, y: at.y, text: 'Note' }) },
-  tape: { label: 'Distance tape', group: 'note', radiusM: 0.1, create: (at) => seg(at, 2) },
-  arrow: { label: 'Arrow', group: 'note', radiusM: 0.1, create: (at) => seg(at, 1.5) },
-};
+/** The kinds in kit-palette order. */
+export const kindOrder: ItemKind[] = kindList.map((k) => k.kind);
 
-export const kindOrder: ItemKind[] = ['subject', 'camera', 'light', 'reflector', 'flag', 'vflat', 'scrim', 'wall', 'prop', 'note', 'tape', 'arrow'];
+/** A kind's definition for an item, typed for that item (the map's values differ by kind). */
+export const kindOf = <T extends Item>(i: T) => kinds[i.kind] as unknown as KindDef<z.ZodType<T>>;
 
 /** A new item of `kind` at `at`, with every default filled in by the shared schema. */
 export function createItem<K extends ItemKind>(kind: K, id: string, at: Point): ItemOf<K> {
@@ -47,9 +29,9 @@ export function createItem<K extends ItemKind>(kind: K, id: string, at: Point): 
 }
 
 export type SegmentItem = ItemOf<'wall'> | ItemOf<'tape'> | ItemOf<'arrow'>;
-export const isSegment = (i: Item): i is SegmentItem => i.kind === 'wall' || i.kind === 'tape' || i.kind === 'arrow';
-export type PanelItem = ItemOf<'reflector'> | ItemOf<'flag'> | ItemOf<'vflat'> | ItemOf<'scrim'>;
-export const isPanel = (i: Item): i is PanelItem => i.kind === 'reflector' || i.kind === 'flag' || i.kind === 'vflat' || i.kind === 'scrim';
+export const isSegment = (i: Item): i is SegmentItem => kinds[i.kind].shape === 'segment';
+type PanelItem = ItemOf<'reflector'> | ItemOf<'flag'> | ItemOf<'vflat'> | ItemOf<'scrim'>;
+const isPanel = (i: Item): i is PanelItem => kinds[i.kind].shape === 'panel';
 
 /** The item's anchor: centre of a point item or panel, midpoint of a segment. */
 export function anchorOf(i: Item): Point {
@@ -65,44 +47,17 @@ export function moveItem<T extends Item>(i: T, dx: number, dy: number): T {
 
 /** The plan angle an item points along (aim, facing or rotation), or null for items without one. */
 export function angleOf(i: Item): number | null {
-  switch (i.kind) {
-    case 'light':
-    case 'camera':
-      return i.aimDeg;
-    case 'subject':
-      return i.facingDeg;
-    case 'prop':
-    case 'reflector':
-    case 'flag':
-    case 'vflat':
-    case 'scrim':
-      return i.rotationDeg;
-    default:
-      return null;
-  }
+  const key = kinds[i.kind].angle?.key;
+  return key ? ((i as Record<string, unknown>)[key] as number) : null;
 }
 
 /** The item turned to point along `deg`. */
 export function withAngle<T extends Item>(i: T, deg: number): T {
-  const d = Math.round(deg * 10) / 10;
-  switch (i.kind) {
-    case 'light':
-    case 'camera':
-      return { ...i, aimDeg: d };
-    case 'subject':
-      return { ...i, facingDeg: d };
-    case 'prop':
-    case 'reflector':
-    case 'flag':
-    case 'vflat':
-    case 'scrim':
-      return { ...i, rotationDeg: d };
-    default:
-      return i;
-  }
+  const key = kinds[i.kind].angle?.key;
+  return key ? { ...i, [key]: Math.round(deg * 10) / 10 } : i;
 }
 
-export function distanceToSegment(p: Point, a: Point, b: Point): number {
+function distanceToSegment(p: Point, a: Point, b: Point): number {
   const dx = b.x - a.x;
   const dy = b.y - a.y;
   const len2 = dx * dx + dy * dy;
@@ -167,4 +122,47 @@ export function accessibleName(i: Item): string {
   if (i.kind === 'note') return `${kind}: ${i.text}`;
   if (i.kind === 'light' && i.gel !== 'none') return `${kind} with ${GELS[i.gel].label}`;
   return kind;
+}
+
+/**
+ * Every inspector field of an item, in order: its label, position (items placed at a point), the angle it
+ * points along (in steps of 5°), the kind's own fields, and the lock.
+ */
+export function fieldsOf<T extends Item>(item: T): readonly FieldSpec<T>[] {
+  const kind = kindOf(item);
+  const out: FieldSpec<T>[] = [textField<T>('Label', 'label')];
+  if (kind.shape !== 'segment') {
+    // Positions stay on the stage: a value off it is refused (with the stage's extent in the message), and the
+    // steppers stop at its edge, so "fit" always finds the item.
+    out.push(
+      lengthField<T>('Across', 'x' as keyof T & string, 0.1, ({ stage }) => ({ min: 0, max: stage.widthM }), 'field-x'),
+      lengthField<T>('Down', 'y' as keyof T & string, 0.1, ({ stage }) => ({ min: 0, max: stage.depthM }), 'field-y'),
+    );
+  }
+  if (kind.angle) out.push({ ...numberField<T>(kind.angle.label, kind.angle.key as keyof T & string, { by: 5, min: -360, max: 360 }) });
+  out.push(...kind.fields, switchField<T>('Locked', 'locked'));
+  return out;
+}
+
+/**
+ * What a person calls each item: its label, or its kind numbered among the unlabelled items of that kind
+ * ("Light 2") when there is more than one, or the kind alone ("Camera"). Never the internal id.
+ */
+export function itemNames(items: readonly Item[]): Map<string, string> {
+  const unlabelled = new Map<ItemKind, Item[]>();
+  for (const i of items) if (!i.label) unlabelled.set(i.kind, [...(unlabelled.get(i.kind) ?? []), i]);
+  const out = new Map<string, string>();
+  for (const i of items) {
+    if (i.label) out.set(i.id, i.label);
+    else {
+      const same = unlabelled.get(i.kind)!;
+      out.set(i.id, same.length > 1 ? `${kinds[i.kind].label} ${same.indexOf(i) + 1}` : kinds[i.kind].label);
+    }
+  }
+  return out;
+}
+
+/** A meter warning as a person reads it: the light's name where the meter wrote its id. */
+export function warningText(w: { message: string; lightId?: string }, names: Map<string, string>): string {
+  return w.lightId && names.has(w.lightId) ? w.message.split(w.lightId).join(names.get(w.lightId)!) : w.message;
 }

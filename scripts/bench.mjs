@@ -17,7 +17,9 @@ for (const f of files) {
   const r = spawnSync(bin('tsx'), [join('tests', 'bench', f)], {
     cwd: root,
     stdio: 'inherit',
-    env: { ...process.env, NODE_ENV: 'production', TEST_DATABASE_URL: databaseUrl(TEST_DB_NAME) },
+    // The serving bench measures the production server (it names its own AUTH_SECRET and PUBLIC_URL); the
+    // others start a local test server, which a production NODE_ENV would refuse without them.
+    env: { ...process.env, NODE_ENV: f.startsWith('serving') ? 'production' : 'test', TEST_DATABASE_URL: databaseUrl(TEST_DB_NAME) },
   });
   if (r.status !== 0) failed++;
 }

@@ -4,7 +4,8 @@
 import { APP_PORT, DB_NAME, bin, databaseUrl, log, spawnChild } from './lib.mjs';
 
 const apiUrl = `http://127.0.0.1:${APP_PORT}`;
-const env = { ...process.env, DATABASE_URL: databaseUrl(DB_NAME), PORT: String(APP_PORT), FALLOFF_API_URL: apiUrl };
+// Metro's dev server forwards /api/* with its own Origin: trust it for state-changing requests (server/origin.ts).
+const env = { ...process.env, DATABASE_URL: databaseUrl(DB_NAME), PORT: String(APP_PORT), FALLOFF_API_URL: apiUrl, TRUSTED_ORIGINS: process.env.TRUSTED_ORIGINS ?? 'http://localhost:8081,http://127.0.0.1:8081' };
 const children = [
   spawnChild(bin('tsx'), ['watch', '--clear-screen=false', 'server/main.ts'], { env }),
   spawnChild(bin('expo'), ['start', '--web', '--port', '8081', '--host', 'localhost'], { env: { ...env, EXPO_NO_TELEMETRY: '1' } }),

@@ -3,19 +3,50 @@
 import { spawnSync, spawn } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, readdirSync, statSync, writeFileSync, chownSync, rmSync } from 'node:fs';
-import { join, dirname } from 'node:path';
+import { join, dirname, basename } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 export const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 export const dataDir = join(root, '.data');
-export const pgDir = join(dataDir, 'pg');
-export const pgRunDir = join(dataDir, 'pg-run');
-export const pgStartedMarker = join(dataDir, 'pg-started-by-scripts');
 export const PG_PORT = Number(process.env.FALLOFF_PG_PORT ?? 54329);
 export const APP_PORT = Number(process.env.PORT ?? 8080);
 export const DB_NAME = 'falloff';
 export const TEST_DB_NAME = 'falloff_test';
 export const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
+
+// Where the private cluster lives. Run as an ordinary user, the cluster is ours, in .data/. Run as root, the
+// server must run as the `postgres` user (it refuses root), and that user cannot enter a clone inside a private
+// folder (mode 0700: `mktemp -d`, a home folder): then the cluster goes to a folder of this clone's own under
+// /var/lib/falloff, keyed by the clone's path. The choice is written to .data/pg-home so it never moves.
+export const sharedPgRoot = '/var/lib/falloff';
+export const pgHomeRecord = join(dataDir, 'pg-home');
+
+/** Pure: the folder holding pg/ and pg-run/ for a clone at `root`. */
+export function choosePgHome({ root: r, dataDir: d, isRoot: asRoot, recorded, hasClusterInData, postgresCanReach }) {
+  if (recorded) return recorded;
+  if (!asRoot || hasClusterInData) return d;
+  if (postgresCanReach()) return d;
+  const key = createHash('sha256').update(r).digest('hex').slice(0, 12);
+  const name = basename(r).replace(/[^A-Za-z0-9._-]/g, '_') || 'clone';
+  return join(sharedPgRoot, `${name}-${key}`);
+}
+
+/** Whether the `postgres` OS user can enter a folder (search permission on it and every folder above it). */
+export function postgresCanEnter(p) {
+  return spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', p], { stdio: 'ignore' }).status === 0;
+}
+
+export const pgHome = choosePgHome({
+  root,
+  dataDir,
+  isRoot,
+  recorded: existsSync(pgHomeRecord) ? readFileSync(pgHomeRecord, 'utf8').trim() : null,
+  hasClusterInData: existsSync(join(dataDir, 'pg', 'PG_VERSION')),
+  postgresCanReach: () => postgresCanEnter(root),
+});
+export const pgDir = join(pgHome, 'pg');
+export const pgRunDir = join(pgHome, 'pg-run');
+export const pgStartedMarker = join(dataDir, 'pg-started-by-scripts');
 
 export function databaseUrl(db = DB_NAME) {
   return `postgres://falloff@127.0.0.1:${PG_PORT}/${db}`;
@@ -30,10 +61,17 @@ export function fail(msg) {
   process.exit(1);
 }
 
-/** Run a command, inheriting stdio; exit the script when it fails. */
+/**
+ * Run a command, inheriting stdio; exit the script when it fails. `what` names the step and `hint` says what to
+ * do about a failure, so the message is more than an exit code.
+ */
 export function run(cmd, args, opts = {}) {
-  const r = spawnSync(cmd, args, { stdio: 'inherit', cwd: root, ...opts });
-  if (r.status !== 0) fail(`command failed (${r.status ?? r.signal}): ${cmd} ${args.join(' ')}`);
+  const { what, hint, ...spawnOpts } = opts;
+  const r = spawnSync(cmd, args, { stdio: 'inherit', cwd: root, ...spawnOpts });
+  if (r.status !== 0) {
+    const why = r.error ? r.error.message : `exit ${r.status ?? r.signal}`;
+    fail(`${what ?? 'a set-up step'} failed (${why}): ${cmd} ${args.join(' ')}${hint ? `\n[falloff] what to do: ${hint}` : ''}`);
+  }
   return r;
 }
 
@@ -114,7 +152,7 @@ export function pgOwner() {
   if (!isRoot) return null;
   const r = capture('id', ['-u', 'postgres']);
   const g = capture('id', ['-g', 'postgres']);
-  if (r.status !== 0) fail('running as root but there is no `postgres` OS user; install Debian\'s postgresql package.');
+  if (r.status !== 0) fail('running as root but there is no `postgres` OS user to run PostgreSQL as (the server refuses root).\n[falloff] what to do: install Debian\'s postgresql package (apt-get install -y postgresql), or run as an ordinary user.');
   return { uid: Number(r.stdout.trim()), gid: Number(g.stdout.trim()) };
 }
 
@@ -122,7 +160,9 @@ export function pgOwner() {
 export function pgExec(pgBin, tool, args, { quiet = false } = {}) {
   const full = join(pgBin, tool);
   const [cmd, argv] = isRoot ? ['runuser', ['-u', 'postgres', '--', full, ...args]] : [full, args];
-  return quiet ? capture(cmd, argv) : run(cmd, argv);
+  // As postgres, start from a folder that user can enter (the clone's may be private).
+  const opts = isRoot ? { cwd: '/' } : {};
+  return quiet ? capture(cmd, argv, opts) : run(cmd, argv, opts);
 }
 
 export function pgIsRunning(pgBin) {
@@ -140,6 +180,8 @@ export function pgStop(pgBin) {
 /** psql against the private cluster; returns stdout (throws the script on error). */
 export function psql(pgBin, db, sql) {
   const r = capture(join(pgBin, 'psql'), ['-h', '127.0.0.1', '-p', String(PG_PORT), '-U', 'falloff', '-d', db, '-v', 'ON_ERROR_STOP=1', '-tAc', sql]);
-  if (r.status !== 0) fail(`psql failed: ${r.stderr.trim()}`);
+  if (r.status !== 0) {
+    fail(`psql on 127.0.0.1:${PG_PORT} (database ${db}) failed: ${r.stderr.trim()}\n[falloff] what to do: check that the PostgreSQL on that port is this clone's (cluster in ${pgDir}); set FALLOFF_PG_PORT to a free port if another program answers there.`);
+  }
   return r.stdout.trim();
 }

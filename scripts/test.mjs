@@ -1,5 +1,5 @@
 #!/usr/bin/env node
-// `npm test` (after ensure.mjs --test made a fresh test database): typecheck, then the vitest projects in
+// `npm test` (after ensure.mjs --test made a fresh test database): typecheck and lint, then the vitest projects in
 // order — unit, components, api (real HTTP, real PostgreSQL), e2e (real Chromium) — and one closing line.
 //   npm test                       everything
 //   npm test -- tests/unit/calc    only files matching a filter (passed on to vitest)
@@ -13,6 +13,8 @@ const phases = [
   { name: 'unit + components', projects: ['unit', 'components'] },
   { name: 'api', projects: ['api'] },
   { name: 'e2e', projects: ['e2e'] },
+  // Last: these stop and start the test cluster (and start it again whatever happens).
+  { name: 'faults', projects: ['faults'] },
 ];
 const totals = { passed: 0, failed: 0, skipped: 0 };
 const t0 = Date.now();
@@ -22,6 +24,12 @@ if (!filters.length) {
   log('typecheck (tsc --noEmit)…');
   const tc = spawnSync(bin('tsc'), ['--noEmit', '-p', '.'], { cwd: root, stdio: 'inherit' });
   if (tc.status === 0) totals.passed += 1;
+  else totals.failed += 1;
+  // Lint: ESLint (TypeScript, React hooks and layer rules; eslint.config.mjs) and knip for files nothing uses.
+  log('lint (eslint, knip)…');
+  const es = spawnSync(bin('eslint'), ['.'], { cwd: root, stdio: 'inherit' });
+  const kn = spawnSync(bin('knip'), ['--no-progress', '--include', 'files'], { cwd: root, stdio: 'inherit' });
+  if (es.status === 0 && kn.status === 0) totals.passed += 1;
   else totals.failed += 1;
 }
 

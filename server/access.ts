@@ -1,14 +1,17 @@
 // What each role may do. Routes ask these, never compare role names themselves.
-//   owner   everything, members and invitations, publishing templates
+//   owner   everything, members and invitations, marking the studio's own templates
 //   editor  create, edit, delete and restore setups
 //   crew    read and comment, never write
-//   anyone signed in: read (and copy) templates; everything else of a studio they are not in is a 404,
-//   so its existence does not leak.
+//   anyone signed in: read (and copy) the templates in the gallery for everyone; everything else of a studio
+//   they are not in is a 404, so its existence does not leak.
+//   operator (db/schema/operators.ts, above every studio): publishes templates to, and withdraws them from,
+//   the gallery for everyone; nothing more (it reads no studio's setups it is not a member of).
 import type { Request } from 'express';
 import type { Db } from '../db/client';
 import { assignmentAccess, submissionAccess, type AssignmentAccess, type SubmissionAccess } from '../db/assignments';
 import { classRoleOf } from '../db/classes';
 import { lessonAccess, type LessonAccess } from '../db/lessons';
+import { isOperator } from '../db/operators';
 import { getSetupAccess, type SetupAccess } from '../db/setups';
 import type { ClassRole, StudioRole } from '../model/api';
 import { HttpError, notFound } from './errors';
@@ -22,7 +25,7 @@ export const studioCan = {
   manageMembers: (r: StudioRole | null) => r === 'owner',
 };
 
-/** read: the setup itself (templates: anyone); member: what stays inside the studio (history, comments). */
+/** read: the setup itself (the gallery for everyone: anyone); member: what stays inside the studio (history, comments). */
 export type SetupNeed = 'read' | 'member' | 'comment' | 'write' | 'publish';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -35,7 +38,7 @@ export function pathId(value: unknown, what: string): string {
 /** Decide from a setup's access row; throws the HTTP error the caller should get. */
 export function checkSetup(a: SetupAccess | null, need: SetupNeed, opts: { deleted?: 'allow' | 'refuse' } = {}): SetupAccess {
   if (!a) throw notFound('no such setup');
-  const readable = studioCan.read(a.role) || (a.isTemplate && !a.deletedAt);
+  const readable = studioCan.read(a.role) || (a.forEveryone && !a.deletedAt);
   if (!readable) throw notFound('no such setup');
   if (a.deletedAt && opts.deleted !== 'allow') throw new HttpError(410, 'setup_deleted', 'this setup was deleted; restore it from the library first');
   const allowed = {
@@ -120,4 +123,13 @@ export async function requireSubmission(db: Db, req: Request, need: 'read' | 'co
   if (need === 'review') teachOnly(a.role, 'review submissions');
   if (need === 'comment' && !(classCan.teach(a.role) || own)) throw new HttpError(403, 'forbidden', 'only the instructors and the student who submitted it can comment');
   return { user, id, own, access: a as SubmissionAccess & { role: ClassRole } };
+}
+
+/** Publishing to or withdrawing from the gallery for everyone: operators only, a 403 saying so for anyone else. */
+export async function requireOperator(db: Db, req: Request, what: string) {
+  const user = userOf(req);
+  if (!(await isOperator(db, user.id))) {
+    throw new HttpError(403, 'operator_only', `only an operator of this Falloff can ${what}; studio owners keep templates for their own studio`);
+  }
+  return user;
 }

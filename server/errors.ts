@@ -1,5 +1,5 @@
 // Every error the API sends is JSON: { error: { code, message, fields? } }.
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import type { ZodError } from 'zod';
 
 export class HttpError extends Error {
@@ -44,8 +44,37 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, 'no_route', `no API route ${req.method} ${req.path}`));
 };
 
+/** Seconds a client is told to wait (Retry-After) while the database is unreachable. */
+export const DB_RETRY_AFTER_S = 5;
+
+// SQLSTATE classes 08 (connection exception) and 57P (operator intervention: shutdown, restart, cannot
+// connect now), 53300 (too many connections), and the node-postgres / socket errors of a lost connection.
+const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'ENOTFOUND', 'EAI_AGAIN', '53300', '57P01', '57P02', '57P03']);
+const DB_DOWN_MESSAGE = /Connection terminated|connection timeout|timeout exceeded when trying to connect|Client has encountered a connection error|the database system is (starting up|shutting down)|terminating connection due to administrator command/i;
+
+/** True when err (or an error it wraps: Drizzle wraps the driver's in `cause`) says PostgreSQL cannot be reached. */
+export function isDatabaseUnavailable(err: unknown): boolean {
+  for (let e = err as { code?: unknown; cause?: unknown; message?: unknown } | undefined, depth = 0; e && depth < 5; e = e.cause as typeof e, depth++) {
+    const code = typeof e.code === 'string' ? e.code : '';
+    if (DB_DOWN_CODES.has(code) || code.startsWith('08')) return true;
+    if (typeof e.message === 'string' && DB_DOWN_MESSAGE.test(e.message)) return true;
+  }
+  return false;
+}
+
+export function sendDatabaseUnavailable(res: Response) {
+  res.setHeader('Retry-After', String(DB_RETRY_AFTER_S));
+  res.status(503).json({ error: { code: 'database_unavailable', message: `the database cannot be reached just now; try again in ${DB_RETRY_AFTER_S} s`, retryAfterS: DB_RETRY_AFTER_S } });
+}
+
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  if (isDatabaseUnavailable(err)) {
+    req.log?.warn({ err: { message: err?.message, code: err?.cause?.code ?? err?.code } }, 'database unavailable');
+    sendDatabaseUnavailable(res);
+    return;
+  }
   if (err instanceof HttpError) {
+    if (typeof err.extra.retryAfterS === 'number') res.setHeader('Retry-After', String(err.extra.retryAfterS));
     const { fields, ...extra } = err.extra as { fields?: Record<string, string> };
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(fields ? { fields } : {}), ...extra } });
     return;

@@ -19,7 +19,8 @@ export type CapturedMail = {
 };
 export type Inbox = { list: () => CapturedMail[]; clear: () => void };
 export type Fakes = {
-  smtp: { host: string; port: number };
+  /** stop/start: take the fake mail server away and bring it back on the same port (fault tests). */
+  smtp: { host: string; port: number; stop: () => Promise<void>; start: () => Promise<void> };
   s3: { endpoint: string; bucket: string };
   inbox: Inbox;
   close: () => Promise<void>;
@@ -28,9 +29,7 @@ export type Fakes = {
 const HOST = '127.0.0.1';
 const KEEP = 500;
 
-function startSmtp(): Promise<{ server: SMTPServer; port: number; inbox: Inbox }> {
-  const mails: CapturedMail[] = [];
-  let next = 1;
+function startSmtp(port = 0, mails: CapturedMail[] = [], counter = { next: 1 }): Promise<{ server: SMTPServer; port: number; inbox: Inbox; mails: CapturedMail[]; counter: { next: number } }> {
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS', 'AUTH'],
@@ -41,7 +40,7 @@ function startSmtp(): Promise<{ server: SMTPServer; port: number; inbox: Inbox }
         .then((m) => {
           const to = session.envelope.rcptTo.map((r) => r.address);
           mails.push({
-            id: next++,
+            id: counter.next++,
             receivedAt: new Date().toISOString(),
             from: m.from?.text ?? (session.envelope.mailFrom ? session.envelope.mailFrom.address : ''),
             to,
@@ -58,9 +57,9 @@ function startSmtp(): Promise<{ server: SMTPServer; port: number; inbox: Inbox }
   });
   return new Promise((resolve, reject) => {
     server.once('error', reject);
-    server.listen(0, HOST, () => {
-      const port = (server.server.address() as AddressInfo).port;
-      resolve({ server, port, inbox: { list: () => [...mails], clear: () => void mails.splice(0) } });
+    server.listen(port, HOST, () => {
+      const bound = (server.server.address() as AddressInfo).port;
+      resolve({ server, port: bound, mails, counter, inbox: { list: () => [...mails], clear: () => void mails.splice(0) } });
     });
   });
 }
@@ -69,17 +68,32 @@ function startSmtp(): Promise<{ server: SMTPServer; port: number; inbox: Inbox }
 export async function startFakes(o: { s3Dir: string; bucket?: string }): Promise<Fakes> {
   const bucket = o.bucket ?? 'falloff-photos';
   mkdirSync(o.s3Dir, { recursive: true });
-  const smtp = await startSmtp();
+  let smtp = await startSmtp();
+  let smtpUp = true;
+  const stopSmtp = async () => {
+    if (!smtpUp) return;
+    smtpUp = false;
+    await new Promise<void>((r) => smtp.server.close(() => r()));
+  };
   // The fake checks request signatures its own way, which disagrees with the current SDK's on listing and
   // batch delete; it is a loopback stand-in, so it does not insist (real storage checks them).
   const s3 = new S3rver({ address: HOST, port: 0, silent: true, directory: o.s3Dir, allowMismatchedSignatures: true, configureBuckets: [{ name: bucket, configs: [] }] });
   const addr = (await s3.run()) as AddressInfo;
   return {
-    smtp: { host: HOST, port: smtp.port },
+    smtp: {
+      host: HOST,
+      port: smtp.port,
+      stop: stopSmtp,
+      async start() {
+        if (smtpUp) return;
+        smtp = await startSmtp(smtp.port, smtp.mails, smtp.counter);
+        smtpUp = true;
+      },
+    },
     s3: { endpoint: `http://${HOST}:${addr.port}`, bucket },
     inbox: smtp.inbox,
     async close() {
-      await new Promise<void>((r) => smtp.server.close(() => r()));
+      await stopSmtp();
       (s3 as unknown as { httpServer?: { closeAllConnections(): void } }).httpServer?.closeAllConnections();
       await s3.close();
     },

@@ -34,3 +34,6 @@ export default function AppLayout() {
 
 // A deep link or reload on any signed-in screen keeps Setups as the screen below it.
 export const unstable_settings = { initialRouteName: 'setups/index' };
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../components/RouteError';

@@ -2,14 +2,13 @@ import { useRouter } from 'expo-router';
 import { ScrollView } from 'react-native';
 import { AccountSettings } from '../../components/AccountSettings';
 import { StudiosCard } from '../../components/studios/StudiosCard';
-import { Body, Button, Card, Title } from '../../components/ui';
+import { SignOutButton } from '../../components/offline/SignOutButton';
+import { Body, Card, Title } from '../../components/ui';
 import { colours, space } from '../../constants/theme';
-import { useSignOut } from '../../hooks/auth';
 import { useMe } from '../../hooks/me';
 
 export default function AccountScreen() {
   const me = useMe();
-  const signOut = useSignOut();
   const router = useRouter();
   return (
     <ScrollView style={{ flex: 1, backgroundColor: colours.graphite }} contentContainerStyle={{ padding: space.lg, gap: space.md, maxWidth: 720 }}>
@@ -24,15 +23,10 @@ export default function AccountScreen() {
           <StudiosCard />
         </>
       ) : null}
-      <Button
-        label="Sign out"
-        kind="quiet"
-        testID="sign-out"
-        onPress={async () => {
-          await signOut();
-          router.replace('/sign-in');
-        }}
-      />
+      <SignOutButton onSignedOut={() => router.replace('/sign-in')} />
     </ScrollView>
   );
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../components/RouteError';

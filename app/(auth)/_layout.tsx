@@ -11,3 +11,6 @@ export default function AuthLayout() {
   if (data) return <Redirect href={next as '/setups'} />;
   return <Slot />;
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../components/RouteError';

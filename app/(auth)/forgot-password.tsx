@@ -8,7 +8,7 @@ import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
-import { forgotPasswordBody } from '../../model/api';
+import { forgotPasswordBody } from '../../model/forms';
 
 type Values = z.infer<typeof forgotPasswordBody>;
 
@@ -37,10 +37,13 @@ export default function ForgotPassword() {
         </>
       )}
       <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
-        <Link href="/sign-in" style={{ color: '#f0b24a' }}>
+        <Link href="/sign-in" style={{ color: '#f0b24a', textDecorationLine: 'underline' }}>
           Back to sign in
         </Link>
       </Body>
     </AuthFrame>
   );
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../components/RouteError';

@@ -8,7 +8,7 @@ import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
-import { resetPasswordBody } from '../../model/api';
+import { resetPasswordBody } from '../../model/forms';
 
 type Values = z.infer<typeof resetPasswordBody>;
 
@@ -38,10 +38,13 @@ export default function ResetPassword() {
         <ErrorText>This link has been used or has run out. Ask for a new one.</ErrorText>
       )}
       <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
-        <Link href={done ? '/sign-in' : '/forgot-password'} style={{ color: '#f0b24a' }}>
+        <Link href={done ? '/sign-in' : '/forgot-password'} style={{ color: '#f0b24a', textDecorationLine: 'underline' }}>
           {done ? 'Sign in' : 'Ask for a new link'}
         </Link>
       </Body>
     </AuthFrame>
   );
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../components/RouteError';

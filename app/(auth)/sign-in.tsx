@@ -8,7 +8,7 @@ import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
 import { useReturnPath } from '../../hooks/returnPath';
-import { signInBody } from '../../model/api';
+import { signInBody } from '../../model/forms';
 
 type Values = z.infer<typeof signInBody>;
 
@@ -29,16 +29,19 @@ export default function SignIn() {
       {failure ? <ErrorText>{failure}</ErrorText> : null}
       <Button label="Sign in" onPress={submit} busy={formState.isSubmitting} testID="submit" />
       <Body dim style={{ marginTop: 14, textAlign: 'center' }}>
-        <Link href="/forgot-password" style={{ color: '#f0b24a' }}>
+        <Link href="/forgot-password" style={{ color: '#f0b24a', textDecorationLine: 'underline' }}>
           Forgotten your password?
         </Link>
       </Body>
       <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
         New here?{' '}
-        <Link href={next === '/setups' ? '/sign-up' : { pathname: '/sign-up', params: { next } }} style={{ color: '#f0b24a' }}>
+        <Link href={next === '/setups' ? '/sign-up' : { pathname: '/sign-up', params: { next } }} style={{ color: '#f0b24a', textDecorationLine: 'underline' }}>
           Create an account
         </Link>
       </Body>
     </AuthFrame>
   );
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../components/RouteError';

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Link } from 'expo-router';
+import { Link, router, useLocalSearchParams } from 'expo-router';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
@@ -8,20 +8,49 @@ import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
 import { useReturnPath } from '../../hooks/returnPath';
-import { signUpBody } from '../../model/api';
+import { signUpBody } from '../../model/forms';
 
 type Values = z.infer<typeof signUpBody>;
 
 export default function SignUp() {
   const next = useReturnPath();
   const [failure, setFailure] = useState<string | null>(null);
+  // Kept in the address too: better-auth's client re-reads the session after a sign-up, and the signed-out
+  // layout may remount this screen while it does.
+  const { sent } = useLocalSearchParams<{ sent?: string }>();
+  const [sentState, setSentTo] = useState<string | null>(null);
+  const sentTo = sentState ?? (typeof sent === 'string' && sent ? sent : null);
   const { control, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(signUpBody), defaultValues: { name: '', email: '', password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
-    const { error } = await authClient.signUp.email({ name: v.name, email: v.email, password: v.password });
+    // The confirmation link signs the person in and opens ?next= (the signed-out layout sends them on).
+    const { error } = await authClient.signUp.email({ name: v.name, email: v.email, password: v.password, callbackURL: next });
     if (error) return setFailure(error.message ?? 'Could not create the account.');
-    // The signed-out layout sends the visitor on (to ?next=) as soon as the session arrives.
+    // The same answer whether or not the address already had an account: the mail says which.
+    setSentTo(v.email.trim());
+    router.setParams({ sent: v.email.trim() });
   });
+  if (sentTo) {
+    const local = typeof window !== 'undefined' && /^(localhost|127\.0\.0\.1|\[::1\])$/.test(window.location.hostname);
+    return (
+      <AuthFrame title="Check your inbox">
+        <Body testID="check-inbox">
+          We sent a link to {sentTo}. Open it to confirm the address and sign in. Until the address is confirmed you can draw setups, but
+          not join a studio or a class by invitation or send mail to others.
+        </Body>
+        {local ? (
+          <Body dim style={{ marginTop: 12 }}>
+            Running Falloff on this computer? The mail is in the dev inbox at /dev/inbox.
+          </Body>
+        ) : null}
+        <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
+          <Link href={next === '/setups' ? '/sign-in' : { pathname: '/sign-in', params: { next } }} style={{ color: '#f0b24a', textDecorationLine: 'underline' }}>
+            Sign in
+          </Link>
+        </Body>
+      </AuthFrame>
+    );
+  }
   return (
     <AuthFrame title="Create your account">
       <FormField control={control} name="name" label="Name" error={formState.errors.name?.message} autoComplete="name" testID="name" />
@@ -31,10 +60,13 @@ export default function SignUp() {
       <Button label="Create account" onPress={submit} busy={formState.isSubmitting} testID="submit" />
       <Body dim style={{ marginTop: 20, textAlign: 'center' }}>
         Already have one?{' '}
-        <Link href={next === '/setups' ? '/sign-in' : { pathname: '/sign-in', params: { next } }} style={{ color: '#f0b24a' }}>
+        <Link href={next === '/setups' ? '/sign-in' : { pathname: '/sign-in', params: { next } }} style={{ color: '#f0b24a', textDecorationLine: 'underline' }}>
           Sign in
         </Link>
       </Body>
     </AuthFrame>
   );
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../components/RouteError';

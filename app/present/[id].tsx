@@ -2,8 +2,11 @@
 // session itself.
 import { Redirect, useLocalSearchParams } from 'expo-router';
 import { Loading } from '../../components/Loading';
-import { Presentation } from '../../components/classes/Presentation';
+import { workspaceScreen } from '../../components/workspaceScreen';
 import { useSession } from '../../hooks/auth';
+
+// Loaded with the other plan screens when first shown (components/workspace.ts).
+const Presentation = workspaceScreen('Presentation');
 
 export default function PresentRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();
@@ -12,3 +15,6 @@ export default function PresentRoute() {
   if (!data) return <Redirect href={`/sign-in?next=${encodeURIComponent(`/present/${id}`)}`} />;
   return <Presentation lessonId={id} />;
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../components/RouteError';

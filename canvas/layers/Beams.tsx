@@ -1,21 +1,11 @@
-// Light cones: a translucent fan per light, as wide as its modifier's beam, tinted by its gel.
+// A light's cone: a translucent fan as wide as its modifier's beam, tinted by its gel (memoised by the light).
 import { memo, useMemo } from 'react';
-import { G } from 'react-native-svg';
 import type { ItemOf } from '../../model/document';
-import { sketchBeam } from '../sketch/plan';
+import { sketchBeam, type BeamClip } from '../../drawing/plan';
 import { SketchView } from '../views/SketchView';
 
-const Beam = memo(function Beam({ light }: { light: ItemOf<'light'> }) {
-  const node = useMemo(() => sketchBeam(light), [light]);
+// Cut short at the walls and the stage's edge (`clip`), as on paper.
+export const Beam = memo(function Beam({ light, clip }: { light: ItemOf<'light'>; clip?: BeamClip }) {
+  const node = useMemo(() => sketchBeam(light, clip), [light, clip]);
   return node ? <SketchView node={node} /> : null;
 });
-
-export function Beams({ lights }: { lights: ItemOf<'light'>[] }) {
-  return (
-    <G pointerEvents="none">
-      {lights.map((l) => (
-        <Beam key={l.id} light={l} />
-      ))}
-    </G>
-  );
-}

@@ -2,9 +2,9 @@
 import { memo, useMemo } from 'react';
 import { G } from 'react-native-svg';
 import type { SetupDocument } from '../../model/document';
-import { sketchGrid } from '../sketch/plan';
+import { sketchGrid } from '../../drawing/plan';
 import { SketchView } from '../views/SketchView';
-import type { PlanTheme } from '../views/style';
+import type { PlanTheme } from '../../drawing/theme';
 
 export const Grid = memo(function Grid({ stage, theme }: { stage: SetupDocument['stage']; theme: PlanTheme }) {
   const node = useMemo(() => sketchGrid(stage, theme, 'none'), [stage, theme]);

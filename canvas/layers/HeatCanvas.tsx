@@ -1,7 +1,7 @@
 // Native draws the light map as contour lines only (no canvas element to paint the tint into).
 import type { LightMapResult } from '../../calc';
-import type { Viewport } from '../viewport';
+import type { Camera } from '../editor/camera';
 
-export function HeatCanvas(_props: { map: LightMapResult; view: Viewport }) {
+export function HeatCanvas(_props: { map: LightMapResult; view: Camera }) {
   return null;
 }

@@ -2,10 +2,10 @@
 // plan's SVG. Painting it is a putImageData per change — no image encoding — so it keeps up with a drag.
 import { createElement, useEffect, useRef } from 'react';
 import type { LightMapResult } from '../../calc';
-import type { Viewport } from '../viewport';
+import type { Camera } from '../editor/camera';
 import { RAMP_MIN, RAMP_STEPS_PER_STOP, rampTable } from './ramp';
 
-export function HeatCanvas({ map, view }: { map: LightMapResult; view: Viewport }) {
+export function HeatCanvas({ map, view }: { map: LightMapResult; view: Camera }) {
   const ref = useRef<HTMLCanvasElement | null>(null);
   useEffect(() => {
     const c = ref.current;

@@ -1,16 +1,32 @@
-// The light map's contour lines on the plan: one per stop relative to the subject, labelled. The tint under
-// them is HeatCanvas, drawn beneath the SVG.
+// The light map on the plan: its contour lines (one per stop relative to the meter's reading at the subject,
+// the subject's level heavier) drawn from the paths the meter's worker traced, the tone the camera records
+// along each wall as a strip on the wall's camera side (canvas/meter/mapNodes.ts), and each level labelled at
+// most once where its line is long and straight, clear of the lights, the items and their labels
+// (drawing/contourLabels.ts, placed here at the plan's zoom). The tint under them is HeatCanvas, drawn beneath the SVG.
 import { memo, useMemo } from 'react';
 import { G } from 'react-native-svg';
 import type { LightMapResult } from '../../calc';
-import { sketchContours } from '../sketch/plan';
+import { labelBounds, placeLabels } from '../../drawing/labels';
+import { g } from '../../drawing/nodes';
+import { contourLabelNodes } from '../../drawing/plan';
+import type { Units } from '../../model/units';
+import { useEditor } from '../editor/react';
+import { lightMapNodes } from '../meter/mapNodes';
 import { SketchView } from '../views/SketchView';
 
-export const LightMapLayer = memo(function LightMapLayer({ map, ink }: { map: LightMapResult; ink: string }) {
-  const contours = useMemo(() => sketchContours(map, ink), [map, ink]);
+export const LightMapLayer = memo(function LightMapLayer({ map, ink, units }: { map: LightMapResult; ink: string; units: Units }) {
+  const items = useEditor((s) => s.doc.items);
+  const stage = useEditor((s) => s.doc.stage);
+  const scale = useEditor((s) => s.camera?.scale ?? 80);
+  const lines = useMemo(() => lightMapNodes(map, ink, { labels: false }), [map, ink]);
+  const labels = useMemo(() => {
+    const itemLabels = placeLabels(items, { pxPerM: scale, units, bounds: labelBounds(stage) });
+    return g({}, ...contourLabelNodes(map, ink, { pxPerM: scale, items, itemLabels, units }));
+  }, [map, ink, items, stage, scale, units]);
   return (
     <G pointerEvents="none">
-      <SketchView node={contours} />
+      <SketchView node={lines} />
+      <SketchView node={labels} />
     </G>
   );
 });

@@ -1,20 +1,27 @@
 // The interactive layer: selection marks, rotate handles, segment end handles and the selection box.
+// It reads the editor itself: the selected items (a drag re-renders it with them), the box, the zoom.
+import { memo } from 'react';
 import { G, Circle, Line, Rect } from 'react-native-svg';
-import type { Item } from '../../model/document';
-import type { Point } from '../../model/geometry';
+import { useShallow } from 'zustand/react/shallow';
 import { anchorOf, isSegment, kinds, rotateHandleOf } from '../../model/kinds';
-import type { PlanTheme } from '../views/style';
+import { useEditor } from '../editor/react';
+import { liveItem } from '../editor/state';
+import type { PlanTheme } from '../../drawing/theme';
 
-export function Overlay({ items, selection, box, theme, scale, readOnly }: { items: Item[]; selection: string[]; box: { from: Point; to: Point } | null; theme: PlanTheme; scale: number; readOnly: boolean }) {
+export const Overlay = memo(function Overlay({ theme }: { theme: PlanTheme }) {
+  const selected = useEditor(useShallow((s) => s.selection.map((id) => liveItem(s, id)).filter((i) => !!i && (!s.visibleIds || s.visibleIds.has(i.id)))));
+  const box = useEditor((s) => s.box);
+  const scale = useEditor((s) => s.camera?.scale ?? 80);
+  const readOnly = useEditor((s) => s.readOnly);
   const px = 1 / scale; // one screen pixel, in metres
-  const sel = new Set(selection);
   return (
     <G pointerEvents="none">
-      {items
-        .filter((i) => sel.has(i.id))
+      {selected
+        .map((i) => i!)
         .map((i) => {
           const c = anchorOf(i);
-          const handle = readOnly || i.locked ? null : rotateHandleOf(i);
+          // Lights and cameras carry their own aim and height handles (Handles.tsx).
+          const handle = readOnly || i.locked || i.kind === 'light' || i.kind === 'camera' ? null : rotateHandleOf(i);
           return (
             <G key={i.id}>
               {isSegment(i) ? (
@@ -54,4 +61,4 @@ export function Overlay({ items, selection, box, theme, scale, readOnly }: { ite
       ) : null}
     </G>
   );
-}
+});

@@ -10,7 +10,7 @@ const stopsRamp: [number, [number, number, number, number]][] = [
   [-8, [20, 24, 30, 0]],
 ];
 
-export function stopsColour(stops: number): [number, number, number, number] {
+function stopsColour(stops: number): [number, number, number, number] {
   if (stops >= stopsRamp[0]![0]) return stopsRamp[0]![1];
   for (let k = 1; k < stopsRamp.length; k++) {
     const [s1, c1] = stopsRamp[k]!;

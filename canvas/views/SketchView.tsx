@@ -1,8 +1,9 @@
-// Draws a sketch (canvas/sketch) with react-native-svg.
+// Draws a sketch (drawing/) with react-native-svg.
 import { memo, type ComponentType } from 'react';
 import { Circle, Ellipse, G, Image, Line, Path, Polygon, Polyline, Rect, Text } from 'react-native-svg';
-import type { SvgNode, Tag } from '../sketch/nodes';
+import type { SvgNode, Tag } from '../../drawing/nodes';
 
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- each SVG element takes its own props; drawing/nodes types the attributes
 const components: Record<Tag, ComponentType<any>> = {
   g: G,
   line: Line,

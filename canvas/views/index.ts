@@ -1,3 +1,2 @@
 export { ItemView } from './ItemView';
-export { SketchView } from './SketchView';
-export * from './style';
+export * from '../../drawing/theme';

@@ -11,6 +11,28 @@ import { Chip } from '../Chips';
 import { Button, Card, ErrorText } from '../ui';
 import { CheckEditor, parseDrafts, type CriterionDraft } from './Check';
 import { Heading, errorText, s } from './parts';
+import { DUE_HINT, parseDueDate } from '../../model/dueDate';
+
+/** The due date, typed as a day (and a time) in the reader's time zone; blank for none. */
+export function DueField({ value, onChange, error, onSubmit }: { value: string; onChange: (t: string) => void; error?: string; onSubmit?: () => void }) {
+  return (
+    <View style={{ gap: 4 }}>
+      <Text style={s.label}>Due (optional)</Text>
+      <TextInput
+        accessibilityLabel="Due date"
+        aria-invalid={!!error}
+        value={value}
+        onChangeText={onChange}
+        onSubmitEditing={onSubmit}
+        placeholder="2027-03-01 18:00"
+        placeholderTextColor={colours.textFaint}
+        style={[s.input, error ? { borderColor: colours.danger } : null]}
+        testID="due-date"
+      />
+      {error ? <ErrorText>{error}</ErrorText> : <Text style={s.dim}>Type {DUE_HINT}; your own time zone.</Text>}
+    </View>
+  );
+}
 
 export function AssignmentForm({ lesson }: { lesson: LessonDetail }) {
   const router = useRouter();
@@ -19,15 +41,17 @@ export function AssignmentForm({ lesson }: { lesson: LessonDetail }) {
   const [brief, setBrief] = useState('');
   const [referenceId, setReferenceId] = useState<string | null>(lesson.setups[0]?.id ?? null);
   const [rows, setRows] = useState<CriterionDraft[]>([]);
+  const [due, setDue] = useState('');
   const [errors, setErrors] = useState<Record<string, string>>({});
 
   const submit = async () => {
     const { check, errors: checkErrors } = parseDrafts(rows);
-    const local: Record<string, string> = { ...checkErrors, ...(title.trim() ? {} : { title: 'give the assignment a title' }) };
+    const dueAt = parseDueDate(due);
+    const local: Record<string, string> = { ...checkErrors, ...(title.trim() ? {} : { title: 'give the assignment a title' }), ...(dueAt.ok ? {} : { dueAt: dueAt.message }) };
     setErrors(local);
-    if (Object.keys(local).length) return;
+    if (Object.keys(local).length || !dueAt.ok) return;
     try {
-      const a = await create.mutateAsync({ title: title.trim(), brief, referenceId, check });
+      const a = await create.mutateAsync({ title: title.trim(), brief, referenceId, check, dueAt: dueAt.value });
       router.push(`/assignments/${a.id}`);
     } catch (e) {
       if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(Object.fromEntries(Object.entries(e.fields).map(([k, v]) => [k.replace(/^check\./, ''), v])));
@@ -54,6 +78,7 @@ export function AssignmentForm({ lesson }: { lesson: LessonDetail }) {
           style={[s.input, { minHeight: 80, textAlignVertical: 'top' }]}
         />
       </View>
+      <DueField value={due} onChange={setDue} error={errors.dueAt} />
       <View style={{ gap: 4 }} role="radiogroup" aria-label="Reference look">
         <Text style={s.label}>Reference look (students may start from a copy)</Text>
         <View style={s.row}>

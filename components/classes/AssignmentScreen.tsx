@@ -2,10 +2,12 @@
 // editor), see the meter check computed here before submitting, submit, and see the server's result at
 // once. Instructors see the submissions, latest attempt per student, and open one to review it.
 import { useRouter } from 'expo-router';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { Text, View, useWindowDimensions } from 'react-native';
 import { TABLET_MIN, space } from '../../constants/theme';
-import { useAssignment, useStartAssignment, useSubmissions, useSubmit, useWorkingCopy } from '../../hooks/classes';
+import { useAssignment, useStartAssignment, useSubmissions, useSubmit, useUpdateAssignment, useWorkingCopy } from '../../hooks/classes';
+import { dueDateText, parseDueDate } from '../../model/dueDate';
+import { DueField } from './AssignmentForm';
 import { useMe } from '../../hooks/me';
 import type { AssignmentDetail, SubmissionSummary } from '../../model/api';
 import { evaluateCheck } from '../../model/classes';
@@ -17,6 +19,26 @@ import { CheckResultView, CheckTargets } from './Check';
 import { BigMeter } from './LessonPlayer';
 import { Back, CardLink, Heading, NotFound, Page, Pill, errorText, s } from './parts';
 import { ReadOnlyPlan, usePlanAtStep } from './ReadOnlyPlan';
+import { count, formatDateTime } from '../../model/format';
+
+/** The instructor moves or clears the due date (the students see it on the assignment and in the class). */
+function DueEditor({ a }: { a: AssignmentDetail }) {
+  const update = useUpdateAssignment(a);
+  const [text, setText] = useState(dueDateText(a.dueAt));
+  const [error, setError] = useState<string | undefined>();
+  const save = () => {
+    const r = parseDueDate(text);
+    if (!r.ok) return setError(r.message);
+    setError(undefined);
+    update.mutate({ dueAt: r.value }, { onError: (e) => setError(errorText(e)) });
+  };
+  return (
+    <View style={{ gap: space.sm }}>
+      <DueField value={text} onChange={setText} error={error} onSubmit={save} />
+      <Button kind="quiet" label={text.trim() ? 'Save the due date' : 'Save: no due date'} onPress={save} busy={update.isPending} testID="save-due" />
+    </View>
+  );
+}
 
 export function AssignmentScreen({ assignmentId }: { assignmentId: string }) {
   const me = useMe();
@@ -29,13 +51,14 @@ export function AssignmentScreen({ assignmentId }: { assignmentId: string }) {
     <Page wide>
       <Back href={`/classes/${a.classId}`} label={a.className} />
       <Title>{a.title}</Title>
-      <CardLink href={`/lessons/${a.lessonId}`} label={`Follow the lesson ${a.lessonTitle}`}>
+      <CardLink href={`/lessons/${a.lessonId}`}>
         <Text style={s.dim}>From the lesson</Text>
         <Text style={s.link}>{a.lessonTitle} →</Text>
       </CardLink>
       <Card style={{ gap: space.sm }}>
         {a.brief ? <Text style={s.text}>{a.brief}</Text> : null}
-        {a.dueAt ? <Text style={s.dim}>Due {new Date(a.dueAt).toLocaleString()}</Text> : null}
+        {a.dueAt ? <Text style={s.dim} testID="due-shown">Due {formatDateTime(a.dueAt)}</Text> : null}
+        {a.role === 'instructor' ? <DueEditor a={a} /> : null}
         {a.check ? (
           <>
             <Text style={s.label}>The meter checks</Text>
@@ -52,12 +75,12 @@ export function AssignmentScreen({ assignmentId }: { assignmentId: string }) {
 }
 
 function Reference({ title, doc, units }: { title: string; doc: SetupDocument; units: Units }) {
-  const { store, visible, readings } = usePlanAtStep(doc, undefined);
+  const { store, readings } = usePlanAtStep(doc, undefined);
   return (
     <Card style={{ gap: space.sm }}>
       <Heading>The look to reproduce: {title}</Heading>
       <View style={{ height: 260 }}>
-        <ReadOnlyPlan store={store} visible={visible} readings={readings} units={units} testID="reference-plan" />
+        <ReadOnlyPlan store={store} readings={readings} units={units} testID="reference-plan" />
       </View>
       <BigMeter readings={readings} compact />
     </Card>
@@ -93,7 +116,7 @@ function StudentWork({ a }: { a: AssignmentDetail }) {
   return (
     <Card style={{ gap: space.md }}>
       <Heading right={<Button kind="quiet" label="Open my plan" onPress={() => router.push(`/setups/${a.mine!.setupId}`)} testID="open-my-plan" />}>Your plan</Heading>
-      {work.data ? <Text style={s.dim}>“{work.data.title}”, saved {new Date(work.data.updatedAt).toLocaleString()}</Text> : null}
+      {work.data ? <Text style={s.dim}>“{work.data.title}”, saved {formatDateTime(work.data.updatedAt)}</Text> : null}
       {local ? <CheckResultView result={local} title="Check before you submit" testID="local-check" /> : null}
       <Button label="Submit my plan" onPress={() => submit.mutate()} busy={submit.isPending} testID="submit-plan" />
       {submit.error ? <ErrorText>{errorText(submit.error)}</ErrorText> : null}
@@ -115,14 +138,14 @@ function Attempts({ list, title }: { list: SubmissionSummary[]; title: string })
     <View style={{ gap: space.sm }}>
       <Text style={s.label}>{title}</Text>
       {list.map((x) => (
-        <CardLink key={x.id} href={`/submissions/${x.id}`} label={`${x.student.name}, attempt ${x.attempt}`} testID="attempt">
+        <CardLink key={x.id} href={`/submissions/${x.id}`} testID="attempt">
           <View style={s.row}>
             <Text style={s.text}>{title === 'Your attempts' ? `Attempt ${x.attempt}` : `${x.student.name}, attempt ${x.attempt}`}</Text>
             {x.passed !== null ? <Pill label={x.passed ? 'Passes' : 'Not yet'} tone={x.passed ? 'ok' : 'bad'} /> : null}
             <Pill label={x.status === 'reviewed' ? 'Reviewed' : 'Waiting for review'} tone={x.status === 'reviewed' ? 'accent' : 'dim'} />
-            {x.commentCount ? <Text style={s.dim}>{x.commentCount} comments</Text> : null}
+            {x.commentCount ? <Text style={s.dim}>{count(x.commentCount, 'comment')}</Text> : null}
           </View>
-          <Text style={s.dim}>{new Date(x.submittedAt).toLocaleString()}</Text>
+          <Text style={s.dim}>{formatDateTime(x.submittedAt)}</Text>
         </CardLink>
       ))}
     </View>
@@ -142,11 +165,11 @@ function Submissions({ a }: { a: AssignmentDetail }) {
     <Card style={{ gap: space.sm }}>
       <Heading>Submissions</Heading>
       <Text style={s.dim}>
-        {a.submittedCount ?? 0} students submitted · {a.reviewedCount ?? 0} reviewed
+        {count(a.submittedCount ?? 0, 'student')} submitted · {a.reviewedCount ?? 0} reviewed
       </Text>
       {byStudent.length === 0 ? <Text style={s.dim}>Nothing submitted yet. You get an e-mail when a student submits.</Text> : null}
       {byStudent.map(({ latest, count }) => (
-        <CardLink key={latest.id} href={`/submissions/${latest.id}`} label={`Review ${latest.student.name}`} testID="submission-row">
+        <CardLink key={latest.id} href={`/submissions/${latest.id}`} testID="submission-row">
           <View style={[s.row, width < TABLET_MIN ? null : { justifyContent: 'space-between' }]}>
             <Text style={s.heading}>{latest.student.name}</Text>
             <View style={s.row}>
@@ -156,7 +179,7 @@ function Submissions({ a }: { a: AssignmentDetail }) {
           </View>
           <Text style={s.dim}>
             attempt {latest.attempt}
-            {count > 1 ? ` (of ${count} shown)` : ''} · {new Date(latest.submittedAt).toLocaleString()}
+            {count > 1 ? ` (of ${count} shown)` : ''} · {formatDateTime(latest.submittedAt)}
             {latest.shared ? ' · shared with the class' : ''}
           </Text>
         </CardLink>

@@ -8,8 +8,6 @@ import { ErrorText } from '../ui';
 import { Pill, s } from './parts';
 
 export type CriterionDraft = { measure: CheckMeasure; min: string; max: string };
-export const draftOf = (c: Check | null): CriterionDraft[] => (c?.criteria ?? []).map((k) => ({ measure: k.measure, min: k.min === null ? '' : String(k.min), max: k.max === null ? '' : String(k.max) }));
-
 /** Drafts to a check: numbers typed with a comma or a minus sign of either kind are read as numbers. */
 export function parseDrafts(rows: CriterionDraft[]): { check: Check | null; errors: Record<string, string> } {
   if (!rows.length) return { check: null, errors: {} };

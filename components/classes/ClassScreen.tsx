@@ -7,8 +7,10 @@ import { useClass, useClassAssignments, useCreateLesson, useLessons } from '../.
 import { Button, Card, ErrorText, Title } from '../ui';
 import { Back, CardLink, Heading, NotFound, Page, Pill, errorText, s } from './parts';
 import { Roster } from './Roster';
+import { count, formatDateTime } from '../../model/format';
 
-export function ClassScreen({ classId }: { classId: string }) {
+/** joined: the person just joined with a code ('new'), or gave the code of a class they were already in ('again'). */
+export function ClassScreen({ classId, joined }: { classId: string; joined?: 'new' | 'again' }) {
   const { width } = useWindowDimensions();
   const klass = useClass(classId);
   const lessons = useLessons(classId);
@@ -23,7 +25,7 @@ export function ClassScreen({ classId }: { classId: string }) {
       <Heading>Lessons</Heading>
       {lessons.data?.length === 0 ? <Text style={s.dim}>{teaching ? 'No lessons yet. Build one from your setups, step by step.' : 'No lessons yet.'}</Text> : null}
       {(lessons.data ?? []).map((l) => (
-        <CardLink key={l.id} href={teaching ? `/lessons/${l.id}/edit` : `/lessons/${l.id}`} label={l.title} testID="lesson-row">
+        <CardLink key={l.id} href={teaching ? `/lessons/${l.id}/edit` : `/lessons/${l.id}`} testID="lesson-row">
           <View style={s.headingRow}>
             <Text style={[s.heading, { flex: 1 }]}>{l.title}</Text>
             {teaching ? <Pill label={l.published ? 'Published' : 'Draft'} tone={l.published ? 'ok' : 'dim'} /> : null}
@@ -44,11 +46,11 @@ export function ClassScreen({ classId }: { classId: string }) {
       <Heading>Assignments</Heading>
       {assignments.data?.length === 0 ? <Text style={s.dim}>{teaching ? 'Set an assignment from a published lesson.' : 'Nothing to do yet.'}</Text> : null}
       {(assignments.data ?? []).map((a) => (
-        <CardLink key={a.id} href={`/assignments/${a.id}`} label={a.title} testID="assignment-row">
+        <CardLink key={a.id} href={`/assignments/${a.id}`} testID="assignment-row">
           <Text style={s.heading}>{a.title}</Text>
           <Text style={s.dim}>
             from {a.lessonTitle}
-            {a.dueAt ? ` · due ${new Date(a.dueAt).toLocaleDateString()}` : ''}
+            {a.dueAt ? ` · due ${formatDateTime(a.dueAt)}` : ''}
             {teaching && a.submittedCount !== null ? ` · ${a.submittedCount} submitted, ${a.reviewedCount} reviewed` : ''}
           </Text>
         </CardLink>
@@ -60,9 +62,14 @@ export function ClassScreen({ classId }: { classId: string }) {
     <Page wide={wide}>
       <Back href="/classes" label="Classes" />
       <Title>{c?.name ?? ' '}</Title>
+      {c && joined ? (
+        <Text role="status" style={[s.text, { color: colours.ok }]} testID="joined-notice">
+          {joined === 'again' ? `You are already in ${c.name}.` : `You joined ${c.name}.`}
+        </Text>
+      ) : null}
       {c ? (
         <Text style={s.dim}>
-          {teaching ? 'You teach this class' : `Taught by ${c.instructors.join(', ')}`} · {c.studentCount} {c.studentCount === 1 ? 'student' : 'students'}
+          {teaching ? 'You teach this class' : `Taught by ${c.instructors.join(', ')}`} · {count(c.studentCount, 'student')}
         </Text>
       ) : null}
       {wide ? (

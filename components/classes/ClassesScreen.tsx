@@ -1,5 +1,6 @@
 // Classes: the ones you teach or take, invitations to your address, joining with a code, starting a class.
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useRouter } from 'expo-router';
 import { useForm } from 'react-hook-form';
 import { Text, View } from 'react-native';
 import type { z } from 'zod';
@@ -34,7 +35,7 @@ export function ClassesScreen() {
         <ClassCard key={c.id} c={c} />
       ))}
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>
-        <JoinCard />
+        <JoinCard mine={classes} />
         <NewClassCard />
       </View>
     </Page>
@@ -43,7 +44,7 @@ export function ClassesScreen() {
 
 function ClassCard({ c }: { c: ClassSummary }) {
   return (
-    <CardLink href={`/classes/${c.id}`} label={c.name} testID="class-card">
+    <CardLink href={`/classes/${c.id}`} testID="class-card">
         <View style={s.headingRow}>
           <Text style={[s.heading, { flex: 1 }]}>{c.name}</Text>
           <Pill label={c.role === 'instructor' ? 'You teach' : 'Student'} tone={c.role === 'instructor' ? 'accent' : 'dim'} />
@@ -56,13 +57,17 @@ function ClassCard({ c }: { c: ClassSummary }) {
 }
 
 type JoinValues = z.input<typeof joinClassBody>;
-function JoinCard() {
+/** Joining takes the person to the class, which says whether they joined now or were already in it. */
+function JoinCard({ mine }: { mine: readonly ClassSummary[] }) {
+  const router = useRouter();
   const join = useJoinClass();
   const { control, handleSubmit, formState, reset, setError } = useForm<JoinValues>({ resolver: zodResolver(joinClassBody), defaultValues: { code: '' } });
   const submit = handleSubmit(async (v) => {
     try {
-      await join.mutateAsync(v);
+      const before = new Set(mine.map((c) => c.id));
+      const joined = await join.mutateAsync(v);
       reset({ code: '' });
+      router.push({ pathname: '/classes/[id]', params: { id: joined.classId, joined: before.has(joined.classId) ? 'again' : 'new' } });
     } catch (err) {
       const other = showServerError(err, setError, ['code']);
       if (other) setError('root', { message: other });

@@ -13,6 +13,7 @@ import { Loading } from '../Loading';
 import { Button, Card, ErrorText, Title } from '../ui';
 import { AssignmentForm } from './AssignmentForm';
 import { Back, CardLink, Heading, NotFound, Page, Pill, SavingText, errorText, s } from './parts';
+import { count, formatDateTime } from '../../model/format';
 
 export function LessonBuilder({ lessonId }: { lessonId: string }) {
   const router = useRouter();
@@ -50,7 +51,7 @@ export function LessonBuilder({ lessonId }: { lessonId: string }) {
 
       <Heading>Assignments</Heading>
       {l.assignments.map((a) => (
-        <CardLink key={a.id} href={`/assignments/${a.id}`} label={a.title} testID="lesson-assignment">
+        <CardLink key={a.id} href={`/assignments/${a.id}`} testID="lesson-assignment">
           <Text style={s.heading}>{a.title}</Text>
           <Text style={s.dim}>
             {a.submittedCount ?? 0} submitted · {a.reviewedCount ?? 0} reviewed
@@ -91,7 +92,7 @@ function EntryEditor({ lesson, entry, index }: { lesson: LessonDetail; entry: Le
         </View>
       </View>
       <Text style={s.dim}>
-        Copy of version {entry.sourceVersion}, taken {new Date(entry.snapshotAt).toLocaleString()}
+        Copy of version {entry.sourceVersion}, taken {formatDateTime(entry.snapshotAt)}
         {entry.setupId ? '' : ' · the setup it came from is gone'}
       </Text>
       {entry.newerVersion !== null ? (
@@ -151,7 +152,7 @@ function AddSetup({ lesson }: { lesson: LessonDetail }) {
           <View style={{ flex: 1, minWidth: 180 }}>
             <Text style={s.text}>{x.title}</Text>
             <Text style={s.dim}>
-              {x.studioName} · {x.itemCount} items
+              {x.studioName} · {count(x.itemCount, 'item')}
             </Text>
           </View>
           <Button label="Add" onPress={() => add.mutate({ setupId: x.id })} disabled={add.isPending} testID={`add-${x.title}`} />

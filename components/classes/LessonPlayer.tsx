@@ -8,14 +8,15 @@ import { TABLET_MIN, WIDE_MIN, colours, fonts, space } from '../../constants/the
 import type { LessonDetail } from '../../model/api';
 import { describeChange, stepChangeLine } from '../../model/classes';
 import type { SetupDocument } from '../../model/document';
-import { computeReadings, type Readings } from '../../model/readings';
+import { computeReadings, type Readings } from '../../model/setupReadings';
 import { formatAperture, formatStops, type Units } from '../../model/units';
 import { MeterPanel } from '../editor/MeterPanel';
+import { FrameView as CameraFrame } from '../frame/FrameView';
 import { ReadOnlyPlan, usePlanAtStep, useSelectedLight } from './ReadOnlyPlan';
 
 type Frame = { entry: number; step: number | undefined };
 
-export function lessonFrames(lesson: LessonDetail): Frame[] {
+function lessonFrames(lesson: LessonDetail): Frame[] {
   return lesson.setups.flatMap((e, entry): Frame[] => (e.document.steps.length ? e.document.steps.map((_s, step) => ({ entry, step })) : [{ entry, step: undefined }]));
 }
 
@@ -103,11 +104,12 @@ function FrameView({
   wide: boolean;
   header?: React.ReactNode;
 }) {
+  const { width } = useWindowDimensions();
   const f = frames[index]!;
   const entry = lesson.setups[f.entry]!;
   const doc = entry.document;
   const step = f.step !== undefined ? doc.steps[f.step] : undefined;
-  const { store, visible, readings } = usePlanAtStep(doc, f.step);
+  const { store, readings } = usePlanAtStep(doc, f.step);
   const selectedLight = useSelectedLight(store);
   const line = useMemo(() => capital(frameLine(doc, f.step)), [doc, f.step]);
   const stepCount = doc.steps.length;
@@ -119,7 +121,7 @@ function FrameView({
       <Text style={[st.where, big && { fontSize: 20 }]} testID="player-position">
         {where}
       </Text>
-      <Text style={[st.setupTitle, big && { fontSize: 40, lineHeight: 48 }]} accessibilityRole="header">
+      <Text style={[st.setupTitle, big && { fontSize: 40, lineHeight: 48 }]} role="heading" aria-level={2}>
         {step?.title ? step.title : entry.title}
       </Text>
       {step?.title ? <Text style={[st.dim, big && { fontSize: 22 }]}>{entry.title}</Text> : null}
@@ -137,7 +139,9 @@ function FrameView({
   );
 
   const nav = <StepNav frames={frames} index={index} setIndex={setIndex} big={big} />;
-  const plan = <ReadOnlyPlan store={store} visible={visible} readings={readings} units={units} testID="player-plan" />;
+  const plan = <ReadOnlyPlan store={store} readings={readings} units={units} testID="player-plan" />;
+  // The frame as the plan stands at this step: step through and watch the picture change as each light is added.
+  const frameOf = (w: number) => <CameraFrame doc={doc} stepIndex={f.step} paneWidth={w} testID="player-frame" />;
 
   if (present) {
     return (
@@ -147,6 +151,7 @@ function FrameView({
           <View style={{ flex: wide ? 3 : 1, minHeight: 280 }}>{plan}</View>
           <ScrollView style={{ flex: 2 }} contentContainerStyle={{ gap: space.xl }}>
             {words}
+            {frameOf(480)}
             <BigMeter readings={readings} big />
           </ScrollView>
         </View>
@@ -165,6 +170,7 @@ function FrameView({
         </View>
         <ScrollView style={st.side} contentContainerStyle={{ padding: space.lg, gap: space.md }}>
           {words}
+          {frameOf(440 - 2 * space.lg - 2 * space.md)}
           <BigMeter readings={readings} />
           <MeterPanel readings={readings} doc={doc} selectedLight={selectedLight} units={units} />
         </ScrollView>
@@ -178,6 +184,7 @@ function FrameView({
       <View style={{ height: 340 }}>{plan}</View>
       {nav}
       {words}
+      {frameOf(Math.min(640, width - 4 * space.md))}
       <BigMeter readings={readings} />
       <MeterPanel readings={readings} doc={doc} selectedLight={selectedLight} units={units} />
     </ScrollView>
@@ -200,7 +207,7 @@ function StepNav({ frames, index, setIndex, big }: { frames: Frame[]; index: num
         ))}
       </View>
       <View style={{ flexDirection: 'row', gap: space.sm }}>
-        <NavButton label="Previous step" text="‹ Back" disabled={index === 0} onPress={() => setIndex((i) => Math.max(0, i - 1))} big={big} />
+        <NavButton label="Back to the previous step" text="‹ Back" disabled={index === 0} onPress={() => setIndex((i) => Math.max(0, i - 1))} big={big} />
         <NavButton label="Next step" text="Next ›" disabled={index === frames.length - 1} onPress={() => setIndex((i) => Math.min(frames.length - 1, i + 1))} big={big} primary />
       </View>
     </View>

@@ -9,11 +9,13 @@ import { Loading } from '../Loading';
 import { Button } from '../ui';
 import { LessonPlayer } from './LessonPlayer';
 import { Back, NotFound, s } from './parts';
+import { usePageTitle } from '../../hooks/pageTitle';
 
 export function LessonScreen({ lessonId }: { lessonId: string }) {
   const router = useRouter();
   const me = useMe();
   const lesson = useLesson(lessonId);
+  usePageTitle(lesson.isError ? 'Lesson not found' : lesson.data?.title);
   if (lesson.isError) return <NotFound what="Lesson" back={<Back href="/classes" label="Classes" />} />;
   if (!lesson.data) return <Loading />;
   const l = lesson.data;

@@ -11,6 +11,7 @@ import { itemName } from '../../model/classes';
 import type { SetupDocument } from '../../model/document';
 import type { Units } from '../../model/units';
 import { Segmented } from '../Chips';
+import { FramePair } from '../frame/FramePair';
 import { MeterPanel } from '../editor/MeterPanel';
 import { Loading } from '../Loading';
 import { Button, Card, ErrorText, Title } from '../ui';
@@ -18,6 +19,7 @@ import { CheckResultView } from './Check';
 import { BigMeter } from './LessonPlayer';
 import { Back, Heading, NotFound, Page, Pill, errorText, s } from './parts';
 import { ReadOnlyPlan, usePlanAtStep, useSelectedLight, type Pin, type PinTarget } from './ReadOnlyPlan';
+import { formatDateTime } from '../../model/format';
 
 export function ReviewScreen({ submissionId }: { submissionId: string }) {
   const me = useMe();
@@ -39,19 +41,30 @@ export function ReviewScreen({ submissionId }: { submissionId: string }) {
   return (
     <Page wide>
       <Back href={`/assignments/${d.assignmentId}`} label={d.assignmentTitle} />
-      <Title>
+      <Title page={`${mine ? 'Your plan' : d.student.name}, attempt ${d.attempt}`}>
         {mine ? 'Your plan' : d.student.name}, attempt {d.attempt}
       </Title>
       <View style={s.row}>
         {d.passed !== null ? <Pill label={d.passed ? 'Passes the meter check' : 'Does not pass the meter check'} tone={d.passed ? 'ok' : 'bad'} /> : null}
         <Pill label={d.status === 'reviewed' ? 'Reviewed' : 'Waiting for review'} tone={d.status === 'reviewed' ? 'accent' : 'dim'} testID="review-state" />
         {d.shared ? <Pill label="Shared with the class" /> : null}
-        <Text style={s.dim}>submitted {new Date(d.submittedAt).toLocaleString()}</Text>
+        <Text style={s.dim}>submitted {formatDateTime(d.submittedAt)}</Text>
       </View>
       {d.canReview ? <ReviewActions d={d} /> : null}
       {d.checkResult ? (
         <Card>
           <CheckResultView result={d.checkResult} title="Meter check at submission" testID="review-check" />
+        </Card>
+      ) : null}
+      {d.reference ? (
+        <Card style={{ gap: space.sm, padding: space.md }}>
+          <Heading>The frames side by side</Heading>
+          <FramePair
+            left={{ title: mine ? 'Your plan' : `${d.student.name}’s plan`, doc: d.document }}
+            right={{ title: `Reference: ${d.reference.title}`, doc: d.reference.document }}
+            width={Math.min(wide ? 860 : width - 2 * space.md, 1200) - 2 * space.md}
+            testID="review-frames"
+          />
         </Card>
       ) : null}
       {wide ? (
@@ -79,13 +92,13 @@ export function ReviewScreen({ submissionId }: { submissionId: string }) {
 }
 
 function PlanWithMeter({ title, doc, units, pins, onPin, testID }: { title: string; doc: SetupDocument; units: Units; pins?: Pin[]; onPin?: (t: PinTarget) => void; testID: string }) {
-  const { store, visible, readings } = usePlanAtStep(doc, undefined);
+  const { store, readings } = usePlanAtStep(doc, undefined);
   const selectedLight = useSelectedLight(store);
   return (
     <Card style={{ gap: space.sm, padding: space.md }}>
       <Heading>{title}</Heading>
       <View style={{ height: 380 }}>
-        <ReadOnlyPlan store={store} visible={visible} readings={readings} units={units} pins={pins} onPin={onPin} testID={testID} />
+        <ReadOnlyPlan store={store} readings={readings} units={units} pins={pins} onPin={onPin} testID={testID} />
       </View>
       {onPin ? <Text style={s.dim}>Tap the plan to pin your comment to the item or spot under it.</Text> : null}
       <BigMeter readings={readings} compact />
@@ -134,7 +147,7 @@ function Comments({ d, target, clearTarget, me }: { d: SubmissionDetail; target:
         <View key={c.id} style={s.item} testID="review-comment">
           <Text style={s.dim}>
             <Text style={{ color: colours.accent }}>{c.itemId || c.point ? `${k + 1} · ` : ''}</Text>
-            {c.author?.name ?? 'Someone'} · {pinWords(c, d.document)} · {new Date(c.createdAt).toLocaleString()}
+            {c.author?.name ?? 'Someone'} · {pinWords(c, d.document)} · {formatDateTime(c.createdAt)}
           </Text>
           <Text style={s.text}>{c.body}</Text>
         </View>

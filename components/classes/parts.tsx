@@ -5,6 +5,7 @@ import { useEffect, useState, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, Text, TextInput, View, type ViewStyle } from 'react-native';
 import { colours, fonts, radius, space } from '../../constants/theme';
 import { ApiRequestError } from '../../hooks/api';
+import { usePageTitle } from '../../hooks/pageTitle';
 
 export function Page({ children, wide = false, testID }: { children: ReactNode; wide?: boolean; testID?: string }) {
   return (
@@ -22,13 +23,12 @@ export function Back({ href, label }: { href: Href; label: string }) {
   );
 }
 
-/** A card-like row that opens another screen. */
-export function CardLink({ href, label, children, testID }: { href: Href; label: string; children: ReactNode; testID?: string }) {
+/** A card-like row that opens another screen, named by its visible words (what a person sees is what they can say). */
+export function CardLink({ href, children, testID }: { href: Href; children: ReactNode; testID?: string }) {
   const router = useRouter();
   return (
     <Pressable
       accessibilityRole="link"
-      accessibilityLabel={label}
       onPress={() => router.push(href)}
       testID={testID}
       style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [s.card, (pressed || hovered) && { backgroundColor: colours.panelRaised }]}
@@ -41,7 +41,7 @@ export function CardLink({ href, label, children, testID }: { href: Href; label:
 export function Heading({ children, right }: { children: ReactNode; right?: ReactNode }) {
   return (
     <View style={s.headingRow}>
-      <Text style={s.heading} accessibilityRole="header">
+      <Text style={s.heading} role="heading" aria-level={2}>
         {children}
       </Text>
       {right}
@@ -101,10 +101,13 @@ export function SavingText({
 export const errorText = (e: unknown) => (e instanceof ApiRequestError ? e.message : e instanceof Error ? e.message : 'Something went wrong.');
 
 export function NotFound({ what, back }: { what: string; back: ReactNode }) {
+  usePageTitle(`${what} not found`);
   return (
     <Page>
       {back}
-      <Text style={s.title}>{what} not found</Text>
+      <Text style={s.title} role="heading" aria-level={1}>
+        {what} not found
+      </Text>
       <Text style={s.dim}>It may have been removed, or it belongs to a class you are not in.</Text>
     </Page>
   );

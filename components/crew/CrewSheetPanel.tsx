@@ -9,6 +9,7 @@ import type { PaperSize } from '../../model/api';
 import { crewSheet } from '../../model/crewSheet';
 import { Segmented } from '../Chips';
 import { Body } from '../ui';
+import { KeepOfflineToggle } from '../offline/KeepOfflineToggle';
 import { ExportButtons } from './ExportButtons';
 import { SendToCrew } from './SendToCrew';
 import { ShareLinks } from './ShareLinks';
@@ -54,6 +55,7 @@ export function CrewSheetPanel({ setupId }: { setupId: string }) {
         ]}
       />
       <ExportButtons base={base} fileStem={fileStem(setup.data.title)} query={`paper=${chosenPaper}`} />
+      <KeepOfflineToggle setupId={setupId} title={setup.data.title} version={setup.data.version} paper={chosenPaper} />
       <View style={s.rule} />
       <ShareLinks setupId={setupId} canShare={canShare} />
       {canShare ? (

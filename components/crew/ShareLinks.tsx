@@ -7,8 +7,9 @@ import { useCreateShare, useRevokeShare, useShares } from '../../hooks/shares';
 import type { ShareCreated } from '../../model/api';
 import { Body, Button, ErrorText } from '../ui';
 import { copyText } from './download';
+import { formatDate } from '../../model/format';
 
-const when = (iso: string) => new Date(iso).toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
+const when = (iso: string) => formatDate(iso);
 
 export function ShareLinks({ setupId, canShare }: { setupId: string; canShare: boolean }) {
   const shares = useShares(setupId);

@@ -3,20 +3,27 @@
 import { useMemo } from 'react';
 import { ScrollView, StyleSheet, Text, View, useWindowDimensions } from 'react-native';
 import { PlanCanvas } from '../../canvas/PlanCanvas';
-import { useReadings } from '../../canvas/readings';
-import { EditorContext, createEditorStore } from '../../canvas/state/store';
+import { useReadings } from '../../canvas/useReadings';
+import { createEditor } from '../../canvas/editor/editor';
+import { EditorContext } from '../../canvas/editor/react';
 import { graphiteTheme } from '../../canvas/views';
 import { colours, fonts, radius, space } from '../../constants/theme';
 import { ApiRequestError } from '../../hooks/api';
-import { useSharedSetup } from '../../hooks/shares';
+import { useShareMembership, useSharedSetup } from '../../hooks/shares';
+import { CommentThread } from '../comments/CommentThread';
 import { crewSheet, type CrewSheet, type Reading } from '../../model/crewSheet';
 import { Loading } from '../Loading';
 import { Body, Title } from '../ui';
+import { FrameView } from '../frame/FrameView';
 import { ExportButtons } from './ExportButtons';
 import { fileStem } from '../../model/fileNames';
+import { formatDate } from '../../model/format';
+import { usePageTitle } from '../../hooks/pageTitle';
+import { SkipLink } from '../SkipLink';
 
 export function SharedSetupScreen({ token }: { token: string }) {
   const q = useSharedSetup(token);
+  usePageTitle(q.isError ? 'Link opens nothing' : q.data?.title);
   if (q.isPending) return <Loading />;
   if (q.isError) {
     const gone = q.error instanceof ApiRequestError && q.error.status === 404;
@@ -36,13 +43,14 @@ export function SharedSetupScreen({ token }: { token: string }) {
 function Shared({ token, data }: { token: string; data: NonNullable<ReturnType<typeof useSharedSetup>['data']> }) {
   const { width, height } = useWindowDimensions();
   const doc = data.document;
-  const store = useMemo(() => createEditorStore(doc, { readOnly: true }), [doc]);
+  const store = useMemo(() => createEditor(doc, { readOnly: true }), [doc]);
   const readings = useReadings(doc, { lightMap: true });
   const sheet = useMemo(() => crewSheet(doc, { title: data.title, units: data.units, readings }), [doc, data.title, data.units, readings]);
   const planH = Math.round(Math.min(Math.max(280, Math.min(width, 760) * ((doc.stage.depthM + 1) / (doc.stage.widthM + 1))), height * 0.62));
-  const saved = new Date(data.updatedAt).toLocaleDateString(undefined, { day: 'numeric', month: 'long', year: 'numeric' });
+  const saved = formatDate(data.updatedAt);
   return (
     <ScrollView style={s.page} contentContainerStyle={{ paddingBottom: space.xxl }}>
+      <SkipLink />
       <View style={s.column}>
         <Text style={s.brand}>FALLOFF · READ-ONLY</Text>
         <Text style={s.title} accessibilityRole="header">
@@ -55,12 +63,15 @@ function Shared({ token, data }: { token: string; data: NonNullable<ReturnType<t
       </View>
       <View style={[s.plan, { height: planH }]} testID="shared-plan">
         <EditorContext.Provider value={store}>
-          <PlanCanvas theme={graphiteTheme} units={data.units} lightMap={readings.map} boxSelect={false} testID="plan" />
+          <PlanCanvas theme={graphiteTheme} units={data.units} lightMap={readings.map} testID="plan" />
         </EditorContext.Provider>
       </View>
       <View style={s.column}>
         <Text style={s.hint}>Drag to look around, pinch to zoom. Nothing here can be changed.</Text>
         <ExportButtons base={`/api/shared/${token}`} fileStem={fileStem(data.title)} />
+        <Section title="The look we are after">
+          <FrameView doc={doc} paneWidth={Math.min(width, 760) - 2 * space.md - 2 * space.md} testID="shared-frame" />
+        </Section>
         <Kit sheet={sheet} />
         <Section title="Camera">{sheet.camera.map(row)}</Section>
         <Section title="Meter at the subject">
@@ -86,6 +97,7 @@ function Shared({ token, data }: { token: string; data: NonNullable<ReturnType<t
         ) : null}
         {sheet.shots.length ? <Section title="Shot list">{sheet.shots.map((sh, k) => row({ label: `${sh.framing} · ${sh.lens}`, value: sh.settings, detail: sh.note || undefined }, k))}</Section> : null}
         <Notes text={data.notes} />
+        <MemberComments token={token} data={data} />
         <Section title="Safety">
           {sheet.safety.map((c) => (
             <Text key={c} style={s.caution}>
@@ -95,6 +107,17 @@ function Shared({ token, data }: { token: string; data: NonNullable<ReturnType<t
         </Section>
       </View>
     </ScrollView>
+  );
+}
+
+/** Signed-in members of the setup's studio talk here too; everyone else sees nothing of the comments. */
+function MemberComments({ token, data }: { token: string; data: NonNullable<ReturnType<typeof useSharedSetup>['data']> }) {
+  const m = useShareMembership(token);
+  if (!m.data) return null;
+  return (
+    <View style={s.section}>
+      <CommentThread setupId={m.data.setupId} doc={data.document} units={data.units} me={m.data.me} canWrite={m.data.role !== 'crew'} />
+    </View>
   );
 }
 
@@ -156,7 +179,7 @@ function Notes({ text }: { text: string }) {
 function Section({ title, children }: { title: string; children: React.ReactNode }) {
   return (
     <View style={s.section}>
-      <Text style={s.sectionTitle} accessibilityRole="header">
+      <Text style={s.sectionTitle} role="heading" aria-level={2}>
         {title}
       </Text>
       {children}

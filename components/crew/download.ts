@@ -1,19 +1,23 @@
 // Downloading an export with progress: the bytes are read as they arrive (Content-Length gives the total),
-// then saved under a file name. On the web a link with `download` saves the blob; a phone app opens the URL.
+// then saved under a file name (the given one, else the server's Content-Disposition). On the web a link with
+// `download` saves the blob; a phone app opens the URL. Every download in the app goes through here.
 import { Linking, Platform } from 'react-native';
+import { fetchFile } from '../../hooks/api';
 
 export type Progress = { loaded: number; total: number | null };
 
-export async function downloadWithProgress(url: string, filename: string, onProgress: (p: Progress) => void, signal?: AbortSignal): Promise<void> {
+/** A file made from a request body (a POST), rather than one a URL names. */
+export type FileRequest = { url: string; method: 'POST'; body: unknown };
+
+export async function downloadWithProgress(request: string | FileRequest, filename: string | null, onProgress: (p: Progress) => void, signal?: AbortSignal): Promise<void> {
+  const url = typeof request === 'string' ? request : request.url;
   if (Platform.OS !== 'web') {
+    if (typeof request !== 'string') throw new Error('this file downloads in the web app for now');
     await Linking.openURL(url);
     return;
   }
-  const res = await fetch(url, { credentials: 'same-origin', signal });
-  if (!res.ok) {
-    const body = (await res.json().catch(() => null)) as { error?: { message?: string } } | null;
-    throw new Error(body?.error?.message ?? `the server answered ${res.status}`);
-  }
+  const res = await fetchFile(url, signal, typeof request === 'string' ? undefined : { method: request.method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(request.body) });
+  const name = filename ?? /filename="([^"]+)"/.exec(res.headers.get('content-disposition') ?? '')?.[1] ?? url.split('/').pop() ?? 'download';
   const total = Number(res.headers.get('content-length')) || null;
   onProgress({ loaded: 0, total });
   const chunks: Uint8Array[] = [];
@@ -34,7 +38,7 @@ export async function downloadWithProgress(url: string, filename: string, onProg
   const href = URL.createObjectURL(blob);
   const a = document.createElement('a');
   a.href = href;
-  a.download = filename;
+  a.download = name;
   document.body.appendChild(a);
   a.click();
   a.remove();

@@ -1,36 +1,72 @@
 import { memo } from 'react';
 // The meter: what a handheld incident meter would read at the subject, per light and in total, with the
 // ratios, background, ambient, sync and power advice. Every reading is text (never colour alone).
-import { StyleSheet, Text, View } from 'react-native';
+import { Pressable, StyleSheet, Text, View } from 'react-native';
 import Svg, { Line, Path, Text as SvgText } from 'react-native-svg';
 import { scaleLinear } from 'd3-scale';
 import { line } from 'd3-shape';
 import { inverseSquareStops, type MeterResult } from '../../calc';
-import type { Readings } from '../../canvas/readings';
+import type { Readings } from '../../canvas/useReadings';
 import { colours, fonts, space } from '../../constants/theme';
-import type { Item, ItemOf, SetupDocument } from '../../model/document';
+import type { ItemOf, SetupDocument } from '../../model/document';
 import { planCautions } from '../../model/safety';
 import { formatAperture, formatLength, formatPower, formatShutter, formatStops, type Units } from '../../model/units';
+import { itemNames, warningText } from '../../model/kinds';
 
-export const MeterPanel = memo(function MeterPanel({ readings, doc, selectedLight, units }: { readings: Readings; doc: SetupDocument; selectedLight: ItemOf<'light'> | null; units: Units }) {
+/** The receptors in plain words (what the exposure readings are by). */
+export const RECEPTOR_WORDS: Record<MeterResult['receptor'], { label: string; hint: string }> = {
+  'dome-camera': { label: 'Dome to camera', hint: 'a dome at the face pointed at the camera' },
+  'flat-light': { label: 'Flat to each light', hint: 'a flat disc at the face pointed at each light in turn' },
+  'flat-face': { label: 'Flat along the face', hint: 'a flat disc at the face, pointed where the face points' },
+};
+
+/** How each point of the light map is read, in the words of the meter the photographer would hold there. */
+const MAP_RECEPTOR_WORDS: Record<'dome' | 'flat' | 'pointed', string> = {
+  dome: 'read at each point by a dome pointed at the camera',
+  flat: 'read at each point by a flat meter facing as the subject faces',
+  pointed: 'read at each point by a flat meter pointed at each light in turn',
+};
+
+export const MeterPanel = memo(function MeterPanel({ readings, doc, selectedLight, units, onReceptorChange }: { readings: Readings; doc: SetupDocument; selectedLight: ItemOf<'light'> | null; units: Units; onReceptorChange?: (r: MeterResult['receptor']) => void }) {
   const m = readings.meter;
   const cautions = planCautions(doc);
-  const names = new Map(doc.items.map((i: Item) => [i.id, i.label || i.id]));
+  const names = itemNames(doc.items);
   return (
     <View style={s.wrap} accessibilityLabel="Meter">
       <Text style={s.heading}>Meter</Text>
       {readings.build.missing.length ? <Text style={s.dim}>Add {readings.build.missing.join(' and ')} to read the light.</Text> : null}
-      {readings.error ? <Text style={s.warn}>The meter cannot read this plan: {readings.error.split('\n')[1] ?? readings.error}</Text> : null}
+      {readings.error ? <Text style={s.warn} accessibilityRole="alert">The meter cannot read this plan: {readings.error.split('\n')[1] ?? readings.error}</Text> : null}
       {m ? (
         <>
+          <View style={s.block} accessibilityLabel="Receptor">
+            <Text style={s.dim} testID="meter-receptor">
+              Read by: {RECEPTOR_WORDS[m.receptor].hint}
+            </Text>
+            {onReceptorChange ? (
+              <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: 6 }}>
+                {(Object.keys(RECEPTOR_WORDS) as MeterResult['receptor'][]).map((r) => (
+                  <Pressable key={r} accessibilityRole="radio" accessibilityState={{ checked: m.receptor === r }} aria-checked={m.receptor === r} accessibilityLabel={RECEPTOR_WORDS[r].label} onPress={() => m.receptor !== r && onReceptorChange(r)} style={[s.chip, m.receptor === r && s.chipOn]}>
+                    <Text style={s.readingDetail}>{RECEPTOR_WORDS[r].label}</Text>
+                  </Pressable>
+                ))}
+              </View>
+            ) : null}
+          </View>
           <Subject m={m} camera={readings.build.scene!.camera} assumedCamera={readings.build.assumedCamera} />
+          {readings.map ? (
+            <Text style={s.dim} testID="meter-map-caption">
+              {readings.map.reference === 'subject'
+                ? `Light map: stops vs the subject (${formatAperture(m.subject.aperture)}), at face height (${formatLength(readings.map.heightM, units)}), ${MAP_RECEPTOR_WORDS[readings.map.receptor]}; one line a stop.`
+                : `Light map: stops vs the brightest point (no light on the subject), at face height (${formatLength(readings.map.heightM, units)}); one line a stop.`}
+            </Text>
+          ) : null}
           <Lights m={m} names={names} />
           <Ratios m={m} />
           {m.warnings.length ? (
             <View style={s.block}>
               {m.warnings.map((w, k) => (
                 <Text key={k} style={s.warn} accessibilityRole="alert">
-                  ⚠ {w.message}
+                  ⚠ {warningText(w, names)}
                 </Text>
               ))}
             </View>
@@ -99,12 +135,33 @@ function Lights({ m, names }: { m: MeterResult; names: Map<string, string> }) {
             <Text style={s.readingDetail}>
               {l.enabled ? `${formatPower(l.powerFraction)} · ${l.distanceM.toFixed(2)} m${l.transmission < 1 ? ` · ${l.transmission === 0 ? 'blocked' : 'partly blocked'}` : ''}` : 'off'}
             </Text>
-            {l.enabled && l.forTarget.fraction !== null ? (
-              <Text style={s.readingDetail}>
-                for {formatAperture(m.targetAperture)}: set {formatPower(l.forTarget.fraction)}
-                {l.forTarget.beyondFull ? ' — beyond full power' : l.forTarget.belowMinimum ? ' — below its lowest setting' : ''}
+            {l.enabled && l.pointed.aperture !== null && m.receptor !== 'flat-light' ? (
+              <Text style={s.readingDetail} testID={`meter-light-${l.id}-pointed`}>
+                pointed at it: {formatAperture(l.pointed.aperture)}
               </Text>
             ) : null}
+            {l.enabled && l.vsKey ? (
+              <Text style={s.readingDetail} testID={`meter-light-${l.id}-vskey`}>
+                {l.vsKey.stops !== null ? `${formatStops(l.vsKey.stops)} vs the key (wanted ${formatStops(l.vsKey.targetStops)})` : 'no key to compare with'}
+                {l.vsKey.fraction !== null && l.vsKey.stopsChange !== null && Math.abs(l.vsKey.stopsChange) >= 0.05
+                  ? l.vsKey.beyondFull
+                    ? ` — over full power by ${Math.log2(l.vsKey.fraction).toFixed(1)} stops`
+                    : `: set ${formatPower(l.vsKey.fraction)}`
+                  : ''}
+              </Text>
+            ) : null}
+            {l.enabled && l.backgroundTone ? (
+              <Text style={s.readingDetail} testID={`meter-light-${l.id}-tone`}>
+                on the background: {toneWords(l.backgroundTone)}
+              </Text>
+            ) : null}
+            {l.enabled && !l.vsKey && !l.backgroundTone && (l.role === 'auto' || l.role === 'key' || l.role === 'fill') && l.forTarget.fraction !== null ? (
+              <Text style={s.readingDetail}>
+                for {formatAperture(m.targetAperture)}: set {formatPower(l.forTarget.fraction)}
+                {l.forTarget.beyondFull ? ` — over full power by ${Math.log2(l.forTarget.fraction).toFixed(1)} stops` : l.forTarget.belowMinimum ? ' — below its lowest setting' : ''}
+              </Text>
+            ) : null}
+            {l.enabled && l.note ? <Text style={s.readingDetail}>{l.note}</Text> : null}
           </View>
           <View style={{ alignItems: 'flex-end' }}>
             <Text style={s.readingValue} testID={`meter-light-${l.id}`}>
@@ -126,7 +183,26 @@ function Ratios({ m }: { m: MeterResult }) {
   return (
     <View style={s.block}>
       <Reading label="Key : fill" value={kf.ratio !== null ? `${kf.ratio.toFixed(1)}:1` : '—'} detail={kf.ratioStops !== null ? `${kf.ratioStops.toFixed(1)} stops` : 'needs a key and a fill'} testID="meter-keyfill" />
-      <Reading label="Background" value={bg?.stopsVsSubject != null ? `${formatStops(bg.stopsVsSubject)} stops` : '—'} detail={bg ? 'behind the subject, vs the subject' : 'no surface behind the subject'} testID="meter-background" />
+      <Reading label="Background" value={bg?.stopsVsSubject != null ? `${formatStops(bg.stopsVsSubject)} stops` : '—'} detail={bg ? 'light behind the subject, vs the subject' : 'no surface behind the subject'} testID="meter-background" />
+      {bg ? (
+        <View style={s.reading}>
+          <Text style={s.readingLabel}>Background in the frame</Text>
+          <View style={{ alignItems: 'flex-end' }}>
+            <View style={{ flexDirection: 'row', alignItems: 'center', gap: 6 }}>
+              {bg.recorded.hex ? <View style={[s.swatch, { backgroundColor: bg.recorded.hex }]} /> : null}
+              <Text style={s.readingValue} testID="meter-background-recorded">
+                {toneWords(bg.recorded)}
+              </Text>
+            </View>
+            {bg.range ? (
+              <Text style={s.readingDetail} testID="meter-background-range">
+                across the frame: {toneWords(bg.range.darkest)} to {toneWords(bg.range.brightest)}
+              </Text>
+            ) : null}
+            <Text style={s.readingDetail}>R G B vs a correctly exposed mid-grey</Text>
+          </View>
+        </View>
+      ) : null}
       {m.subject.colour ? (
         <View style={s.reading}>
           <Text style={s.readingLabel}>Colour on the subject</Text>
@@ -138,6 +214,12 @@ function Ratios({ m }: { m: MeterResult }) {
       ) : null}
     </View>
   );
+}
+
+/** A recorded tone as R/G/B stops vs mid-grey, with clip and blocked-up words. */
+function toneWords(t: { stops: (number | null)[]; clipped: boolean; blocked: boolean }): string {
+  const v = t.stops.map((x) => (x === null ? '—' : formatStops(x))).join(' / ');
+  return `${v}${t.clipped ? ' (clips)' : t.blocked ? ' (black)' : ''}`;
 }
 
 /** Stops at the subject against the selected light's distance: the inverse-square curve, with where it stands. */
@@ -182,6 +264,8 @@ function FalloffChart({ m, light, units }: { m: MeterResult; light: ItemOf<'ligh
 }
 
 const s = StyleSheet.create({
+  chip: { paddingHorizontal: 8, paddingVertical: 4, borderRadius: 10, borderWidth: 1, borderColor: colours.line },
+  chipOn: { backgroundColor: colours.panelRaised, borderColor: colours.accent },
   wrap: { padding: space.lg, gap: space.sm },
   heading: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 18 },
   sub: { color: colours.text, fontFamily: fonts.sansMedium, fontSize: 14, marginBottom: space.xs },

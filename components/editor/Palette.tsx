@@ -1,9 +1,9 @@
 import { memo } from 'react';
 // The kit palette: every kind of plan item, grouped as a photographer packs them. Tapping one adds it near
-// the middle of what is on screen (the subject's side of the stage when there is one).
+// the middle of what is on screen, in a free spot.
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import Svg from 'react-native-svg';
-import { useEditor, useEditorStore } from '../../canvas/state/store';
+import { useEditor, useEditorApi } from '../../canvas/editor/react';
 import { ItemView, graphiteTheme } from '../../canvas/views';
 import { colours, fonts, space } from '../../constants/theme';
 import type { ItemKind } from '../../model/document';
@@ -28,7 +28,7 @@ function Preview({ kind }: { kind: ItemKind }) {
 }
 
 export const Palette = memo(function Palette({ onAdded }: { onAdded?: () => void }) {
-  const store = useEditorStore();
+  const store = useEditorApi();
   const readOnly = useEditor((s) => s.readOnly);
   const add = (kind: ItemKind) => {
     if (kind === 'wall') {
@@ -37,10 +37,8 @@ export const Palette = memo(function Palette({ onAdded }: { onAdded?: () => void
       onAdded?.();
       return;
     }
-    const { doc } = store.getState();
-    const subject = doc.items.find((i) => i.kind === 'subject') as { x: number; y: number } | undefined;
-    const at = subject ? { x: Math.min(doc.stage.widthM - 0.5, subject.x + 1), y: Math.min(doc.stage.depthM - 0.5, subject.y + 1) } : { x: doc.stage.widthM / 2, y: doc.stage.depthM / 2 };
-    store.dispatch('addItem', { kind, at });
+    // A free spot near the middle of the view; a camera or light aimed at the subject (canvas/editor/placement.ts).
+    store.dispatch('placeItem', { kind });
     onAdded?.();
   };
   if (readOnly) return null;
@@ -54,10 +52,15 @@ export const Palette = memo(function Palette({ onAdded }: { onAdded?: () => void
             {kindOrder
               .filter((k) => kinds[k].group === g.id)
               .map((k) => (
-                <Pressable key={k} accessibilityRole="button" accessibilityLabel={k === 'wall' ? 'Draw a wall' : `Add ${kinds[k].label.toLowerCase()}`} onPress={() => add(k)} style={({ pressed }) => [s.tile, pressed && { backgroundColor: colours.panelRaised }]}>
-                  <Preview kind={k} />
-                  <Text style={s.tileText}>{kinds[k].label}</Text>
-                </Pressable>
+                // The glyph and its word are a picture under the button (a glyph's own numbers, a tape's length,
+                // would otherwise read as part of the button's name); the button over them says what it does.
+                <View key={k} style={s.tile}>
+                  <View aria-hidden pointerEvents="none" style={s.tileFace}>
+                    <Preview kind={k} />
+                    <Text style={s.tileText}>{kinds[k].label}</Text>
+                  </View>
+                  <Pressable accessibilityRole="button" accessibilityLabel={k === 'wall' ? 'Draw a wall' : `Add ${kinds[k].label.toLowerCase()}`} onPress={() => add(k)} style={({ pressed }) => [StyleSheet.absoluteFill, s.tileHit, pressed && { backgroundColor: '#ffffff14' }]} />
+                </View>
               ))}
           </View>
         </View>
@@ -72,6 +75,8 @@ const s = StyleSheet.create({
   group: { marginBottom: space.md },
   groupLabel: { color: colours.textFaint, fontFamily: fonts.sansMedium, fontSize: 11, letterSpacing: 1, textTransform: 'uppercase', marginBottom: space.xs },
   grid: { flexDirection: 'row', flexWrap: 'wrap', gap: 6 },
-  tile: { width: 76, height: 68, borderRadius: 10, borderWidth: 1, borderColor: colours.line, alignItems: 'center', justifyContent: 'center', gap: 2 },
+  tile: { width: 76, height: 68, borderRadius: 10, borderWidth: 1, borderColor: colours.line },
+  tileFace: { flex: 1, alignItems: 'center', justifyContent: 'center', gap: 2 },
+  tileHit: { borderRadius: 10 },
   tileText: { color: colours.text, fontFamily: fonts.sans, fontSize: 11, textAlign: 'center' },
 });

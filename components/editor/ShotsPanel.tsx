@@ -1,18 +1,19 @@
 import { memo } from 'react';
 // The shot list: the frames to make with this setup (wide, medium, tight) with lens and settings.
 import { StyleSheet, Text, View } from 'react-native';
-import { useEditor, useEditorStore } from '../../canvas/state/store';
+import { useEditor, useEditorApi } from '../../canvas/editor/react';
 import { colours, fonts, space } from '../../constants/theme';
 import type { Shot } from '../../model/document';
-import { formatAperture, formatShutter, parseFraction, parseNumber } from '../../model/units';
+import { stepIn } from '../../model/fields';
+import { APERTURE_THIRDS, ISO_THIRDS, SHUTTER_THIRDS, formatAperture, formatShutter, parseNumber, parseShutter } from '../../model/units';
 import { Button } from '../ui';
 import { ChoiceField, NumberField, TextField } from './fields';
 
 const num = parseNumber;
-const shutter = parseFraction;
+const shutter = parseShutter;
 
 export const ShotsPanel = memo(function ShotsPanel() {
-  const store = useEditorStore();
+  const store = useEditorApi();
   const shots = useEditor((s) => s.doc.shots);
   const camera = useEditor((s) => s.doc.items.find((i) => i.kind === 'camera'));
   const readOnly = useEditor((s) => s.readOnly);
@@ -37,10 +38,10 @@ export const ShotsPanel = memo(function ShotsPanel() {
         ) : (
           <View key={sh.id} style={s.shot}>
             <ChoiceField label={`Shot ${i + 1}`} value={sh.framing} options={[{ id: 'wide', label: 'wide' }, { id: 'medium', label: 'medium' }, { id: 'tight', label: 'tight' }]} onChange={(v) => change(sh.id, { framing: v })} />
-            <NumberField label="Lens (mm)" value={sh.focalMm} format={(v) => v.toFixed(0)} parse={num} onCommit={(v) => change(sh.id, { focalMm: v })} />
-            <NumberField label="Aperture (f/)" value={sh.aperture} format={(v) => formatAperture(v).slice(2)} parse={num} onCommit={(v) => change(sh.id, { aperture: v })} />
-            <NumberField label="Shutter" value={sh.shutterS} format={formatShutter} parse={shutter} onCommit={(v) => change(sh.id, { shutterS: v })} />
-            <NumberField label="ISO" value={sh.iso} format={(v) => v.toFixed(0)} parse={num} onCommit={(v) => change(sh.id, { iso: v })} />
+            <NumberField label="Lens (mm)" value={sh.focalMm} format={(v) => v.toFixed(0)} parse={num} range={{ min: 4, max: 2000 }} onCommit={(v) => change(sh.id, { focalMm: v })} />
+            <NumberField label="Aperture (f/)" value={sh.aperture} format={(v) => formatAperture(v).slice(2)} parse={num} range={{ min: 0.7, max: 128 }} onCommit={(v) => change(sh.id, { aperture: v })} onStep={(d) => change(sh.id, { aperture: stepIn(APERTURE_THIRDS, sh.aperture, d) })} />
+            <NumberField label="Shutter" value={sh.shutterS} format={formatShutter} parse={shutter} range={{ min: 1 / 8000, max: 30 }} onCommit={(v) => change(sh.id, { shutterS: v })} onStep={(d) => change(sh.id, { shutterS: stepIn(SHUTTER_THIRDS, sh.shutterS, -d) })} />
+            <NumberField label="ISO" value={sh.iso} format={(v) => v.toFixed(0)} parse={num} range={{ min: 25, max: 409600 }} onCommit={(v) => change(sh.id, { iso: v })} onStep={(d) => change(sh.id, { iso: stepIn(ISO_THIRDS, sh.iso, d) })} />
             <TextField label="Note" value={sh.note} onCommit={(v) => change(sh.id, { note: v })} />
             <Button kind="quiet" label="Remove shot" onPress={() => set(store.getState().doc.shots.filter((x) => x.id !== sh.id))} />
           </View>

@@ -3,14 +3,14 @@ import { memo } from 'react';
 // items (those selected when it is added) and carries a note; tapping a step shows the plan as it stands then.
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { useShallow } from 'zustand/react/shallow';
-import { useEditor, useEditorStore } from '../../canvas/state/store';
+import { useEditor, useEditorApi } from '../../canvas/editor/react';
 import { colours, fonts, space } from '../../constants/theme';
 import type { Step } from '../../model/document';
 import { Button } from '../ui';
 import { TextField } from './fields';
 
 export const StepsPanel = memo(function StepsPanel({ activeStep, onShowStep }: { activeStep: number | null; onShowStep: (i: number | null) => void }) {
-  const store = useEditorStore();
+  const store = useEditorApi();
   const steps = useEditor((s) => s.doc.steps);
   // Names and ids only, so a drag (which changes positions) does not re-render the steps.
   const itemNames = useEditor(useShallow((s) => s.doc.items.map((i) => `${i.id}\u0000${i.label || i.id}`)));

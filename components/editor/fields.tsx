@@ -1,8 +1,9 @@
 // Inspector controls with units: a number that commits on Enter or blur and has thumb-sized steppers, a
 // choice row, a switch and a text field. Each is labelled for screen readers.
-import { memo, useEffect, useState, type ReactNode } from 'react';
+import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
 import { Pressable, StyleSheet, Switch, Text, TextInput, View } from 'react-native';
 import { colours, fonts, radius, space } from '../../constants/theme';
+import { checkTyped, type Range } from '../../model/fields';
 
 export function Row({ label, children }: { label: string; children: ReactNode }) {
   return (
@@ -14,14 +15,37 @@ export function Row({ label, children }: { label: string; children: ReactNode })
 }
 
 /**
- * A number field. `format` shows the value, `parse` reads what was typed (null = not valid, the field
- * reverts); steppers call `onStep(±1)`.
+ * Commits a field's unsent text when the field goes away while it is being edited (the selection moved on,
+ * the sheet closed). It calls the field's latest `commit`, which is bound to the item the field was showing,
+ * so typed text never lands on the item shown next.
  */
-export const NumberField = memo(function NumberField({
+function useCommitOnUnmount(commit: () => void, dirty: boolean) {
+  const latest = useRef({ commit, dirty });
+  latest.current = { commit, dirty };
+  useEffect(
+    () => () => {
+      if (latest.current.dirty) latest.current.commit();
+    },
+    [],
+  );
+}
+
+/**
+ * A number field on the phone's number pad. `format` shows the value, `parse` reads what was typed; a value
+ * that does not read, or falls outside `range`, stays in the field with a message under it saying what the
+ * field accepts (never a silent revert); steppers call `onStep(±1)`.
+ *
+ * Fields are not memoised: they render with the callbacks of the item they show, every time. (A comparator
+ * that skipped renders when only the callbacks changed let a field keep the previous item's callbacks
+ * whenever two items showed the same value, so an edit landed on the wrong item.)
+ */
+export function NumberField({
   label,
   value,
   format,
   parse,
+  range,
+  blankOk,
   onCommit,
   onStep,
   testID,
@@ -30,58 +54,92 @@ export const NumberField = memo(function NumberField({
   value: number;
   format: (v: number) => string;
   parse: (text: string) => number | null;
+  /** Accepted values, inclusive, in the stored unit. */
+  range: Range;
+  /** An empty field is "not set" (−1), not an error. */
+  blankOk?: boolean;
   onCommit: (v: number) => void;
   onStep?: (dir: -1 | 1) => void;
   testID?: string;
 }) {
-  const [text, setText] = useState(format(value));
+  const formatted = format(value);
+  const [text, setText] = useState(formatted);
   const [focused, setFocused] = useState(false);
-  const [bad, setBad] = useState(false);
+  const focusedRef = useRef(false);
+  focusedRef.current = focused;
+  const [problem, setProblem] = useState<string | null>(null);
+  const messageId = useId().replace(/[^A-Za-z0-9_-]/g, '');
+  // A new value from elsewhere (a stepper, undo, a drag, other units) replaces the text unless the person is
+  // typing; refused text stays until it is corrected or the value changes.
   useEffect(() => {
-    if (!focused) setText(format(value));
-  }, [value, focused, format]);
+    if (focusedRef.current) return;
+    setText(formatted);
+    setProblem(null);
+  }, [formatted]);
   const commit = () => {
-    if (text === format(value)) return setBad(false);
-    const v = parse(text);
-    if (v === null || !Number.isFinite(v)) {
-      setBad(true);
-      setText(format(value));
-      return;
-    }
-    setBad(false);
-    if (v !== value) onCommit(v);
+    if (text === format(value)) return setProblem(null);
+    const r = checkTyped(text, { range, parse, format, ...(blankOk ? { blankOk } : {}) });
+    if (!r.ok) return setProblem(r.message);
+    setProblem(null);
+    if (r.value !== value) onCommit(r.value);
+    else setText(format(value));
   };
+  useCommitOnUnmount(commit, focused && text !== format(value));
   return (
-    <Row label={label}>
-      {onStep ? <Step label={`Less ${label.toLowerCase()}`} text="−" onPress={() => onStep(-1)} /> : null}
-      <TextInput
-        accessibilityLabel={label}
-        value={text}
-        onChangeText={setText}
-        onFocus={() => setFocused(true)}
-        onBlur={() => {
-          setFocused(false);
-          commit();
-        }}
-        onSubmitEditing={commit}
-        selectTextOnFocus
-        style={[s.input, bad && { borderColor: colours.danger }]}
-        testID={testID}
-      />
-      {onStep ? <Step label={`More ${label.toLowerCase()}`} text="+" onPress={() => onStep(1)} /> : null}
-    </Row>
+    <View style={s.field}>
+      <Row label={label}>
+        {onStep ? (
+          <Step
+            label={`Less ${label.toLowerCase()}`}
+            text="−"
+            onPress={() => {
+              setProblem(null);
+              onStep(-1);
+            }}
+          />
+        ) : null}
+        <TextInput
+          accessibilityLabel={label}
+          aria-invalid={problem !== null}
+          aria-describedby={problem !== null ? messageId : undefined}
+          // The number pad: digits and a decimal point. Fractions read from a bare denominator ("200" is
+          // 1/200 s, "8" is 1/8 power) and imperial lengths from decimal feet, so nothing needs the letters.
+          inputMode="decimal"
+          keyboardType="decimal-pad"
+          enterKeyHint="done"
+          value={text}
+          onChangeText={(t) => {
+            setText(t);
+            if (problem !== null) setProblem(null);
+          }}
+          onFocus={() => setFocused(true)}
+          onBlur={() => {
+            setFocused(false);
+            commit();
+          }}
+          onSubmitEditing={commit}
+          selectTextOnFocus
+          style={[s.input, problem !== null && { borderColor: colours.danger }]}
+          testID={testID}
+        />
+        {onStep ? (
+          <Step
+            label={`More ${label.toLowerCase()}`}
+            text="+"
+            onPress={() => {
+              setProblem(null);
+              onStep(1);
+            }}
+          />
+        ) : null}
+      </Row>
+      {problem !== null ? (
+        <Text nativeID={messageId} accessibilityLiveRegion="polite" role="alert" style={s.problem} testID={testID ? `${testID}-problem` : undefined}>
+          {problem}
+        </Text>
+      ) : null}
+    </View>
   );
-}, sameValues);
-
-/** Fields re-render when what they show changes, not when their callbacks are new closures (a drag makes new
- *  ones every frame). So a field's callback may be older than the item: callbacks must use only the field's
- *  own value or read the current item at call time (the inspector's function patches do). */
-function sameValues(a: Record<string, unknown>, b: Record<string, unknown>): boolean {
-  for (const k of Object.keys(b)) {
-    if (typeof b[k] === 'function') continue;
-    if (k === 'options' ? JSON.stringify(a[k]) !== JSON.stringify(b[k]) : a[k] !== b[k]) return false;
-  }
-  return true;
 }
 
 function Step({ label, text, onPress }: { label: string; text: string; onPress: () => void }) {
@@ -95,7 +153,7 @@ function Step({ label, text, onPress }: { label: string; text: string; onPress: 
 /** Lists longer than this show only the chosen option until opened (a light's gels and modifiers). */
 const COLLAPSE_OVER = 8;
 
-function ChoiceFieldView<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: { id: T; label: string; swatch?: string }[]; onChange: (v: T) => void }) {
+export function ChoiceField<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: { id: T; label: string; swatch?: string }[]; onChange: (v: T) => void }) {
   const [open, setOpen] = useState(false);
   const collapsed = options.length > COLLAPSE_OVER && !open;
   const current = options.find((o) => o.id === value);
@@ -121,6 +179,8 @@ function ChoiceFieldView<T extends string>({ label, value, options, onChange }: 
               key={o.id}
               accessibilityRole="radio"
               accessibilityState={{ checked: on }}
+              // Said outright when false too: a radio without aria-checked does not say it is not chosen.
+              aria-checked={on}
               accessibilityLabel={o.label}
               onPress={() => {
                 onChange(o.id);
@@ -138,8 +198,6 @@ function ChoiceFieldView<T extends string>({ label, value, options, onChange }: 
   );
 }
 
-export const ChoiceField = memo(ChoiceFieldView, sameValues) as typeof ChoiceFieldView;
-
 export function SwitchField({ label, value, onChange }: { label: string; value: boolean; onChange: (v: boolean) => void }) {
   return (
     <Row label={label}>
@@ -150,7 +208,9 @@ export function SwitchField({ label, value, onChange }: { label: string; value: 
 
 export function TextField({ label, value, onCommit, multiline }: { label: string; value: string; onCommit: (v: string) => void; multiline?: boolean }) {
   const [text, setText] = useState(value);
+  const [focused, setFocused] = useState(false);
   useEffect(() => setText(value), [value]);
+  useCommitOnUnmount(() => onCommit(text), focused && text !== value);
   return (
     <View style={{ marginBottom: space.md }}>
       <Text style={[s.label, { marginBottom: space.xs }]}>{label}</Text>
@@ -158,7 +218,11 @@ export function TextField({ label, value, onCommit, multiline }: { label: string
         accessibilityLabel={label}
         value={text}
         onChangeText={setText}
-        onBlur={() => text !== value && onCommit(text)}
+        onFocus={() => setFocused(true)}
+        onBlur={() => {
+          setFocused(false);
+          if (text !== value) onCommit(text);
+        }}
         onSubmitEditing={() => !multiline && text !== value && onCommit(text)}
         multiline={multiline}
         style={[s.input, s.wide, multiline && { minHeight: 80, textAlignVertical: 'top' }]}
@@ -168,6 +232,8 @@ export function TextField({ label, value, onCommit, multiline }: { label: string
 }
 
 const s = StyleSheet.create({
+  field: {},
+  problem: { color: colours.danger, fontFamily: fonts.sans, fontSize: 13, marginTop: -4, marginBottom: space.sm, textAlign: 'right' },
   row: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', marginBottom: space.sm, gap: space.sm },
   label: { color: colours.textDim, fontFamily: fonts.sansMedium, fontSize: 13, flexShrink: 1 },
   control: { flexDirection: 'row', alignItems: 'center', gap: 6 },
@@ -183,13 +249,13 @@ const s = StyleSheet.create({
     borderColor: colours.line,
     borderRadius: radius.sm,
     paddingHorizontal: space.sm,
-    minHeight: 40,
+    minHeight: 44,
   },
   wide: { maxWidth: '100%', width: '100%', textAlign: 'left', fontFamily: fonts.sans, paddingVertical: space.sm },
-  step: { width: 40, height: 40, borderRadius: radius.sm, borderWidth: 1, borderColor: colours.line, alignItems: 'center', justifyContent: 'center' },
+  step: { width: 44, height: 44, borderRadius: radius.sm, borderWidth: 1, borderColor: colours.line, alignItems: 'center', justifyContent: 'center' },
   stepText: { color: colours.text, fontSize: 20, fontFamily: fonts.sansMedium },
   chips: { flexDirection: 'row', flexWrap: 'wrap', gap: 6 },
-  chip: { flexDirection: 'row', alignItems: 'center', gap: 6, paddingHorizontal: 10, minHeight: 34, borderRadius: 999, borderWidth: 1, borderColor: colours.line },
+  chip: { flexDirection: 'row', alignItems: 'center', gap: 6, paddingHorizontal: 10, minHeight: 44, borderRadius: 999, borderWidth: 1, borderColor: colours.line },
   chipOn: { backgroundColor: colours.accent, borderColor: colours.accent },
   chipText: { color: colours.text, fontFamily: fonts.sans, fontSize: 13 },
   swatch: { width: 12, height: 12, borderRadius: 6, borderWidth: 1, borderColor: '#0006' },

@@ -5,6 +5,7 @@ import { colours, fonts, space } from '../../constants/theme';
 import type { LibrarySection } from '../../hooks/setups';
 import type { SetupSummary } from '../../model/api';
 import { Body, Card } from '../ui';
+import { count, formatDate } from '../../model/format';
 
 export type CardActions = {
   onOpen: (s: SetupSummary) => void;
@@ -14,24 +15,47 @@ export type CardActions = {
 };
 
 const canWrite = (s: SetupSummary) => s.role === 'owner' || s.role === 'editor';
-const day = (iso: string) => new Date(iso).toLocaleDateString();
+const day = (iso: string) => formatDate(iso);
 
-export function SetupCard({ setup, section, maxWidth, actions }: { setup: SetupSummary; section: LibrarySection; maxWidth: `${number}%`; actions: CardActions }) {
+/** pickedNo: while picking a shoot day, the setup's place in it (0: not chosen); null when not picking. */
+export function SetupCard({ setup, section, maxWidth, actions, pickedNo = null }: { setup: SetupSummary; section: LibrarySection; maxWidth: `${number}%`; actions: CardActions; pickedNo?: number | null }) {
   const deleted = section === 'deleted';
   return (
     <Card style={{ flex: 1, maxWidth, marginBottom: space.md, padding: 0 }}>
+      {/* The whole card opens the setup to a pointer; to a keyboard and a screen reader the link is the title
+          (its name is its visible words), and the details read as text after it. */}
       <Pressable
-        testID="setup-card"
-        accessibilityRole="link"
-        accessibilityLabel={setup.title}
-        accessibilityHint={deleted ? 'restore it to open it' : 'opens the setup'}
+        focusable={false}
+        accessible={false}
         disabled={deleted}
         onPress={() => actions.onOpen(setup)}
         style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [s.body, (pressed || hovered) && !deleted && { backgroundColor: colours.panelRaised }]}
       >
-        <Text style={s.title} numberOfLines={2}>
-          {setup.title}
-        </Text>
+        <View style={s.titleRow}>
+          <Pressable
+            testID="setup-card"
+            accessibilityRole="link"
+            accessibilityHint={deleted ? 'restore it to open it' : pickedNo !== null ? 'adds it to the shoot day, or takes it out' : 'opens the setup'}
+            accessibilityState={pickedNo !== null ? { selected: pickedNo > 0 } : undefined}
+            disabled={deleted}
+            onPress={() => actions.onOpen(setup)}
+            style={{ flex: 1 }}
+          >
+            <Text style={s.title} numberOfLines={2}>
+              {setup.title}
+            </Text>
+          </Pressable>
+          {pickedNo ? (
+            <Text style={s.picked} testID="picked-no">
+              {pickedNo}
+            </Text>
+          ) : null}
+          {setup.unreadComments ? (
+            <Text style={s.unread} testID="unread-comments">
+              {setup.unreadComments} new
+            </Text>
+          ) : null}
+        </View>
         <Body dim>
           {setup.studioName}
           {setup.isTemplate ? ' · template' : ''}
@@ -48,7 +72,7 @@ export function SetupCard({ setup, section, maxWidth, actions }: { setup: SetupS
         <Text style={s.meta}>
           {deleted && setup.deletedAt && setup.restorableUntil
             ? `deleted ${day(setup.deletedAt)} · restorable until ${day(setup.restorableUntil)}`
-            : `${setup.itemCount} items · updated ${day(setup.updatedAt)}${setup.ownerName ? ` · ${setup.ownerName}` : ''}`}
+            : `${count(setup.itemCount, 'item')} · updated ${day(setup.updatedAt)}${setup.ownerName ? ` · ${setup.ownerName}` : ''}`}
         </Text>
       </Pressable>
       <View style={s.actions}>
@@ -79,6 +103,9 @@ function Action({ label, a11y, onPress, strong, danger }: { label: string; a11y:
 const s = StyleSheet.create({
   body: { padding: space.lg, paddingBottom: space.sm, borderTopLeftRadius: 16, borderTopRightRadius: 16 },
   title: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 17, marginBottom: 4 },
+  picked: { color: colours.accentText, backgroundColor: colours.accent, fontFamily: fonts.monoMedium, fontSize: 14, minWidth: 26, textAlign: 'center', borderRadius: 13, paddingVertical: 2, overflow: 'hidden' },
+  titleRow: { flexDirection: 'row', alignItems: 'flex-start', gap: space.sm },
+  unread: { color: colours.accentText, backgroundColor: colours.cool, fontFamily: fonts.monoMedium, fontSize: 12, borderRadius: 999, paddingHorizontal: 8, paddingVertical: 2, overflow: 'hidden' },
   tags: { flexDirection: 'row', flexWrap: 'wrap', gap: 6, marginTop: space.sm },
   tag: { color: colours.cool, fontFamily: fonts.mono, fontSize: 12, borderWidth: 1, borderColor: colours.line, borderRadius: 999, paddingHorizontal: 8, paddingVertical: 2 },
   meta: { color: colours.textFaint, fontFamily: fonts.mono, fontSize: 12, marginTop: space.sm },

@@ -10,13 +10,15 @@ import type { z } from 'zod';
 import { colours, fonts, radius, space } from '../../constants/theme';
 import { useMe } from '../../hooks/me';
 import { useChangeMember, useInvitations, useInvite, useMembers, useRevokeInvitation, useStudio } from '../../hooks/studios';
-import { inviteMemberBody, studioRoles, type StudioMember, type StudioRole } from '../../model/api';
+import type { StudioMember, StudioRole } from '../../model/api';
+import { inviteMemberBody, studioRoles } from '../../model/forms';
 import { ChoiceField } from '../ChoiceField';
 import { Chip } from '../Chips';
 import { Dialog, DialogActions } from '../Dialog';
 import { FormField } from '../FormField';
 import { showServerError } from '../library/SetupDialogs';
 import { Body, Button, Card, ErrorText, Title } from '../ui';
+import { count, formatDate } from '../../model/format';
 
 const roleWords: Record<StudioRole, string> = { owner: 'Owner', editor: 'Editor', crew: 'Crew' };
 const roleHints: Record<StudioRole, string> = {
@@ -54,7 +56,7 @@ export function StudioMembers({ studioId }: { studioId: string }) {
       </Link>
       <Title>{studio.data?.name ?? 'Studio'}</Title>
       <Body dim style={{ marginBottom: space.md }}>
-        {studio.data ? `${studio.data.memberCount} ${studio.data.memberCount === 1 ? 'member' : 'members'} · you are ${roleWords[studio.data.role].toLowerCase()}` : ' '}
+        {studio.data ? `${count(studio.data.memberCount, 'member')} · you are ${roleWords[studio.data.role].toLowerCase()}` : ' '}
       </Body>
 
       <Card style={{ gap: space.md }}>
@@ -95,7 +97,7 @@ export function StudioMembers({ studioId }: { studioId: string }) {
                   <View style={{ flex: 1 }}>
                     <Text style={s.name}>{i.email}</Text>
                     <Text style={s.email}>
-                      {roleWords[i.role]} · link works until {new Date(i.expiresAt).toLocaleDateString()}
+                      {roleWords[i.role]} · link works until {formatDate(i.expiresAt)}
                     </Text>
                   </View>
                   <Button label="Withdraw" kind="quiet" onPress={() => revoke.mutate(i.id)} />

@@ -7,7 +7,7 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import type { z } from 'zod';
 import { colours, fonts, space } from '../../constants/theme';
 import { useCreateStudio, useStudios } from '../../hooks/studios';
-import { createStudioBody } from '../../model/api';
+import { createStudioBody } from '../../model/forms';
 import { Dialog, DialogActions } from '../Dialog';
 import { FormField } from '../FormField';
 import { showServerError } from '../library/SetupDialogs';
@@ -31,7 +31,6 @@ export function StudiosCard() {
         <Pressable
           key={st.id}
           accessibilityRole="link"
-          accessibilityLabel={`${st.name} members`}
           onPress={() => router.push(`/studios/${st.id}`)}
           style={({ pressed }) => [s.row, pressed && { opacity: 0.7 }]}
         >

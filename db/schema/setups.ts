@@ -1,7 +1,7 @@
 // A setup: the plan document (validated JSON, see model/document.ts) plus what is listed and searched;
 // its history of earlier versions and the comments on it.
 import { sql } from 'drizzle-orm';
-import { boolean, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, integer, jsonb, pgTable, primaryKey, real, text, timestamp, unique, uuid, type AnyPgColumn } from 'drizzle-orm/pg-core';
 import { user } from './auth';
 import { studios } from './studios';
 
@@ -20,8 +20,13 @@ export const setups = pgTable(
     itemCount: integer('item_count').notNull().default(0),
     /** Bumped on every save; a save must name the version it started from (optimistic concurrency). */
     version: integer('version').notNull().default(1),
-    /** Templates are readable by every signed-in user (and copied, never edited, by non-members). */
+    /** A template of its studio: its members copy it to start a new setup (owners mark it). */
     isTemplate: boolean('is_template').notNull().default(false),
+    /**
+     * A template in the gallery for everyone: readable (and copied, never edited) by every signed-in user. Only
+     * an operator publishes or withdraws it (server/routes/setups.ts); always a template too.
+     */
+    forEveryone: boolean('for_everyone').notNull().default(false),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
     /** Soft delete: restorable for 30 days (RESTORE_DAYS in db/setups.ts). */
@@ -34,8 +39,8 @@ export const setups = pgTable(
     index('setups_studio_title_idx').on(t.studioId, sql`lower(${t.title})`, t.id).where(sql`${t.deletedAt} is null`),
     // The restore list.
     index('setups_studio_deleted_idx').on(t.studioId, t.deletedAt.desc()).where(sql`${t.deletedAt} is not null`),
-    // The templates section, across studios.
-    index('setups_template_updated_idx').on(t.updatedAt.desc(), t.id.desc()).where(sql`${t.isTemplate} and ${t.deletedAt} is null`),
+    // The templates section: the gallery for everyone, across studios.
+    index('setups_everyone_updated_idx').on(t.updatedAt.desc(), t.id.desc()).where(sql`${t.forEveryone} and ${t.deletedAt} is null`),
     index('setups_tags_idx').using('gin', t.tags),
     // Search as you type matches any part of a word (ILIKE '%…%'), which trigram indexes serve.
     index('setups_title_trgm_idx').using('gin', t.title.op('gin_trgm_ops')),
@@ -67,7 +72,11 @@ export const setupVersions = pgTable(
   (t) => [unique('setup_versions_setup_version_uq').on(t.setupId, t.version)],
 );
 
-/** Comments on a setup, by any studio member (crew included); optionally pinned to one plan item. */
+/**
+ * Comments on a setup, by any studio member (crew included). A thread starts with a comment that has no
+ * parent; replies name it. A thread's first comment may be pinned to one plan item or to a point on the plan
+ * (metres, the plan frame), and resolved (and reopened) as a whole.
+ */
 export const setupComments = pgTable(
   'setup_comments',
   {
@@ -77,7 +86,47 @@ export const setupComments = pgTable(
     body: text('body').notNull(),
     /** The plan item the comment is about (an item id of the document), or null for the whole setup. */
     itemId: text('item_id'),
+    /** A point on the plan, metres; both or neither. */
+    xM: real('x_m'),
+    yM: real('y_m'),
+    /** The thread's first comment, for a reply; null for a thread's start. */
+    parentId: uuid('parent_id').references((): AnyPgColumn => setupComments.id, { onDelete: 'cascade' }),
+    /** Set on a thread's first comment when someone marks the thread resolved. */
+    resolvedAt: timestamp('resolved_at', { withTimezone: true }),
+    resolvedBy: text('resolved_by').references(() => user.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index('setup_comments_setup_idx').on(t.setupId, t.createdAt, t.id)],
+);
+
+/**
+ * What a save returned, by the client's Idempotency-Key (per user), kept for a day: a save retried after its
+ * answer was lost (a dropped connection, a killed server) gets the same answer instead of a version conflict.
+ * Written by the same statement as the save (db/setups.ts, saveSetup), so a committed save always has one.
+ */
+export const saveReceipts = pgTable(
+  'save_receipts',
+  {
+    userId: text('user_id').notNull().references(() => user.id, { onDelete: 'cascade' }),
+    key: text('key').notNull(),
+    setupId: uuid('setup_id').notNull().references(() => setups.id, { onDelete: 'cascade' }),
+    result: jsonb('result').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.key] }), index('save_receipts_created_idx').on(t.createdAt)],
+);
+
+/**
+ * Per person and setup: when they last read its comments (the library's unread count is the comments by
+ * others after it) and when they were last e-mailed about new ones (the digest's rate limit).
+ */
+export const setupReads = pgTable(
+  'setup_reads',
+  {
+    userId: text('user_id').notNull().references(() => user.id, { onDelete: 'cascade' }),
+    setupId: uuid('setup_id').notNull().references(() => setups.id, { onDelete: 'cascade' }),
+    lastReadAt: timestamp('last_read_at', { withTimezone: true }),
+    notifiedAt: timestamp('notified_at', { withTimezone: true }),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.setupId] })],
 );

@@ -12,6 +12,8 @@ export const studios = pgTable('studios', {
   name: text('name').notNull(),
   /** The studio made for a user at sign-up; it has exactly that one owner. */
   personal: boolean('personal').notNull().default(false),
+  /** Whether crew may copy the studio's setups out into a studio of their own (off unless an owner turns it on). */
+  crewMayCopy: boolean('crew_may_copy').notNull().default(false),
   createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });

@@ -36,3 +36,30 @@ export function resetPasswordMessage(v: { to: string; name: string; url: string 
   const foot = 'The link works once and for one hour. If you did not ask for it, ignore this e-mail; your password stays as it is.';
   return { to: v.to, subject: 'Reset your Falloff password', text: `${lines.join('\n\n')}\n${v.url}\n\n${foot}\n`, html: html(lines, { href: v.url, label: 'Choose a new password' }, foot) };
 }
+
+export function verifyEmailMessage(v: { to: string; name: string; url: string }): Message {
+  const lines = [`Hello ${v.name},`, 'Confirm that this address is yours to finish setting up your Falloff account. Until then you cannot join a studio or a class by invitation, or send mail to others.'];
+  const foot = 'If you did not sign up for Falloff, ignore this e-mail; no account is confirmed without this link.';
+  return { to: v.to, subject: 'Confirm your e-mail address for Falloff', text: `${lines.join('\n\n')}\n${v.url}\n\n${foot}\n`, html: html(lines, { href: v.url, label: 'Confirm my address' }, foot) };
+}
+
+/** Someone tried to sign up with an address that already has an account: tell its owner, not the visitor. */
+export function existingAccountMessage(v: { to: string; name: string; signInUrl: string }): Message {
+  const lines = [`Hello ${v.name},`, 'Someone just tried to make a new Falloff account with this address, which already has one. If it was you, sign in instead — or reset your password from the sign-in page if you have forgotten it.'];
+  const foot = 'If it was not you, nothing has changed: your account and password stay as they are.';
+  return { to: v.to, subject: 'You already have a Falloff account', text: `${lines.join('\n\n')}\n${v.signInUrl}\n\n${foot}\n`, html: html(lines, { href: v.signInUrl, label: 'Sign in' }, foot) };
+}
+
+/** New comments on a setup, grouped into one e-mail per person (server/mail/commentNotices.ts). */
+export function commentDigestMessage(v: { to: string; name: string; title: string; url: string; comments: { author: string; body: string }[] }): Message {
+  const n = v.comments.length;
+  const shown = v.comments.slice(0, 10);
+  const lines = [
+    `Hello ${v.name},`,
+    `${n === 1 ? 'There is a new comment' : `There are ${n} new comments`} on “${v.title}”:`,
+    ...shown.map((c) => `${c.author}: ${c.body.length > 400 ? `${c.body.slice(0, 400)}…` : c.body}`),
+    ...(n > shown.length ? [`…and ${n - shown.length} more.`] : []),
+  ];
+  const foot = 'You get at most one of these e-mails per setup every few minutes; opening the comments marks them read.';
+  return { to: v.to, subject: `${n === 1 ? 'A new comment' : `${n} new comments`} on ${v.title}`, text: `${lines.join('\n\n')}\n\n${v.url}\n\n${foot}\n`, html: html(lines, { href: v.url, label: 'Open the setup' }, foot) };
+}

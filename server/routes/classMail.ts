@@ -3,6 +3,7 @@
 // convenience: a failure is logged and never fails the request that caused it.
 import type { Request } from 'express';
 import type { Mailer, Message } from '../mail/mailer';
+import { MailQueueUnavailable } from '../mail/queue';
 
 const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
@@ -55,11 +56,17 @@ export const classMail = {
     ),
 };
 
-/** Send each message on its own (students never see each other's addresses); report how many went. */
-export async function sendAll(mailer: Mailer | undefined, req: Request, messages: Message[]): Promise<{ sent: number; failed: number }> {
+/**
+ * Send each message on its own (students never see each other's addresses); report how many went. With
+ * `throwIfQueueDown`, a mail queue that took none of them (MailQueueUnavailable) is thrown for the caller to
+ * undo what it made; notices after an action that stands are only counted.
+ */
+export async function sendAll(mailer: Mailer | undefined, req: Request, messages: Message[], o: { throwIfQueueDown?: boolean } = {}): Promise<{ sent: number; failed: number }> {
   if (!mailer || !messages.length) return { sent: 0, failed: 0 };
   const results = await Promise.allSettled(messages.map((m) => mailer.send(m)));
   const failed = results.filter((r) => r.status === 'rejected');
+  const queueDown = failed.find((f) => (f as PromiseRejectedResult).reason instanceof MailQueueUnavailable);
+  if (o.throwIfQueueDown && queueDown && failed.length === results.length) throw (queueDown as PromiseRejectedResult).reason;
   for (const f of failed) req.log?.warn({ err: (f as PromiseRejectedResult).reason }, 'class e-mail not sent');
   return { sent: results.length - failed.length, failed: failed.length };
 }

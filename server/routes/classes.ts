@@ -27,6 +27,7 @@ import { HttpError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { userOf } from '../session';
 import { parseBody } from '../validate';
+import { requireVerifiedEmail } from '../verified';
 import { appLink, classMail, sendAll } from './classMail';
 
 export function classRoutes(db: Db, mailer?: Mailer) {
@@ -71,6 +72,7 @@ export function classRoutes(db: Db, mailer?: Mailer) {
   // Someone invited by e-mail joins from their own Classes screen, signed in with that address.
   r.post('/classes/:id/accept', async (req, res) => {
     const user = userOf(req);
+    await requireVerifiedEmail(db, user, 'join a class by invitation');
     const joined = await acceptClassInvitation(db, pathId(req.params.id, 'class'), user);
     if (!joined) throw notFound('no such class');
     res.json(joined);
@@ -101,14 +103,19 @@ export function classRoutes(db: Db, mailer?: Mailer) {
   r.post('/classes/:id/invitations', async (req, res) => {
     const { user, id } = await requireClass(db, req, 'teach', 'invite people');
     const body = parseBody(inviteToClassBody, req);
+    await requireVerifiedEmail(db, user, 'invite people');
     if (await isClassMemberByEmail(db, id, body.email)) {
       throw new HttpError(409, 'already_member', `${body.email} is already in this class`, { fields: { email: 'already in the class' } });
     }
     const invitation = await createClassInvitation(db, { classId: id, email: body.email, role: body.role, invitedBy: user });
     const view = (await classView(db, user.id, id))!;
+    // As a studio's invitation: a mail queue that cannot take the message withdraws the invitation (503).
     const { sent } = await sendAll(mailer, req, [
       classMail.invitation({ to: body.email, className: view.name, role: body.role, inviterName: user.name, code: view.joinCode!, link: appLink(req, '/classes') }),
-    ]);
+    ], { throwIfQueueDown: true }).catch(async (err: unknown) => {
+      await revokeClassInvitation(db, id, invitation.id);
+      throw err;
+    });
     if (mailer) {
       await setInvitationDelivery(db, invitation.id, sent ? 'email' : 'failed', sent ? null : 'the mail server did not take it');
       invitation.delivery = sent ? 'email' : 'failed';

@@ -10,6 +10,7 @@ import type { Db } from '../../db/client';
 import { acceptInvitation, previewInvitation } from '../../db/studios';
 import { HttpError, notFound } from '../errors';
 import { userOf } from '../session';
+import { requireVerifiedEmail } from '../verified';
 
 const COOKIE = 'falloff_invite';
 const COOKIE_PATH = '/api/invitations';
@@ -71,6 +72,7 @@ export function invitationRoutes(db: Db) {
 
   r.post('/invitations/:token/accept', async (req, res) => {
     const user = userOf(req);
+    await requireVerifiedEmail(db, user, 'accept an invitation');
     const result = await acceptInvitation(db, tokenParam(req.params.token), user);
     if (!result.ok) {
       if (result.reason === 'unknown') throw notFound('no such invitation');

@@ -1,11 +1,11 @@
 // The meter's readings for a stored setup, computed with the same code the editor runs (calc/ through
-// model/scene.ts), so a crew sheet or another client can trust the server's numbers.
+// model/documentToScene.ts), so a crew sheet or another client can trust the server's numbers.
 import { Router } from 'express';
 import { ZodError, z } from 'zod';
 import { meter } from '../../calc';
 import type { Db } from '../../db/client';
 import { getSetupDetailObject } from '../../db/setups';
-import { sceneFromDocument } from '../../model/scene';
+import { sceneFromDocument } from '../../model/documentToScene';
 import { requireSetup } from '../access';
 import { HttpError, notFound, zodFields } from '../errors';
 import { parseQuery } from '../validate';

@@ -1,20 +1,30 @@
 // Reference and result photos of a setup. Any studio member may attach one (crew photograph the set as
 // rigged); owners, editors and the uploader may delete it. The bytes go to object storage: the served copy
 // has no GPS (server/storage/images.ts), the row keeps the camera settings read from the original's EXIF.
+// An upload streams to a temp file (never whole into memory) under a size cap; its type and pixel count are
+// read from the first bytes and the header before anything decodes it, and the decoding runs on the worker
+// pool (server/pool.ts). The temp file is removed whatever happens.
 import { randomUUID } from 'node:crypto';
+import { mkdirSync } from 'node:fs';
+import { unlink } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import type { Request, Response } from 'express';
 import { Router } from 'express';
 import multer from 'multer';
 import type { Db } from '../../db/client';
 import { deletePhotoRow, getPhoto, insertPhoto, listPhotos, type PhotoRow } from '../../db/photos';
-import { MAX_PHOTO_BYTES, uploadPhotoFields, type PhotoKind, type SetupPhoto } from '../../model/api';
+import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, uploadPhotoFields, type PhotoKind, type SetupPhoto } from '../../model/api';
 import { pathId, requireSetup, studioCan } from '../access';
 import { HttpError, notFound } from '../errors';
-import { EXTENSION, preparePhoto, readCameraSettings, sniffPhotoType } from '../storage/images';
+import { asBuffer, runTask } from '../pool';
+import { EXTENSION, photoHeader, sniffPhotoFile, type PreparedFile } from '../storage/images';
 import type { ObjectStore } from '../storage/objects';
 import { parseBody } from '../validate';
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_PHOTO_BYTES, files: 1, fields: 4, fieldSize: 1000 } }).single('photo');
+const uploadDir = join(tmpdir(), 'falloff-uploads');
+mkdirSync(uploadDir, { recursive: true });
+const upload = multer({ dest: uploadDir, limits: { fileSize: MAX_PHOTO_BYTES, files: 1, fields: 4, fieldSize: 1000 } }).single('photo');
 
 /** Run multer as a promise, its errors as our JSON errors. */
 function receive(req: Request, res: Response): Promise<void> {
@@ -67,14 +77,27 @@ export function photoRoutes(db: Db, store: ObjectStore | undefined) {
     const objects = needStore();
     await receive(req, res);
     const file = req.file;
-    if (!file) throw new HttpError(400, 'invalid_input', 'invalid body: photo: attach a photo file', { fields: { photo: 'attach a photo file' } });
-    const fields = parseBody(uploadPhotoFields, req);
-    const type = await sniffPhotoType(file.buffer);
+    try {
+      if (!file) throw new HttpError(400, 'invalid_input', 'invalid body: photo: attach a photo file', { fields: { photo: 'attach a photo file' } });
+      const fields = parseBody(uploadPhotoFields, req);
+      await savePhoto(res, id, user.id, objects, file, fields.kind);
+    } finally {
+      if (file?.path) await unlink(file.path).catch(() => {});
+    }
+  });
+
+  async function savePhoto(res: Response, id: string, userId: string, objects: ObjectStore, file: Express.Multer.File, kind: PhotoKind) {
+    const type = await sniffPhotoFile(file.path);
     if (!type) throw new HttpError(415, 'unsupported_type', 'only JPEG, PNG, WebP or HEIC photos can be attached; this file is not one, whatever its name says', { fields: { photo: 'not a JPEG, PNG, WebP or HEIC image' } });
-    const settings = await readCameraSettings(file.buffer);
-    const prepared = await preparePhoto(file.buffer, type).catch(() => {
-      throw new HttpError(422, 'unreadable_image', 'the photo could not be read: the file may be damaged', { fields: { photo: 'damaged or incomplete image' } });
-    });
+    const size = await photoHeader(file.path);
+    if (size && size.width * size.height > MAX_PHOTO_PIXELS) {
+      const mp = (size.width * size.height / 1e6).toFixed(0);
+      throw new HttpError(413, 'too_many_pixels', `a photo may have at most ${MAX_PHOTO_PIXELS / 1e6} million pixels; this one is ${size.width} × ${size.height} (${mp} million)`, { fields: { photo: `more than ${MAX_PHOTO_PIXELS / 1e6} million pixels` } });
+    }
+    const done = await runTask<PreparedFile>('server/storage/images.ts', 'preparePhotoTask', { path: file.path, type }, 'the photo');
+    if ('unreadable' in done) throw new HttpError(422, 'unreadable_image', 'the photo could not be read: the file may be damaged', { fields: { photo: 'damaged or incomplete image' } });
+    const { settings } = done;
+    const prepared = { ...done, served: asBuffer(done.served), thumb: done.thumb ? asBuffer(done.thumb) : null };
     const photoId = randomUUID();
     const prefix = `setups/${id}/photos/${photoId}`;
     const objectKey = `${prefix}/original.${EXTENSION[type]}`;
@@ -85,8 +108,8 @@ export function photoRoutes(db: Db, store: ObjectStore | undefined) {
       await insertPhoto(db, {
         id: photoId,
         setupId: id,
-        kind: fields.kind,
-        uploadedBy: user.id,
+        kind,
+        uploadedBy: userId,
         filename: cleanName(file.originalname),
         mime: type,
         bytes: prepared.served.length,
@@ -101,7 +124,7 @@ export function photoRoutes(db: Db, store: ObjectStore | undefined) {
       throw err;
     }
     res.status(201).json(view(id, (await getPhoto(db, id, photoId))!));
-  });
+  }
 
   r.get('/setups/:id/photos', async (req, res) => {
     const { id } = await requireSetup(db, req, 'member');

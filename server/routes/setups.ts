@@ -1,7 +1,7 @@
-// Setups: list, create, read, save, delete and restore, duplicate, tags. Thin over db/setups.ts; roles from
+// Setups: list, create, read, save, delete and restore, duplicate, tags, the gallery for everyone. Thin over db/setups.ts; roles from
 // server/access.ts.
 import type { Response } from 'express';
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import type { Db } from '../../db/client';
 import {
   BadCursor,
@@ -12,14 +12,17 @@ import {
   getSetupDetailObject,
   listSetups,
   restoreDeletedSetup,
+  pruneSaveReceipts,
   saveSetup,
+  savedByKey,
+  setForEveryone,
   softDeleteSetup,
   tagsInUse,
 } from '../../db/setups';
-import { studioRoleOf, studiosOf } from '../../db/studios';
-import { createSetupBody, duplicateSetupBody, listSetupsQuery, updateSetupBody, type StudioRole } from '../../model/api';
+import { crewMayCopy, studioRoleOf, studiosOf } from '../../db/studios';
+import { createSetupBody, duplicateSetupBody, forEveryoneBody, listSetupsQuery, updateSetupBody, type ForEveryoneResponse, type StudioRole } from '../../model/api';
 import { emptyDocument } from '../../model/document';
-import { checkSetup, pathId, requireSetup, studioCan } from '../access';
+import { checkSetup, pathId, requireOperator, requireSetup, studioCan } from '../access';
 import { HttpError, notFound } from '../errors';
 import { userOf, type SessionUser } from '../session';
 import { parseBody, parseQuery } from '../validate';
@@ -53,6 +56,15 @@ async function targetStudio(db: Db, user: SessionUser, named: string | undefined
   return id;
 }
 
+const KEY = /^[A-Za-z0-9_-]{8,100}$/;
+/** The request's Idempotency-Key header (null without one; a 400 naming the header when malformed). */
+function idempotencyKey(req: Request): string | null {
+  const v = req.get('idempotency-key');
+  if (v === undefined) return null;
+  if (!KEY.test(v)) throw new HttpError(400, 'invalid_input', 'invalid header: Idempotency-Key: 8 to 100 letters, digits, - or _', { fields: { 'Idempotency-Key': '8 to 100 letters, digits, - or _' } });
+  return v;
+}
+
 export function setupRoutes(db: Db) {
   const r = Router();
 
@@ -79,7 +91,7 @@ export function setupRoutes(db: Db) {
     const body = parseBody(createSetupBody, req);
     const studioId = await targetStudio(db, user, body.studioId);
     if (body.isTemplate && !studioCan.publishTemplates(await studioRoleOf(db, user.id, studioId))) {
-      throw new HttpError(403, 'forbidden', 'only studio owners can publish templates');
+      throw new HttpError(403, 'forbidden', "only the studio's owners can mark its templates");
     }
     const row = await createSetup(db, { ...body, studioId, ownerId: user.id, document: body.document ?? emptyDocument() });
     await sendStored(db, res, row.id, user.id, 201);
@@ -93,12 +105,26 @@ export function setupRoutes(db: Db) {
     sendDetail(res, d!);
   });
 
+  // A save may carry an Idempotency-Key (the client makes one per save and sends it again on a retry): a
+  // save that committed but whose answer was lost is answered again from its receipt instead of a 409.
+  let saves = 0;
   r.put('/setups/:id', async (req, res) => {
     const { user, id, access } = await requireSetup(db, req, 'write');
+    const key = idempotencyKey(req);
+    if (key) {
+      const earlier = await savedByKey(db, user.id, key, id);
+      if (earlier) return void res.setHeader('Idempotent-Replay', 'true').json(earlier);
+    }
     const { version, ...changes } = parseBody(updateSetupBody, req);
     if (changes.isTemplate !== undefined) checkSetup(access, 'publish');
-    const saved = await saveSetup(db, id, version, changes, user.id);
+    // Un-marking a template in the gallery for everyone would withdraw it from the gallery: an operator's call.
+    if (changes.isTemplate === false && access.forEveryone) await requireOperator(db, req, 'withdraw a template from the gallery for everyone');
+    const saved = await saveSetup(db, id, version, changes, user.id, key);
+    if (++saves % 500 === 0) void pruneSaveReceipts(db).catch(() => undefined);
     if (saved) return void res.json(saved);
+    // The same save, sent twice at once: the other copy committed it.
+    const twin = key ? await savedByKey(db, user.id, key, id) : null;
+    if (twin) return void res.setHeader('Idempotent-Replay', 'true').json(twin);
     // Nothing matched: someone else saved first, or it was deleted meanwhile (410). Nothing was overwritten.
     checkSetup(await getSetupAccess(db, id, user.id), 'write');
     const current = await getSetupDetailObject(db, id, user.id);
@@ -122,10 +148,31 @@ export function setupRoutes(db: Db) {
   r.post('/setups/:id/duplicate', async (req, res) => {
     const { user, id, access } = await requireSetup(db, req, 'read');
     const body = parseBody(duplicateSetupBody, req);
+    // Crew copying a studio's setups out is the studio's call (owners turn it on; off by default). Templates
+    // are made to be copied.
+    if (access.role === 'crew' && !access.isTemplate && !(await crewMayCopy(db, access.studioId))) {
+      throw new HttpError(403, 'crew_copy_off', 'this studio does not let crew copy its setups (the studio setting crewMayCopy is off; an owner can turn it on)', { fields: { crewMayCopy: 'off in this studio' } });
+    }
     const studioId = await targetStudio(db, user, body.studioId, access);
     const copy = await duplicateSetup(db, id, { studioId, ownerId: user.id, title: body.title });
     if (!copy) throw notFound('no such setup');
     await sendStored(db, res, copy, user.id, 201);
+  });
+
+  // The gallery for everyone: an operator publishes a setup there (it becomes a template every signed-in user
+  // may read and copy) or withdraws it. The operator need not be a member of the setup's studio, but the setup
+  // must be a live one; its studio's members see the change, nothing else about it changes.
+  r.put('/setups/:id/everyone', async (req, res) => {
+    const id = pathId(req.params.id, 'setup');
+    const body = parseBody(forEveryoneBody, req);
+    await requireOperator(db, req, body.forEveryone ? 'publish a template to the gallery for everyone' : 'withdraw a template from the gallery for everyone');
+    const done = await setForEveryone(db, id, body.forEveryone);
+    if (!done) {
+      const a = await getSetupAccess(db, id, userOf(req).id);
+      if (a?.deletedAt) throw new HttpError(410, 'setup_deleted', 'this setup was deleted; it cannot be in the gallery for everyone');
+      throw notFound('no such setup');
+    }
+    res.json(done satisfies ForEveryoneResponse);
   });
 
   return r;

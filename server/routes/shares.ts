@@ -4,10 +4,12 @@
 import { Router, type Request, type Response } from 'express';
 import type { Db } from '../../db/client';
 import { SHARE_TOKEN, createShare, listShares, openShare, printSettingsOf, revokeShare, type ShareRow } from '../../db/shares';
-import { createShareBody, type ShareCreated, type ShareLink, type SharedSetup } from '../../model/api';
-import { pathId, requireSetup } from '../access';
+import { createShareBody, type ShareCreated, type ShareLink, type ShareMembership, type SharedSetup } from '../../model/api';
+import { checkSetup, pathId, requireSetup, studioCan } from '../access';
+import { getSetupAccess } from '../../db/setups';
+import { userOf } from '../session';
 import { notFound } from '../errors';
-import { sendExport, type ExportKind } from '../export';
+import { qrFor, sendExport, type ExportKind } from '../export';
 import { parseBody } from '../validate';
 
 export function publicOrigin(req: Request): string {
@@ -41,6 +43,22 @@ export function shareRoutes(db: Db) {
     res.json({ shares: (await listShares(db, id)).map(linkView) });
   });
 
+  /**
+   * Behind a share link, for a signed-in visitor: are they a member of the setup's studio? Then the share page
+   * shows the comment thread (the setup's id and their role); anyone else gets a 404.
+   */
+  r.get('/shared/:token/membership', async (req, res) => {
+    const user = userOf(req);
+    const token = String(req.params.token ?? '');
+    const s = SHARE_TOKEN.test(token) ? await openShare(db, token) : null;
+    if (!s) throw notFound('this link does not open anything: it may have been withdrawn');
+    const a = checkSetup(await getSetupAccess(db, s.setupId, user.id), 'read');
+    if (!studioCan.comment(a.role)) throw notFound('not a member of this setup’s studio');
+    const body: ShareMembership = { setupId: s.setupId, role: a.role!, me: { id: user.id, name: user.name } };
+    res.setHeader('Cache-Control', 'no-store');
+    res.json(body);
+  });
+
   r.delete('/setups/:id/shares/:shareId', async (req, res) => {
     const { id } = await requireSetup(db, req, 'write', { deleted: 'allow' });
     if (!(await revokeShare(db, id, pathId(req.params.shareId, 'share link')))) throw notFound('no such share link');
@@ -70,10 +88,12 @@ export function sharedRoutes(db: Db) {
 
   const send = (kind: ExportKind) => async (req: Request, res: Response) => {
     const { s, token } = await opened(req);
-    await sendExport(req, res, kind, { doc: s.document, title: s.title, studioName: s.studioName, version: s.version, updatedAt: s.updatedAt, units: s.units, paper: s.paper, link: shareUrl(req, token) }, 'none');
+    const link = shareUrl(req, token);
+    await sendExport(req, res, kind, { doc: s.document, title: s.title, notes: s.notes, studioName: s.studioName, version: s.version, updatedAt: s.updatedAt, units: s.units, paper: s.paper, link, qr: qrFor({ shareUrl: link }) }, 'none');
   };
   r.get('/shared/:token/crew-sheet.pdf', send('crew-sheet.pdf'));
   r.get('/shared/:token/plan.svg', send('plan.svg'));
   r.get('/shared/:token/plan.png', send('plan.png'));
+  r.get('/shared/:token/frame.png', send('frame.png'));
   return r;
 }

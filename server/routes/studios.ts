@@ -11,7 +11,7 @@ import {
   isPersonalStudio,
   listInvitations,
   listMembers,
-  renameStudio,
+  updateStudio,
   revokeInvitation,
   studioRoleOf,
   studioViewsOf,
@@ -20,9 +20,11 @@ import { createStudioBody, inviteMemberBody, updateMemberBody, updateStudioBody,
 import { pathId, studioCan } from '../access';
 import { HttpError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
+import { MailQueueUnavailable } from '../mail/queue';
 import { invitationMessage } from '../mail/messages';
 import { userOf } from '../session';
 import { parseBody } from '../validate';
+import { requireVerifiedEmail } from '../verified';
 import { invitationLink } from './invitations';
 
 type StudioNeed = 'read' | 'manage';
@@ -58,7 +60,7 @@ export function studioRoutes(db: Db, mailer?: Mailer) {
   r.patch('/studios/:id', async (req, res) => {
     const { user, id } = await requireStudio(req, 'manage');
     const body = parseBody(updateStudioBody, req);
-    await renameStudio(db, id, body.name);
+    await updateStudio(db, id, body);
     const [view] = await studioViewsOf(db, user.id, id);
     res.json(view);
   });
@@ -72,6 +74,7 @@ export function studioRoutes(db: Db, mailer?: Mailer) {
   r.post('/studios/:id/members', async (req, res) => {
     const { user, id } = await requireStudio(req, 'manage');
     const body = parseBody(inviteMemberBody, req);
+    await requireVerifiedEmail(db, user, 'invite people');
     if (body.role === 'owner' && (await isPersonalStudio(db, id))) {
       throw new HttpError(409, 'personal_studio', 'a personal studio has one owner; invite them as editor or crew, or make a shared studio', { fields: { role: 'not owner in a personal studio' } });
     }
@@ -81,12 +84,20 @@ export function studioRoutes(db: Db, mailer?: Mailer) {
     const { invitation, token } = await createInvitation(db, { studioId: id, email: body.email, role: body.role, invitedBy: user });
     const created: InvitationCreated = { invitation, link: invitationLink(req, token) };
     req.log?.info({ studioId: id, invitationId: invitation.id, email: body.email }, 'studio invitation created (link handed to the inviter)');
-    // The link is in the answer either way; the e-mail is a convenience, so a mail failure does not fail the invitation.
+    // The link is in the answer and the mail queue retries delivery. When the queue itself cannot take the
+    // message the invitation is withdrawn again and the answer is a 503 with Retry-After, so the inviter's retry
+    // makes one invitation and one e-mail (nothing half-made, nothing silently unsent).
     if (mailer) {
       const [studio] = await studioViewsOf(db, user.id, id);
-      await mailer
-        .send(invitationMessage({ to: body.email, studioName: studio?.name ?? 'a studio', role: body.role, inviterName: user.name, link: created.link, expiresAt: invitation.expiresAt }))
-        .catch((err: unknown) => req.log?.warn({ err, invitationId: invitation.id }, 'invitation e-mail not sent'));
+      try {
+        await mailer.send(invitationMessage({ to: body.email, studioName: studio?.name ?? 'a studio', role: body.role, inviterName: user.name, link: created.link, expiresAt: invitation.expiresAt }));
+      } catch (err) {
+        if (err instanceof MailQueueUnavailable) {
+          await revokeInvitation(db, id, invitation.id);
+          throw err;
+        }
+        req.log?.warn({ err, invitationId: invitation.id }, 'invitation e-mail not sent');
+      }
     }
     res.status(201).json(created);
   });

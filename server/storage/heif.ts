@@ -1,6 +1,7 @@
 // HEIC/HEIF files are ISO base media files: a `meta` box lists items (`iinf`) and where their bytes are
-// (`iloc`). The EXIF block (GPS included) is one such item. This blanks that item's bytes in place, so
-// offsets stay valid and the picture is untouched, without needing a HEIC decoder.
+// (`iloc`). The EXIF block (GPS included) is one such item, an XMP packet (which may carry a location too) is
+// another ('mime' items of type application/rdf+xml). This blanks those items' bytes in place, so offsets
+// stay valid and the picture is untouched, without needing a HEIC decoder.
 
 type Box = { type: string; start: number; body: number; end: number };
 
@@ -34,7 +35,14 @@ function readN(b: Buffer, p: number, n: number): number {
   throw new Error(`unexpected field size ${n}`);
 }
 
-/** A copy of `input` with every `Exif` item's bytes set to zero; unchanged when it has none. */
+/** A zero-terminated string at p (and where the next field starts). */
+function cString(b: Buffer, p: number, end: number): [string, number] {
+  const z = b.indexOf(0, p);
+  const stop = z < 0 || z >= end ? end : z;
+  return [b.toString('latin1', p, stop), Math.min(end, stop + 1)];
+}
+
+/** A copy of `input` with every `Exif` and XMP item's bytes set to zero; unchanged when it has none. */
 export function stripHeifExif(input: Buffer): Buffer {
   const b = Buffer.from(input);
   const meta = [...boxes(b, 0, b.length)].find((x) => x.type === 'meta');
@@ -52,7 +60,14 @@ export function stripHeifExif(input: Buffer): Buffer {
     if (v < 2) continue;
     const id = v === 2 ? b.readUInt16BE(infe.body + 4) : b.readUInt32BE(infe.body + 4);
     const typeAt = infe.body + 4 + (v === 2 ? 2 : 4) + 2;
-    if (b.toString('latin1', typeAt, typeAt + 4) === 'Exif') exifIds.add(id);
+    const itemType = b.toString('latin1', typeAt, typeAt + 4);
+    if (itemType === 'Exif') exifIds.add(id);
+    else if (itemType === 'mime') {
+      // item_name, then content_type: an XMP packet is application/rdf+xml.
+      const [, afterName] = cString(b, typeAt + 4, infe.end);
+      const [contentType] = cString(b, afterName, infe.end);
+      if (/rdf\+xml|xmp/i.test(contentType)) exifIds.add(id);
+    }
   }
   if (!exifIds.size) return b;
 

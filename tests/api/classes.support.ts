@@ -1,11 +1,16 @@
 // Helpers for the class tests: a class with its instructor and students (joined by code, as in a room),
 // a lesson built from a setup, an assignment with a meter check, and the fake SMTP server's inbox.
 import { expect } from 'vitest';
+import { settledMail } from './exports.helpers';
 import type { Check } from '../../model/classes';
 import type { Client } from '../support/http';
 import { fresh, newSetup, type Signed } from './fixtures';
 
-/** A two-step plan: sitter, camera and paper first, then one bare head 1 m in front of the face. */
+/**
+ * A two-step plan: sitter, camera and paper first, then one bare head 1 m in front of the face, 0.6 m above it and
+ * tilted down onto it (as keys usually stand: the sitter's shadow falls below the face on the paper, and the
+ * meter reads the paper beside the silhouette, where the lens sees it).
+ */
 export const lessonDocument = (keyDistanceM = 1, paperY = 1) => ({
   schemaVersion: 1,
   stage: { widthM: 8, depthM: 6 },
@@ -13,7 +18,7 @@ export const lessonDocument = (keyDistanceM = 1, paperY = 1) => ({
     { id: 'paper', kind: 'wall', label: 'Grey paper', surface: 'seamless', a: { x: 2, y: paperY }, b: { x: 6, y: paperY }, heightM: 2.7, colour: '#808080' },
     { id: 'sitter', kind: 'subject', label: 'Sitter', x: 4, y: 3, facingDeg: 90, faceHeightM: 1.6 },
     { id: 'cam', kind: 'camera', x: 4, y: 5.6, heightM: 1.6, aimDeg: -90, iso: 100, aperture: 8, shutterS: 1 / 200 },
-    { id: 'key', kind: 'light', label: 'Key', x: 4, y: 3 + keyDistanceM, heightM: 1.6, aimDeg: -90, tiltDeg: 0, source: { type: 'strobe', energyWs: 400 }, power: 1 / 4, modifier: 'bare-reflector' },
+    { id: 'key', kind: 'light', label: 'Key', x: 4, y: 3 + keyDistanceM, heightM: 2.2, aimDeg: -90, tiltDeg: (-Math.atan2(0.6, keyDistanceM) * 180) / Math.PI, source: { type: 'strobe', energyWs: 400 }, power: 1 / 4, modifier: 'bare-reflector' },
   ],
   steps: [
     { id: 'room', title: 'The room', itemIds: ['paper', 'sitter', 'cam'] },
@@ -59,8 +64,11 @@ export async function assignmentOn(instructor: Client, lessonId: string, body: R
 }
 
 export type InboxMail = { id: number; to: string[]; subject: string; text: string; html: string };
+/** Mail to `to`, once it has arrived through the queue and settled (tests/api/exports.helpers.ts, settledMail). */
 export async function inboxFor(base: string, to: string): Promise<InboxMail[]> {
-  const r = await fetch(`${base}/dev/inbox.json`);
-  const { messages } = (await r.json()) as { messages: InboxMail[] };
-  return messages.filter((m) => m.to.includes(to));
+  return settledMail(async () => {
+    const r = await fetch(`${base}/dev/inbox.json`);
+    const { messages } = (await r.json()) as { messages: InboxMail[] };
+    return messages.filter((m) => m.to.includes(to));
+  });
 }

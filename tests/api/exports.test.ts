@@ -32,7 +32,7 @@ describe('GET /api/setups/:id/crew-sheet.pdf', () => {
     expect(r.body.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     expect(r.disposition).toMatch(/^inline; filename="crew-sheet-export-check-clamshell\.pdf"$/);
     const { text, pages } = await pdfText(r.body);
-    expect(pages).toBe(1);
+    expect(pages).toBe(2); // the sheet, then the plan on its own page
     for (const expected of [
       'Export check: clamshell',
       'Key — octa above', // the light's label

@@ -1,7 +1,10 @@
 // Shared helpers for the API tests: fresh users, studio membership through real invitations, setups and
 // documents of a known size.
 import { expect } from 'vitest';
+import { createDb } from '../../db/client';
+import { addOperator } from '../../db/operators';
 import type { SetupDetail, StudioRole } from '../../model/api';
+import { TEST_DATABASE_URL } from '../support/env';
 import { Client, freshEmail } from '../support/http';
 
 export type Signed = { client: Client; userId: string; email: string; personalStudioId: string };
@@ -47,6 +50,33 @@ export async function newSetup(c: Client, body: Record<string, unknown>): Promis
   const r = await c.post('/api/setups', body);
   expect(r.status, JSON.stringify(r.body)).toBe(201);
   return r.body;
+}
+
+/** Make an existing account an operator, as `npm run operator -- add <email>` does. */
+export async function makeOperator(email: string) {
+  const { db, pool } = createDb(TEST_DATABASE_URL);
+  try {
+    expect(await addOperator(db, email)).toBe('added');
+  } finally {
+    await pool.end();
+  }
+}
+
+const operators = new Map<string, Promise<Signed>>();
+/** A fresh account made an operator (one per server address in a test file). */
+export function operator(base: string): Promise<Signed> {
+  let o = operators.get(base);
+  if (!o) {
+    o = fresh(base, 'Site Operator').then(async (u) => (await makeOperator(u.email), u));
+    operators.set(base, o);
+  }
+  return o;
+}
+
+/** An operator puts the setup in the gallery for everyone. */
+export async function publishForEveryone(base: string, setupId: string) {
+  const r = await (await operator(base)).client.put(`/api/setups/${setupId}/everyone`, { forEveryone: true });
+  expect(r.status, JSON.stringify(r.body)).toBe(200);
 }
 
 export { documentWith } from './documents';

@@ -29,10 +29,15 @@ describe('sign-up, sign-in, sign-out', () => {
   const email = freshEmail('newcomer');
   const c = new Client(base);
 
-  it('sign-up sets an httpOnly, SameSite=Lax session cookie and makes a personal studio', async () => {
+  it('sign-up mails a confirmation link; opening it sets an httpOnly, SameSite=Lax session cookie and makes a personal studio', async () => {
     const r = await c.post('/api/auth/sign-up/email', { name: 'Rafa Quint', email, password: 'long-enough-1' });
     expect(r.status).toBe(200);
-    const cookie = r.headers.getSetCookie().find((s) => s.includes('session_token'))!;
+    // No session yet: the answer must look the same whether or not the address already has an account.
+    expect(r.headers.getSetCookie().find((s) => s.includes('session_token'))).toBeUndefined();
+    const link = await c.mailedLink(email, '/api/auth/verify-email');
+    const v = await c.get(link.slice(base.length));
+    expect(v.status).toBe(302);
+    const cookie = v.headers.getSetCookie().find((s) => s.includes('session_token'))!;
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);
     const me = await c.get('/api/me');

@@ -2,6 +2,7 @@
 // everything served, thumbnails, HEIC kept without one, size and type refused with a 4xx and nothing stored,
 // delete removing the objects. Test images are made here with sharp (no binary files in the repo).
 import exifr from 'exifr';
+import { crc32, deflateSync } from 'node:zlib';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { demoSetups } from '../../db/seed-setups';
@@ -61,6 +62,39 @@ async function heicWithExif(): Promise<Buffer> {
   const head = Buffer.concat([ftyp, metaFor(0)]);
   const offset = head.length + 8; // the item's bytes start right after mdat's header
   return Buffer.concat([ftyp, metaFor(offset), box('mdat', exifItem)]);
+}
+
+/** An XMP packet giving where the picture was taken (as phone and camera software write it). */
+const XMP_WITH_GPS = `<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description rdf:about="" xmlns:exif="http://ns.adobe.com/exif/1.0/" exif:GPSLatitude="51,30.2N" exif:GPSLongitude="0,7.5W"/></rdf:RDF></x:xmpmeta>`;
+
+/** A HEIC container with an EXIF item (GPS) and an XMP item (GPS again), both in mdat. */
+async function heicWithExifAndXmp(): Promise<Buffer> {
+  const jpg = await cameraJpeg();
+  const app1 = jpg.indexOf(Buffer.from('Exif\0\0', 'latin1'));
+  const tiff = jpg.subarray(app1 + 6, app1 - 2 + jpg.readUInt16BE(app1 - 2));
+  const exifItem = Buffer.concat([u32(0), tiff]);
+  const xmpItem = Buffer.from(XMP_WITH_GPS, 'utf8');
+  const ftyp = box('ftyp', Buffer.from('heic', 'latin1'), u32(0), Buffer.from('mif1heic', 'latin1'));
+  const hdlr = box('hdlr', u32(0), u32(0), Buffer.from('pict', 'latin1'), Buffer.alloc(12), Buffer.from([0]));
+  const exifInfe = box('infe', Buffer.from([2, 0, 0, 0]), u16(1), u16(0), Buffer.from('Exif', 'latin1'), Buffer.from([0]));
+  const xmpInfe = box('infe', Buffer.from([2, 0, 0, 0]), u16(2), u16(0), Buffer.from('mime', 'latin1'), Buffer.from([0]), Buffer.from('application/rdf+xml\0', 'latin1'));
+  const iinf = box('iinf', u32(0), u16(2), exifInfe, xmpInfe);
+  const item = (id: number, offset: number, length: number) => Buffer.concat([u16(id), u16(0), u16(1), u32(offset), u32(length)]);
+  const ilocFor = (o: number) => box('iloc', u32(0), Buffer.from([0x44, 0x00]), u16(2), item(1, o, exifItem.length), item(2, o + exifItem.length, xmpItem.length));
+  const metaFor = (o: number) => box('meta', u32(0), hdlr, box('pitm', u32(0), u16(1)), iinf, ilocFor(o));
+  const offset = Buffer.concat([ftyp, metaFor(0)]).length + 8;
+  return Buffer.concat([ftyp, metaFor(offset), box('mdat', exifItem, xmpItem)]);
+}
+
+/** A PNG whose header says `width` × `height` with almost no picture data behind it (an image bomb's shape). */
+function pngHeaderOnly(width: number, height: number): Buffer {
+  const chunk = (type: string, data: Buffer) => {
+    const len = u32(data.length);
+    const td = Buffer.concat([Buffer.from(type, 'latin1'), data]);
+    return Buffer.concat([len, td, u32(crc32(td))]);
+  };
+  const ihdr = Buffer.concat([u32(width), u32(height), Buffer.from([8, 2, 0, 0, 0])]);
+  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', deflateSync(Buffer.alloc(1000))), chunk('IEND', Buffer.alloc(0))]);
 }
 
 async function upload(c: Client | null, bytes: Buffer, name: string, type: string, fields: Record<string, string> = { kind: 'result' }) {
@@ -128,6 +162,46 @@ describe('POST /api/setups/:id/photos', () => {
     expect(served.body.includes(Buffer.from('Falloff Bench Camera'))).toBe(false);
     expect(await exifr.gps(served.body).catch(() => undefined)).toBeUndefined();
     expect((await raw(base, team.owner.client, `${r.json.url}/thumbnail`)).status).toBe(404);
+  });
+
+  it('strips a location given in XMP: a JPEG is re-encoded without it, a HEIC has its XMP item blanked', async () => {
+    const jpg = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#6f7a80' } }).jpeg().withXmp(XMP_WITH_GPS).toBuffer();
+    expect(await exifr.parse(jpg, { xmp: true })).toMatchObject({ GPSLatitude: '51,30.2N' }); // the upload says where
+    const r = await upload(team.crew.client, jpg, 'phone.jpg', 'image/jpeg');
+    expect(r.status, r.body.toString()).toBe(201);
+    for (const url of [r.json.url, r.json.thumbnailUrl]) {
+      const served = await raw(base, team.owner.client, url);
+      expect(served.status).toBe(200);
+      expect(await exifr.parse(served.body, { xmp: true })).toBeUndefined();
+      expect(served.body.includes(Buffer.from('GPSLatitude'))).toBe(false);
+      expect(served.body.includes(Buffer.from('x:xmpmeta'))).toBe(false);
+    }
+
+    const heic = await heicWithExifAndXmp();
+    expect(heic.includes(Buffer.from('GPSLatitude'))).toBe(true);
+    expect(await exifr.gps(heic)).toMatchObject({ latitude: expect.closeTo(51.5033, 3) });
+    const h = await upload(team.crew.client, heic, 'IMG_0500.HEIC', 'image/heic');
+    expect(h.status, h.body.toString()).toBe(201);
+    const served = await raw(base, team.owner.client, h.json.url);
+    expect(served.body.length).toBe(heic.length);
+    expect(served.body.includes(Buffer.from('GPSLatitude'))).toBe(false);
+    expect(served.body.includes(Buffer.from('xmpmeta'))).toBe(false);
+    expect(await exifr.gps(served.body).catch(() => undefined)).toBeUndefined();
+  });
+
+  it('refuses a picture of more than 64 million pixels from its header, before decoding it (413 naming the photo)', async () => {
+    const before = await stored();
+    const bomb = pngHeaderOnly(16_000, 16_000);
+    expect(bomb.length).toBeLessThan(5000);
+    const r = await upload(team.owner.client, bomb, 'small-file-huge-picture.png', 'image/png');
+    expect(r.status).toBe(413);
+    expect(r.json.error).toMatchObject({ code: 'too_many_pixels', fields: { photo: expect.stringMatching(/million pixels/) } });
+    expect(r.json.error.message).toMatch(/16000 × 16000/);
+    // Just under the cap by its header but damaged: read, found wanting, 422.
+    const cut = await upload(team.owner.client, pngHeaderOnly(4000, 3000), 'cut.png', 'image/png');
+    expect(cut.status).toBe(422);
+    expect(cut.json.error.fields).toHaveProperty('photo');
+    expect((await stored()).sort()).toEqual(before.sort());
   });
 
   it('refuses a file over 20 MB (413), a GIF and a script named .jpg (415), no file or a bad kind (400); nothing is stored', async () => {

@@ -12,7 +12,7 @@ import { Client, freshEmail, type Res } from '../support/http';
 import sharp from 'sharp';
 import { raw } from './exports.helpers';
 import { classCases, classClients, classShared, classWho, setupClassMatrix } from './classes.matrix';
-import { fresh, joinAs, newSetup, studioWithTeam, tokenOf, type Signed } from './fixtures';
+import { fresh, joinAs, newSetup, publishForEveryone, studioWithTeam, tokenOf, type Signed } from './fixtures';
 
 const base = inject('baseUrl');
 const who = ['owner', 'editor', 'crew', 'stranger', 'signedOut'] as const;
@@ -37,6 +37,12 @@ async function freshSetup(extra: Record<string, unknown> = {}): Promise<Vars> {
   const s = await newSetup(owner.client, { studioId: shared.studio, title: 'Matrix target', ...extra });
   return { setup: s.id, version: s.version };
 }
+/** A template of the shared studio that an operator put in the gallery for everyone. */
+async function galleryTemplate(): Promise<Vars> {
+  const v = await freshSetup({ isTemplate: true });
+  await publishForEveryone(base, String(v.setup));
+  return v;
+}
 async function setupWithTwoVersions(): Promise<Vars> {
   const v = await freshSetup();
   const put = await owner.client.put(`/api/setups/${v.setup}`, { version: 1, title: 'Matrix target, second version' });
@@ -54,6 +60,12 @@ async function member(): Promise<Vars> {
   return { user: m.userId };
 }
 
+/** A thread on the shared setup, started by `c`. */
+async function thread(c: Client): Promise<Vars> {
+  const r = await c.post(`/api/setups/${shared.setup}/comments`, { body: 'Is the boom sandbagged?', point: { x: 1, y: 2 } });
+  expect(r.status, JSON.stringify(r.body)).toBe(201);
+  return { comment: r.body.id };
+}
 async function share(): Promise<Vars> {
   const r = await owner.client.post(`/api/setups/${shared.setup}/shares`, {});
   expect(r.status).toBe(201);
@@ -91,7 +103,36 @@ const cases: Case[] = [
     expect: ownerOnly(201),
   },
   { route: 'GET /api/setups/:id', call: (c) => c.get(`/api/setups/${shared.setup}`), expect: readable },
-  { route: 'GET /api/setups/:id', variant: 'a template', call: (c) => c.get(`/api/setups/${shared.template}`), expect: anyUser(200) },
+  { route: 'GET /api/setups/:id', variant: 'a template in the gallery for everyone', call: (c) => c.get(`/api/setups/${shared.template}`), expect: anyUser(200) },
+  { route: 'GET /api/setups/:id', variant: "a studio's own template", call: (c) => c.get(`/api/setups/${shared.studioTemplate}`), expect: readable },
+  {
+    route: 'POST /api/setups/:id/duplicate',
+    variant: "a studio's own template",
+    call: (c) => c.post(`/api/setups/${shared.studioTemplate}/duplicate`),
+    expect: { owner: 201, editor: 201, crew: 201, stranger: 404, signedOut: 401 },
+  },
+  // The gallery for everyone is an operator's (tests/api/operators.test.ts has the operator's own answers).
+  {
+    route: 'PUT /api/setups/:id/everyone',
+    variant: 'publishing',
+    prepare: () => freshSetup({ isTemplate: true }),
+    call: (c, v) => c.put(`/api/setups/${v.setup}/everyone`, { forEveryone: true }),
+    expect: { owner: 403, editor: 403, crew: 403, stranger: 403, signedOut: 401 },
+  },
+  {
+    route: 'PUT /api/setups/:id/everyone',
+    variant: 'withdrawing',
+    prepare: () => galleryTemplate(),
+    call: (c, v) => c.put(`/api/setups/${v.setup}/everyone`, { forEveryone: false }),
+    expect: { owner: 403, editor: 403, crew: 403, stranger: 403, signedOut: 401 },
+  },
+  {
+    route: 'PUT /api/setups/:id',
+    variant: 'un-marking a template in the gallery for everyone',
+    prepare: () => galleryTemplate(),
+    call: (c, v) => c.put(`/api/setups/${v.setup}`, { version: v.version, isTemplate: false }),
+    expect: { owner: 403, editor: 403, crew: 403, stranger: 403, signedOut: 401 },
+  },
   {
     route: 'PUT /api/setups/:id',
     prepare: () => freshSetup(),
@@ -100,8 +141,8 @@ const cases: Case[] = [
   },
   {
     route: 'PUT /api/setups/:id',
-    variant: 'a template',
-    prepare: () => freshSetup({ isTemplate: true }),
+    variant: 'a template in the gallery for everyone',
+    prepare: () => galleryTemplate(),
     call: (c, v) => c.put(`/api/setups/${v.setup}`, { version: v.version, notes: 'changed' }),
     expect: { owner: 200, editor: 200, crew: 403, stranger: 403, signedOut: 401 },
   },
@@ -123,8 +164,9 @@ const cases: Case[] = [
     call: (c, v) => c.post(`/api/setups/${v.setup}/restore`),
     expect: writable(200),
   },
-  // Crew may copy a setup they can read into their own studio; never into the shared one.
-  { route: 'POST /api/setups/:id/duplicate', call: (c) => c.post(`/api/setups/${shared.setup}/duplicate`), expect: { ...readable, owner: 201, editor: 201, crew: 201 } },
+  // Crew copy a studio's setup out only when the studio lets them (crewMayCopy, off by default: 403 naming it,
+  // tests/api/studios.test.ts turns it on); never into the shared one.
+  { route: 'POST /api/setups/:id/duplicate', call: (c) => c.post(`/api/setups/${shared.setup}/duplicate`), expect: { ...readable, owner: 201, editor: 201, crew: 403 } },
   {
     route: 'POST /api/setups/:id/duplicate',
     variant: 'into the shared studio',
@@ -154,6 +196,28 @@ const cases: Case[] = [
     expect: { ...readable, stranger: 403 },
   },
   { route: 'POST /api/setups/:id/comments', call: (c) => c.post(`/api/setups/${shared.setup}/comments`, { body: 'Sandbag the boom.' }), expect: { ...readable, owner: 201, editor: 201, crew: 201 } },
+  {
+    route: 'POST /api/setups/:id/comments',
+    variant: 'a reply pinned nowhere',
+    prepare: () => thread(owner.client),
+    call: (c, v) => c.post(`/api/setups/${shared.setup}/comments`, { body: 'Done, bagged twice.', parentId: v.comment }),
+    expect: { ...readable, owner: 201, editor: 201, crew: 201 },
+  },
+  // Resolving: anyone who may change the setup, and the member who started the thread (crew too).
+  {
+    route: 'PATCH /api/setups/:id/comments/:commentId',
+    prepare: () => thread(owner.client),
+    call: (c, v) => c.request('PATCH', `/api/setups/${shared.setup}/comments/${v.comment}`, { resolved: true }),
+    expect: { ...readable, crew: 403 },
+  },
+  {
+    route: 'PATCH /api/setups/:id/comments/:commentId',
+    variant: 'a thread the crew member started',
+    prepare: () => thread(clients.crew),
+    call: (c, v) => c.request('PATCH', `/api/setups/${shared.setup}/comments/${v.comment}`, { resolved: true }),
+    expect: readable,
+  },
+  { route: 'POST /api/setups/:id/comments/read', call: (c) => c.post(`/api/setups/${shared.setup}/comments/read`), expect: { ...readable, owner: 204, editor: 204, crew: 204 } },
   { route: 'GET /api/setups/:id/meter', call: (c) => c.get(`/api/setups/${shared.setup}/meter`), expect: readable },
   { route: 'GET /api/setups/:id/meter', variant: 'a template', call: (c) => c.get(`/api/setups/${shared.template}/meter`), expect: anyUser(200) },
 
@@ -187,9 +251,11 @@ const cases: Case[] = [
 
   // Crew sheets and plan images: whoever may read the setup.
   { route: 'GET /api/setups/:id/crew-sheet.pdf', call: (c) => c.get(`/api/setups/${shared.setup}/crew-sheet.pdf`), expect: readable },
+  { route: 'POST /api/day-sheet.pdf', call: (c) => c.post('/api/day-sheet.pdf', { setupIds: [shared.setup] }), expect: readable },
   { route: 'GET /api/setups/:id/crew-sheet.pdf', variant: 'a template', call: (c) => c.get(`/api/setups/${shared.template}/crew-sheet.pdf`), expect: anyUser(200) },
   { route: 'GET /api/setups/:id/plan.svg', call: (c) => c.get(`/api/setups/${shared.setup}/plan.svg`), expect: readable },
   { route: 'GET /api/setups/:id/plan.png', call: (c) => c.get(`/api/setups/${shared.setup}/plan.png?width=300`), expect: readable },
+  { route: 'GET /api/setups/:id/frame.png', call: (c) => c.get(`/api/setups/${shared.setup}/frame.png?width=120`), expect: { ...readable, owner: 409, editor: 409, crew: 409 } }, // the matrix's plan has no subject: readers are told so (409), others get nothing
 
   // Share links: owners and editors make and revoke them, members list them; the token opens the setup for anyone.
   { route: 'POST /api/setups/:id/shares', call: (c) => c.post(`/api/setups/${shared.setup}/shares`, {}), expect: writable(201) },
@@ -204,7 +270,10 @@ const cases: Case[] = [
   { route: 'GET /api/shared/:token', call: (c) => c.get(`/api/shared/${shared.shareToken}`), expect: { ...anyUser(200), signedOut: 200 } },
   { route: 'GET /api/shared/:token/crew-sheet.pdf', call: (c) => c.get(`/api/shared/${shared.shareToken}/crew-sheet.pdf`), expect: { ...anyUser(200), signedOut: 200 } },
   { route: 'GET /api/shared/:token/plan.svg', call: (c) => c.get(`/api/shared/${shared.shareToken}/plan.svg`), expect: { ...anyUser(200), signedOut: 200 } },
+  // The comment thread on the share page: members of the setup's studio only.
+  { route: 'GET /api/shared/:token/membership', call: (c) => c.get(`/api/shared/${shared.shareToken}/membership`), expect: readable },
   { route: 'GET /api/shared/:token/plan.png', call: (c) => c.get(`/api/shared/${shared.shareToken}/plan.png?width=300`), expect: { ...anyUser(200), signedOut: 200 } },
+  { route: 'GET /api/shared/:token/frame.png', call: (c) => c.get(`/api/shared/${shared.shareToken}/frame.png?width=120`), expect: { ...anyUser(409), signedOut: 409 } }, // no subject on the matrix's plan
 
   // Sending to the crew makes a share link, so it is for owners and editors.
   { route: 'POST /api/setups/:id/send', call: (c) => c.post(`/api/setups/${shared.setup}/send`, { to: [freshEmail('matrix-crew')], attachPdf: false }), expect: writable(201) },
@@ -226,7 +295,6 @@ const cases: Case[] = [
 /** Routes handled by other code, with the reason they are not in the table. */
 const outside: Record<string, string> = {
   'ALL /api/auth/{*any}': "better-auth's own handler (sign-up, sign-in, sign-out); covered by foundation.test.ts",
-  'POST /api/auth/sign-out': 'forgets the cached session, then hands over to better-auth; covered by foundation.test.ts',
 };
 
 beforeAll(async () => {
@@ -240,7 +308,8 @@ beforeAll(async () => {
   shared.studio = team.studioId;
   shared.studioName = (await owner.client.get(`/api/studios/${shared.studio}`)).body.name;
   Object.assign(shared, await setupWithTwoVersions());
-  shared.template = (await freshSetup({ isTemplate: true })).setup!;
+  shared.template = (await galleryTemplate()).setup!;
+  shared.studioTemplate = (await freshSetup({ isTemplate: true })).setup!;
   await freshSetup();
   shared.token = (await invite()).token!;
   Object.assign(shared, await share(), await photo());
@@ -312,12 +381,13 @@ describe('the library lists only what a user may read', () => {
     }
   });
 
-  it('a stranger sees none of them, even naming the studio, but sees its templates in the templates section', async () => {
+  it('a stranger sees none of them, even naming the studio, but sees those of its templates in the gallery for everyone', async () => {
     const r = await clients.stranger.get(`/api/setups?studio=${shared.studio}`);
     expect(r.status).toBe(200);
     expect(r.body.setups).toEqual([]);
     const t = await clients.stranger.get(`/api/setups?templates=1&studio=${shared.studio}`);
     expect(t.body.setups.map((s: { id: string }) => s.id)).toContain(shared.template);
+    expect(t.body.setups.map((s: { id: string }) => s.id)).not.toContain(shared.studioTemplate);
     expect(t.body.setups.every((s: { isTemplate: boolean; role: null }) => s.isTemplate && s.role === null)).toBe(true);
   });
 

@@ -1,5 +1,6 @@
 // Setups over real HTTP against the real database: create, read, save, history, duplicate, delete and
 // restore, the library's lists (sorts, search, tags, templates, pages), comments and the meter.
+import { CURRENT_SCHEMA_VERSION } from '../../model/document';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { sql } from 'drizzle-orm';
@@ -8,12 +9,12 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { meter } from '../../calc';
 import { createDb } from '../../db/client';
 import { pruneHistory } from '../../db/history';
-import { sceneFromDocument } from '../../model/scene';
+import { sceneFromDocument } from '../../model/documentToScene';
 import { createApp } from '../../server/app';
 import { createAuth } from '../../server/auth';
 import { TEST_DATABASE_URL } from '../support/env';
 import { Client } from '../support/http';
-import { documentWith, fresh, newSetup, studioWithTeam, type Signed } from './fixtures';
+import { documentWith, fresh, newSetup, publishForEveryone, studioWithTeam, type Signed } from './fixtures';
 
 const base = inject('baseUrl');
 const { db, pool } = createDb(TEST_DATABASE_URL);
@@ -28,7 +29,7 @@ describe('create, read, save', () => {
   it('creates with defaults and reads it back with the caller role', async () => {
     const s = await newSetup(me.client, { title: '  Window light, north  ', tags: ['Portrait', 'portrait', ' window '] });
     expect(s).toMatchObject({ title: 'Window light, north', version: 1, tags: ['portrait', 'window'], role: 'owner', studioId: me.personalStudioId, isTemplate: false });
-    expect(s.document.schemaVersion).toBe(1);
+    expect(s.document.schemaVersion).toBe(CURRENT_SCHEMA_VERSION);
     expect(s.document.items).toEqual([]);
     const r = await me.client.get(`/api/setups/${s.id}`);
     expect(r.status).toBe(200);
@@ -169,6 +170,7 @@ describe('duplicate', () => {
   it("a template from another studio lands in the caller's own studio, as a plain setup", async () => {
     const team = await studioWithTeam(base);
     const t = await newSetup(team.owner.client, { studioId: team.studioId, title: 'Shared template', isTemplate: true });
+    await publishForEveryone(base, t.id);
     const c = await me.client.post(`/api/setups/${t.id}/duplicate`);
     expect(c.status).toBe(201);
     expect(c.body).toMatchObject({ studioId: me.personalStudioId, isTemplate: false, role: 'owner' });
@@ -247,13 +249,19 @@ describe('the library list', () => {
     ]);
   });
 
-  it('lists templates from every studio in the templates section', async () => {
+  it("lists the gallery for everyone's templates and the caller's own studios' templates in the templates section", async () => {
     const team = await studioWithTeam(base);
     const t = await newSetup(team.owner.client, { studioId: team.studioId, title: 'Template for all', isTemplate: true });
+    const own = await newSetup(team.owner.client, { studioId: team.studioId, title: 'Template kept in the studio', isTemplate: true });
+    await publishForEveryone(base, t.id);
     const r = await lib.client.get('/api/setups?templates=1&limit=100');
     const row = r.body.setups.find((s: { id: string }) => s.id === t.id);
-    expect(row).toMatchObject({ isTemplate: true, role: null, studioName: 'Test bench studio', ownerName: 'Studio Owner' });
+    expect(row).toMatchObject({ isTemplate: true, forEveryone: true, role: null, studioName: 'Test bench studio', ownerName: 'Studio Owner' });
     expect(r.body.setups.every((s: { isTemplate: boolean }) => s.isTemplate)).toBe(true);
+    // A studio's own template is listed for its members only.
+    expect(r.body.setups.map((s: { id: string }) => s.id)).not.toContain(own.id);
+    const mine = await team.crew.client.get('/api/setups?templates=1&limit=100');
+    expect(mine.body.setups.find((s: { id: string }) => s.id === own.id)).toMatchObject({ isTemplate: true, forEveryone: false, role: 'crew' });
   });
 
   it('refuses unknown parameters and mixed sections by name', async () => {
@@ -294,6 +302,12 @@ describe('meter', () => {
     expect(r.body.readings.lights).toHaveLength(1);
     const direct = JSON.parse(JSON.stringify(meter(sceneFromDocument(doc).scene!)));
     expect(r.body.readings).toEqual(direct);
+    // The document's receptor (a dome at the face pointed at the camera by default), each light's reading pointed
+    // at it and by every receptor, and the subject by every receptor.
+    expect(r.body.readings.receptor).toBe('dome-camera');
+    expect(Object.keys(r.body.readings.subjectByReceptor).sort()).toEqual(['dome-camera', 'flat-face', 'flat-light']);
+    expect(r.body.readings.lights[0].pointed.luxSeconds).toBeGreaterThan(0);
+    expect(r.body.readings.lights[0].byReceptor['dome-camera']).toBeCloseTo(r.body.readings.lights[0].luxSeconds, 9);
   });
 
   it('says what is missing for an empty plan', async () => {
@@ -352,5 +366,33 @@ describe('no N+1: a list costs the same number of queries for 3 setups or 40', (
       expect(await cost(many.client, path), path).toBe(await cost(few.client, path));
     }
     expect(await cost(many.client, `/api/setups/${manyLast}/history`)).toBe(await cost(few.client, `/api/setups/${fewLast}/history`));
+  });
+});
+
+describe('PUT /api/setups/:id with an Idempotency-Key', () => {
+  it('a save retried after its answer was lost gets the same answer, not a 409, and is applied once', async () => {
+    const u = await fresh(base, 'Retrying Rae');
+    const s = await newSetup(u.client, { title: 'Sent twice' });
+    const key = `retry-${Math.random().toString(36).slice(2, 10)}`;
+    const first = await u.client.request('PUT', `/api/setups/${s.id}`, { version: s.version, title: 'Sent twice, saved once' }, { 'idempotency-key': key });
+    expect(first.status).toBe(200);
+    const again = await u.client.request('PUT', `/api/setups/${s.id}`, { version: s.version, title: 'Sent twice, saved once' }, { 'idempotency-key': key });
+    expect(again.status, JSON.stringify(again.body)).toBe(200);
+    expect(again.body).toEqual(first.body);
+    expect(again.headers.get('idempotent-replay')).toBe('true');
+    expect((await u.client.get(`/api/setups/${s.id}`)).body.version).toBe(s.version + 1);
+    // Without the key (or with another) the same body is a conflict, as before.
+    expect((await u.client.request('PUT', `/api/setups/${s.id}`, { version: s.version, title: 'x' }, { 'idempotency-key': `${key}-other` })).status).toBe(409);
+    // Another user's key space is their own: the receipt is not theirs to read.
+    const other = await fresh(base, 'Other Otto');
+    expect((await other.client.request('PUT', `/api/setups/${s.id}`, { version: s.version, title: 'x' }, { 'idempotency-key': key })).status).toBe(404);
+  });
+
+  it('a malformed key is a 400 naming the header', async () => {
+    const u = await fresh(base, 'Bad Key');
+    const s = await newSetup(u.client, { title: 'Bad key' });
+    const r = await u.client.request('PUT', `/api/setups/${s.id}`, { version: s.version, title: 'y' }, { 'idempotency-key': 'no' });
+    expect(r.status).toBe(400);
+    expect(r.body.error.fields).toHaveProperty('Idempotency-Key');
   });
 });

@@ -177,3 +177,34 @@ describe('roles and the last owner', () => {
     expect((await solo.client.del(`/api/studios/${solo.personalStudioId}/members/${solo.userId}`)).status).toBe(409);
   });
 });
+
+describe('the studio setting "crew may copy setups out"', () => {
+  it('is off by default: crew copying a setup out gets 403 naming it; only an owner turns it on, and then crew may', async () => {
+    const team = await studioWithTeam(base);
+    const s = await team.owner.client.post('/api/setups', { studioId: team.studioId, title: 'House look, not for copying' });
+    expect(s.status).toBe(201);
+    expect((await team.owner.client.get(`/api/studios/${team.studioId}`)).body.crewMayCopy).toBe(false);
+
+    const refused = await team.crew.client.post(`/api/setups/${s.body.id}/duplicate`, {});
+    expect(refused.status).toBe(403);
+    expect(refused.body.error).toMatchObject({ code: 'crew_copy_off', fields: { crewMayCopy: expect.any(String) } });
+    expect(refused.body.error.message).toMatch(/crewMayCopy/);
+    // Editors may copy whatever the setting says.
+    expect((await team.editor.client.post(`/api/setups/${s.body.id}/duplicate`, {})).status).toBe(201);
+
+    expect((await team.editor.client.request('PATCH', `/api/studios/${team.studioId}`, { crewMayCopy: true })).status).toBe(403);
+    expect((await team.crew.client.request('PATCH', `/api/studios/${team.studioId}`, { crewMayCopy: true })).status).toBe(403);
+    const bad = await team.owner.client.request('PATCH', `/api/studios/${team.studioId}`, { crewMayCopy: 'yes' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty('crewMayCopy');
+    const on = await team.owner.client.request('PATCH', `/api/studios/${team.studioId}`, { crewMayCopy: true });
+    expect(on.status).toBe(200);
+    expect(on.body.crewMayCopy).toBe(true);
+    const copy = await team.crew.client.post(`/api/setups/${s.body.id}/duplicate`, {});
+    expect(copy.status).toBe(201);
+    expect(copy.body.studioId).not.toBe(team.studioId);
+
+    expect((await team.owner.client.request('PATCH', `/api/studios/${team.studioId}`, { crewMayCopy: false })).body.crewMayCopy).toBe(false);
+    expect((await team.crew.client.post(`/api/setups/${s.body.id}/duplicate`, {})).status).toBe(403);
+  });
+});

@@ -15,8 +15,6 @@
  * is printed as MISSED, not an exit code (the exit code is for a run that broke: errors or non-2xx answers).
  * BENCH_PROF=1 writes a CPU profile of the server process to tests/.artifacts/bench-profile/ (for finding where the time goes).
  */
-import autocannon from 'autocannon';
-import { fork, type ChildProcess } from 'node:child_process';
 import express from 'express';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -25,6 +23,7 @@ import { startServer } from '../../server/main';
 import { TEST_DATABASE_URL } from '../support/env';
 import { Client, freshEmail } from '../support/http';
 import { documentWith } from '../api/documents';
+import { answerCpu, benchMain, fromChild, runner, startChild, type Row } from './runner';
 
 const CONNECTIONS = 50;
 const SECONDS = 10;
@@ -40,54 +39,20 @@ async function serve() {
   bare.get('/bare', (_req, res) => res.json(body));
   const bareServer = createServer(bare);
   await new Promise<void>((r) => bareServer.listen(0, '127.0.0.1', r));
-  process.on('message', (m: { bareBody?: unknown; stop?: boolean; cpu?: boolean }) => {
+  answerCpu();
+  process.on('message', (m: { bareBody?: unknown; stop?: boolean }) => {
     if (m.bareBody !== undefined) {
       body = m.bareBody;
       process.send!({ ready: true });
-    }
-    if (m.cpu) {
-      const u = process.cpuUsage();
-      process.send!({ cpuMs: (u.user + u.system) / 1000 });
     }
     if (m.stop) void app.close().then(() => process.exit(0));
   });
   process.send!({ ports: { app: app.url, bare: `http://127.0.0.1:${(bareServer.address() as AddressInfo).port}` } satisfies Ports });
 }
 
-function fromChild<T>(child: ChildProcess, key: string): Promise<T> {
-  return new Promise((resolve) => {
-    const on = (m: Record<string, unknown>) => {
-      if (key in m) {
-        child.off('message', on);
-        resolve(m[key] as T);
-      }
-    };
-    child.on('message', on);
-  });
-}
-
-type Row = { name: string; rps: number; p50: number; p99: number; errors: number; non2xx: number; cpuMsPerReq: number };
-
-let child: ChildProcess;
-const serverCpuMs = async () => {
-  child.send({ cpu: true });
-  return fromChild<number>(child, 'cpuMs');
-};
-
-async function run(name: string, opts: autocannon.Options): Promise<Row> {
-  const cpu0 = await serverCpuMs();
-  const r = await autocannon({ connections: CONNECTIONS, duration: SECONDS, ...opts });
-  const cpu = (await serverCpuMs()) - cpu0;
-  return { name, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors + r.timeouts, non2xx: r.non2xx, cpuMsPerReq: cpu / r.requests.total };
-}
-
 async function main() {
-  child = fork(__filename, ['serve'], { stdio: 'inherit', execArgv: [...process.execArgv, ...(process.env.BENCH_PROF ? ['--cpu-prof', '--cpu-prof-dir=tests/.artifacts/bench-profile'] : [])] });
-  const guard = setTimeout(() => {
-    process.stderr.write('benchmark took longer than 3 minutes; stopping\n');
-    child.kill();
-    process.exit(2);
-  }, 180_000);
+  const { child, done } = startChild(__filename);
+  const run = runner(child, { connections: CONNECTIONS, seconds: SECONDS });
   const ports = await fromChild<Ports>(child, 'ports');
 
   // A user with one ~50 KB setup to read, and one setup per connection to save.
@@ -142,7 +107,7 @@ async function main() {
   // Let the last answers drain before the server goes.
   await new Promise((r) => setTimeout(r, 300));
   child.send({ stop: true });
-  clearTimeout(guard);
+  done();
 
   const bare = rows[0]!;
   const get = rows[1]!;
@@ -170,14 +135,4 @@ async function main() {
   process.exitCode = checks[checks.length - 1]!.ok ? 0 : 1;
 }
 
-if (process.argv[2] === 'serve') {
-  serve().catch((err) => {
-    process.stderr.write(`${err?.stack ?? err}\n`);
-    process.exit(1);
-  });
-} else {
-  main().catch((err) => {
-    process.stderr.write(`${err?.stack ?? err}\n`);
-    process.exit(1);
-  });
-}
+benchMain(serve, main);

@@ -4,7 +4,7 @@
  * light map for 8 lights, 6 walls and 4 flags; and the cached update after one light moves.
  * Targets (issue 3): meter ≤ 1 ms, full map ≤ 16 ms, one-light update ≤ 4 ms. Scenes are invented demo data.
  */
-import { createLightMapCache, meter, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../calc/index';
+import { createLightMapCache, meter, meterParsed, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../calc/index';
 
 // Piping into `head` closes stdout early; stop quietly then.
 process.stdout.on('error', (e: NodeJS.ErrnoException) => {
@@ -85,24 +85,73 @@ const fmt = (ms: number) => `${ms.toFixed(3)} ms`;
 const meterScene = demoScene(12, 0);
 const parsedMeterScene = parseScene(meterScene);
 // Warm every path first, so the first figure is not paying for JIT tiers the later ones already got.
-for (let i = 0; i < 1000; i++) meter(meterScene);
-const tMeter = time(500, () => meter(meterScene), 'meter');
+for (let i = 0; i < 100; i++) meter(meterScene);
+const tMeter = time(200, () => meter(meterScene), 'meter');
 const tParse = time(300, () => parseScene(meterScene));
 const m = meter(meterScene);
-console.log(`meter, 12 lights, 6 walls, bounce (incl. schema parse): ${fmt(tMeter)}   [target ≤ 1 ms]`);
+console.log(`meter, 12 lights, 6 walls, every bounce, flat receptor (incl. schema parse): ${fmt(tMeter)}   [before issue 10: 0.49–0.64 ms]`);
+// Issue 10's case: 12 lights, 6 walls, floor and ceiling, all bounces, dome receptor. The room's geometry (patches,
+// couplings, the radiosity transfer) is kept while walls stay, and each light's bounce while it stays: the live meter
+// case is a drag, where one light moves per call. The cold case (every light new each call) is printed beside it.
+const roomScene: SceneInput = { ...meterScene, floor: { x1: 0, y1: 0, x2: 6, y2: 5 }, ceiling: { heightM: 3 }, options: { receptor: 'dome-camera' } };
+const roomParsed = parseScene(roomScene);
+let dragStep = 0;
+const dragged = () => {
+  dragStep++;
+  return { ...roomParsed, lights: roomParsed.lights.map((l, i) => (i === 5 ? { ...l, x: l.x + 0.01 * Math.sin(dragStep), y: l.y + 0.01 * Math.cos(dragStep) } : l)) };
+};
+const allMoved = () => {
+  dragStep++;
+  return { ...roomParsed, lights: roomParsed.lights.map((l, i) => ({ ...l, x: l.x + 0.01 * Math.sin(dragStep + i) })) };
+};
+for (let i = 0; i < 50; i++) meterParsed(dragged());
+const tRoom = time(200, () => meterParsed(dragged()), 'meter-room, one light moved');
+const tRoomSame = time(200, () => meterParsed(roomParsed), 'meter-room, nothing moved');
+const tRoomCold = time(60, () => meterParsed(allMoved()), 'meter-room, every light new');
+const cpuPerCall = (n: number, fn: () => void) => {
+  const c0 = process.cpuUsage();
+  for (let i = 0; i < n; i++) fn();
+  const c = process.cpuUsage(c0);
+  return (c.user + c.system) / 1000 / n;
+};
+const mr = meterParsed(roomParsed);
+console.log(`meter, 12 lights, 6 walls, floor and ceiling, all bounces, dome, one light moved: ${fmt(tRoom)}   [target ≤ 2 ms; before: 52–144 ms under load]  (CPU time ${fmt(cpuPerCall(200, () => meterParsed(dragged())))} a call)`);
+console.log(`  same, nothing moved: ${fmt(tRoomSame)}; every light new (room geometry kept): ${fmt(tRoomCold)} (CPU ${fmt(cpuPerCall(40, () => meterParsed(allMoved())))})`);
+console.log(`  later bounces: ${mr.bounces.passes === 0 ? 'solved directly' : `${mr.bounces.passes} passes`}, converged ${mr.bounces.converged}`);
 console.log(`  of which schema parse: ${fmt(tParse)}; parsed-scene input: ${fmt(time(300, () => meter(parsedMeterScene)))}`);
 console.log(`  subject f/${m.subject.aperture?.toFixed(1)}, ${m.subject.stopsVsCamera?.toFixed(2)} stops vs camera; bounce ${(100 * m.subject.bounceLuxSeconds / m.subject.luxSeconds).toFixed(1)} %`);
 
-// 2. full light map: 128 × 128, 8 lights, 6 walls, 4 flags.
-const mapScene = parseScene(demoScene(8, 4));
+// 2. light map on the meter's transport: 128 × 128, 8 lights, 6 walls, 4 flags, floor and ceiling, the dome,
+// the subject's body (as setups have it). The worker meters, then maps, each frame: the room is the meter's.
+const mapScene = parseScene({
+  ...demoScene(8, 4),
+  floor: { x1: 0, y1: 0, x2: 6, y2: 5 },
+  ceiling: { heightM: 3 },
+  options: { receptor: 'dome-camera' },
+  subject: { ...demoScene(8, 4).subject, body: { widthM: 0.45, depthM: 0.25, topM: 1.72 } },
+});
 const grid: LightMapGrid = { x0: 0, y0: 0, x1: 6, y1: 5, nx: 128, ny: 128 };
 const points = grid.nx * grid.ny;
-const tFull = time(60, () => createLightMapCache().updateParsed(mapScene, grid), 'full map');
-const tFullNoContours = time(40, () => createLightMapCache().updateParsed(mapScene, { ...grid, skipContours: true }));
-console.log(`light map 128×128, 8 lights, 6 walls, 4 flags, full: ${fmt(tFull)}   [target ≤ 16 ms]`);
-console.log(`  without contours: ${fmt(tFullNoContours)}; contours: ${fmt(tFull - tFullNoContours)}`);
+const cpu = (n: number, fn: () => void) => {
+  const c0 = process.cpuUsage();
+  for (let i = 0; i < n; i++) fn();
+  const c = process.cpuUsage(c0);
+  return (c.user + c.system) / 1000 / n;
+};
+const tCold = time(8, () => createLightMapCache().updateParsed(mapScene, grid), 'map, geometry built');
+console.log(`light map 128×128, 8 lights, 6 walls, 4 flags, floor, ceiling, body, dome: new grid and room geometry kept: ${fmt(tCold)} (CPU ${fmt(cpu(4, () => createLightMapCache().updateParsed(mapScene, grid)))})`);
+const warm = createLightMapCache();
+warm.updateParsed(mapScene, grid);
+let gen = 0;
+const allNew = () => {
+  gen++;
+  return { ...mapScene, lights: mapScene.lights.map((l) => ({ ...l, powerFraction: l.powerFraction * (gen % 2 ? 0.999 : 1) })) };
+};
+const tFull = time(40, () => warm.updateParsed(allNew(), grid), 'map, every light new');
+console.log(`  every light new (grid kept), with contours and wall tones: ${fmt(tFull)}   [target ≤ 16 ms; before issue 10's map: 5.2–9.2 ms, 27–49 ms under load, with one bounce and no area faces]  (CPU ${fmt(cpu(20, () => warm.updateParsed(allNew(), grid)))})`);
 
-// 3. one light moves: cached update.
+// 3. one light moves: only that light's direct grid (coarse, then refined near a big face), its coarse bounce
+// and its wall samples are recomputed.
 const cache = createLightMapCache();
 cache.updateParsed(mapScene, grid);
 let step = 0;
@@ -111,10 +160,18 @@ const moved = () => {
   const lights = mapScene.lights.map((l, i) => (i === 2 ? { ...l, x: l.x + 0.01 * Math.sin(step), y: l.y + 0.01 * Math.cos(step) } : l));
   return { ...mapScene, lights };
 };
-const tMove = time(300, () => cache.updateParsed(moved(), grid), 'one light moved');
-console.log(`light map, one light moved (cached): ${fmt(tMove)}   [target ≤ 4 ms]  (recomputed ${cache.stats.lightsRecomputed}, reused ${cache.stats.lightsReused})`);
-const tMoveParse = time(200, () => cache.update(moved(), grid));
-console.log(`  same through update() with schema parse: ${fmt(tMoveParse)}`);
+const tMove = time(200, () => cache.updateParsed(moved(), grid), 'one light moved');
+const cpuMove = cpu(100, () => cache.updateParsed(moved(), grid));
+console.log(`light map, one light moved (cached): ${fmt(tMove)}   [target ≤ 8 ms CPU]  CPU ${fmt(cpuMove)} a frame  (recomputed ${cache.stats.lightsRecomputed}, reused ${cache.stats.lightsReused})`);
+const both = () => {
+  const sc = moved();
+  meterParsed(sc);
+  cache.updateParsed(sc, grid);
+};
+console.log(`  meter + map for one drag frame (what the worker does): ${fmt(time(100, both, 'meter + map, one light moved'))} (CPU ${fmt(cpu(60, both))})`);
+const noContours = { ...grid, skipContours: true };
+cache.updateParsed(mapScene, noContours);
+console.log(`  of which contours (and their paths): ${fmt(tMove - time(100, () => cache.updateParsed(moved(), noContours)))}`);
 
 // Cost per (point × light) of the direct-light loop alone: a single-light map without bounce or contours.
 const oneLight = parseScene({ ...demoScene(1, 4), options: { bounce: false } });

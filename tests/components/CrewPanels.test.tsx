@@ -38,6 +38,11 @@ const crewRoutes =
     url.pathname === `/api/setups/${SETUP}` ? { status: 200, body: setupAs(role) } : url.pathname === '/api/me' ? { status: 200, body: me } : url.pathname === `/api/setups/${SETUP}/shares` ? { status: 200, body: { shares: [] } } : undefined;
 
 afterEach(() => vi.unstubAllGlobals());
+// The panel reads its setup through the document parser's chunk (components/shareScreen.ts), loaded on demand
+// (hooks/setups.ts): load it once here, cold, with time to spare on a loaded machine, so no test waits on it.
+beforeAll(async () => {
+  await import('../../components/shareScreen');
+}, 240_000);
 
 describe('CrewSheetPanel', () => {
   it('shows crew the preview, what the sheet holds and the downloads, but not making links or e-mail', async () => {

@@ -1,7 +1,9 @@
 // The inspector edits the selected item through editor actions, with units, and refuses bad input.
+import { vi } from 'vitest';
 import { act, fireEvent, render, screen } from '@testing-library/react-native';
 import { Inspector } from '../../components/editor/Inspector';
-import { EditorContext, createEditorStore, type EditorStore } from '../../canvas/state/store';
+import { createEditor as createEditorStore, type Editor as EditorStore } from '../../canvas/editor/editor';
+import { EditorContext } from '../../canvas/editor/react';
 import { demoSetups } from '../../db/seed-setups';
 import type { ItemOf } from '../../model/document';
 
@@ -26,6 +28,18 @@ describe('Inspector', () => {
       </EditorContext.Provider>,
     );
     expect(screen.getByText(/Tap an item on the plan/)).toBeOnTheScreen();
+  });
+
+  it('gives every field its own key (length fields share one label function; a shared key lets React mix up their inputs)', () => {
+    const errors = vi.spyOn(console, 'error').mockImplementation(() => {});
+    try {
+      setup('key');
+      setup('cam');
+      const dupes = errors.mock.calls.filter((c) => String(c[0]).includes('same key'));
+      expect(dupes).toEqual([]);
+    } finally {
+      errors.mockRestore();
+    }
   });
 
   it('moves a light by typing a position, and undo puts it back', () => {
@@ -62,13 +76,73 @@ describe('Inspector', () => {
     expect(item<'light'>(store, 'key').power).toBeCloseTo(1 / 32);
   });
 
-  it('refuses what is not a number and keeps the value', () => {
+  it('refuses what is not a number, keeps the value, and says under the field what it accepts', () => {
     const store = setup('key');
     const field = screen.getByLabelText('Down (m)');
     fireEvent.changeText(field, 'near the window');
     fireEvent(field, 'submitEditing');
     expect(item<'light'>(store, 'key').y).toBeCloseTo(4.1);
-    expect(screen.getByLabelText('Down (m)').props.value).toBe('4.10');
+    // The typed text stays for correcting, with the reason under it (never a silent revert).
+    expect(screen.getByLabelText('Down (m)').props.value).toBe('near the window');
+    expect(screen.getByText(/Not a value this field reads\. Accepted: 0\.00 to \d+\.00\./)).toBeOnTheScreen();
+    expect(screen.getByLabelText('Down (m)').props['aria-invalid']).toBe(true);
+    // Typing again clears the message; a good value commits.
+    fireEvent.changeText(field, '3.2');
+    expect(screen.queryByText(/Not a value this field reads/)).toBeNull();
+    fireEvent(field, 'submitEditing');
+    expect(item<'light'>(store, 'key').y).toBeCloseTo(3.2);
+  });
+
+  it.each([
+    ['cam', 'ISO', '0', 'Out of range. Accepted: 25 to 409600.'],
+    ['cam', 'ISO', '100000000', 'Out of range. Accepted: 25 to 409600.'],
+    ['cam', 'Shutter (s)', '0', 'Not a value this field reads. Accepted: 1/8000 to 30″.'],
+    ['key', 'Power', '2000', 'Out of range. Accepted: 1/256 to 1/1.'],
+  ])('%s: %s "%s" is refused with "%s"', (id, label, typed, message) => {
+    const store = setup(id);
+    const before = JSON.stringify(store.getState().doc);
+    const field = screen.getByLabelText(label);
+    fireEvent.changeText(field, typed);
+    fireEvent(field, 'blur');
+    expect(screen.getByText(message)).toBeOnTheScreen();
+    expect(JSON.stringify(store.getState().doc)).toBe(before);
+  });
+
+  it('keeps a position on the stage: a negative position is refused, naming the stage', () => {
+    const store = setup('key');
+    const { widthM } = store.getState().doc.stage;
+    const field = screen.getByLabelText('Across (m)');
+    fireEvent.changeText(field, '-2');
+    fireEvent(field, 'submitEditing');
+    expect(screen.getByText(`Out of range. Accepted: 0.00 to ${widthM.toFixed(2)}.`)).toBeOnTheScreen();
+    expect(item<'light'>(store, 'key').x).toBeGreaterThanOrEqual(0);
+  });
+
+  it('opens the number pad on number fields', () => {
+    setup('cam');
+    for (const label of ['ISO', 'Aperture (f/)', 'Shutter (s)', 'Across (m)', 'Height (m)']) {
+      expect(screen.getByLabelText(label).props.inputMode).toBe('decimal');
+    }
+  });
+
+  it('takes a shutter typed as the camera shows it ("250" is 1/250 s) and steps on the third-stop scale', () => {
+    const store = setup('cam');
+    const field = screen.getByLabelText('Shutter (s)');
+    fireEvent.changeText(field, '250');
+    fireEvent(field, 'submitEditing');
+    expect(item<'camera'>(store, 'cam').shutterS).toBeCloseTo(1 / 250, 9);
+    fireEvent.press(screen.getByRole('button', { name: 'More shutter (s)' }));
+    expect(item<'camera'>(store, 'cam').shutterS).toBeCloseTo(1 / 320, 9);
+    expect(screen.getByLabelText('Shutter (s)').props.value).toBe('1/320');
+  });
+
+  it('shows and reads feet and inches as written: 5′ 6″ in, 5′ 6″ out', () => {
+    const store = setup('key', 'imperial');
+    const field = screen.getByLabelText('Height (ft)');
+    fireEvent.changeText(field, '5′ 6″');
+    fireEvent(field, 'submitEditing');
+    expect(item<'light'>(store, 'key').heightM).toBeCloseTo(5.5 * 0.3048, 6);
+    expect(screen.getByLabelText('Height (ft)').props.value).toBe('5′ 6″');
   });
 
   it('picks a gel from the collapsed list', () => {

@@ -1,7 +1,7 @@
 // The meter panel shows the meter's readings as text: per light, the total, ratios, ambient, sync, safety.
 import { render, screen } from '@testing-library/react-native';
 import { MeterPanel } from '../../components/editor/MeterPanel';
-import { computeReadings } from '../../model/readings';
+import { computeReadings } from '../../model/setupReadings';
 import { demoSetups } from '../../db/seed-setups';
 import { parseDocument, type SetupDocument } from '../../model/document';
 import { formatAperture, formatStops } from '../../model/units';
@@ -34,6 +34,32 @@ describe('MeterPanel', () => {
     const fast = { ...d, items: d.items.map((i) => (i.kind === 'camera' ? { ...i, shutterS: 1 / 1000 } : i)) };
     show(fast);
     expect(screen.getAllByRole('alert').map((a) => a.props.children).join(' ')).toMatch(/faster than the flash sync/);
+  });
+
+  it('says what the light map is relative to: the subject, at face height', () => {
+    const doc = demoSetups[1]!.document;
+    const readings = computeReadings(doc, { lightMap: true });
+    render(<MeterPanel readings={readings} doc={doc} selectedLight={null} units="metric" />);
+    expect(readings.map!.reference).toBe('subject');
+    expect(screen.getByTestId('meter-map-caption')).toHaveTextContent(`Light map: stops vs the subject (${formatAperture(readings.meter!.subject.aperture)}), at face height (1.70 m)`, { exact: false });
+  });
+
+  it('says how each point of the light map is read: by the setup receptor (a dome by default)', () => {
+    const doc = demoSetups[1]!.document;
+    const readings = computeReadings(doc, { lightMap: true });
+    render(<MeterPanel readings={readings} doc={doc} selectedLight={null} units="metric" />);
+    expect(readings.map!.receptor).toBe('dome');
+    const caption = screen.getByTestId('meter-map-caption');
+    expect(caption).toHaveTextContent('read at each point by a dome pointed at the camera', { exact: false });
+    expect(caption).not.toHaveTextContent('flat meter', { exact: false });
+  });
+
+  it('gives a rim under the key as a signed difference, not "−0.9 stops over the key"', () => {
+    const doc = demoSetups.find((d) => d.document.items.some((i) => i.id === 'rimL'))!.document;
+    show(doc);
+    const text = String(screen.getByTestId('meter-light-rimL-vskey').props.children);
+    expect(text).toMatch(/^[+−±]\d\.\d vs the key \(wanted \+1\.0\)/);
+    expect(text).not.toMatch(/stops over/);
   });
 
   it('says what is missing before it can read', () => {

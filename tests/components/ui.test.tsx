@@ -45,8 +45,8 @@ describe('ErrorText', () => {
 });
 
 describe('Title', () => {
-  it('is a header', () => {
+  it('is the page heading (level 1)', () => {
     render(<Title>Setups</Title>);
-    expect(screen.getByRole('header', { name: 'Setups' })).toBeOnTheScreen();
+    expect(screen.getByRole('heading', { name: 'Setups' })).toBeOnTheScreen();
   });
 });

@@ -27,7 +27,7 @@ describe('forgotten password', () => {
     await expect
       .poll(async () => {
         const { messages } = (await (await fetch(`${base}/dev/inbox.json`)).json()) as { messages: Message[] };
-        const m = messages.find((x) => JSON.stringify(x.to).includes(email));
+        const m = messages.find((x) => JSON.stringify(x.to).includes(email) && /reset-password/.test(x.text));
         link = m ? (/https?:\/\/\S+reset-password\S+/.exec(m.text)?.[0] ?? '') : '';
         return link;
       }, { timeout: 10_000 })

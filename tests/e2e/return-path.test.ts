@@ -16,7 +16,7 @@ describe('signing in from a link', () => {
     const context = await browser().newContext({ viewport: viewports.phone });
     const page = await context.newPage();
     await page.goto(`${base}/setups/${id}`);
-    await expect.poll(() => new URL(page.url()).pathname).toBe('/sign-in');
+    await expect.poll(() => new URL(page.url()).pathname, { timeout: 30_000 }).toBe('/sign-in');
     expect(new URL(page.url()).searchParams.get('next')).toBe(`/setups/${id}`);
     await page.getByLabel('E-mail').fill(demoUsers.owner.email);
     await page.getByLabel('Password').fill(DEMO_PASSWORD);

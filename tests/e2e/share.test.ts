@@ -31,8 +31,10 @@ describe('a read-only link', () => {
     // The photographer, through the API: an account, a setup and a link.
     const studio = await browser.newContext();
     const headers = { origin: base };
-    const signUp = await studio.request.post(`${base}/api/auth/sign-up/email`, { data: { name: 'Mara Quill', email: freshEmail('mara'), password: 'share-test-pass-1' }, headers });
+    const maraEmail = freshEmail('mara');
+    const signUp = await studio.request.post(`${base}/api/auth/sign-up/email`, { data: { name: 'Mara Quill', email: maraEmail, password: 'share-test-pass-1' }, headers });
     expect(signUp.status()).toBe(200);
+    expect((await studio.request.post(`${base}/api/auth/sign-in/email`, { data: { email: maraEmail, password: 'share-test-pass-1' }, headers })).status()).toBe(200);
     const teal = demoSetups.find((s) => s.title.startsWith('Teal'))!;
     const setup = await (await studio.request.post(`${base}/api/setups`, { data: { title: 'Album cover, teal glow', notes: teal.notes, document: teal.document }, headers })).json();
     const made = await studio.request.post(`${base}/api/setups/${setup.id}/shares`, { data: { label: 'Assistants' }, headers });

@@ -11,6 +11,8 @@ export const componentsProject: TestProjectInlineConfiguration = {
     name: 'components',
     include: ['tests/components/**/*.test.tsx'],
     environment: 'node',
+    // Generous for a loaded 2-core machine: a screen that loads the plan screens' chunk imports it cold.
+    testTimeout: 30_000,
     // The testing library extends a global `expect` and registers hooks through the global `afterEach`.
     globals: true,
     setupFiles: ['tests/setup/components.setup.ts'],

@@ -23,6 +23,9 @@ installExpoEnvironment();
 // first test file of a worker only, since Node caches the module (worker-env.ts turns that off); register
 // the same hook for every test file instead. Loading it here also adds its matchers to `expect`.
 const rntl = requireFromRoot('@testing-library/react-native') as typeof import('@testing-library/react-native');
+// findBy*/waitFor poll up to 15 s (not 1 s): a screen that loads the plan screens' chunk on demand
+// (components/workspace.ts) imports it cold in a test, which takes seconds on a loaded 2-core machine.
+rntl.configure({ asyncUtilTimeout: 15_000 });
 // Taken now, before a test can install fake timers (expo-router's renderRouter always does).
 const realSetImmediate = setImmediate;
 afterEach(async () => {

@@ -48,6 +48,11 @@ export function installExpoEnvironment(): void {
     get: (known, name: string) => (known[name] ??= absentNativeModule()),
   });
 
+  // Expo's runtime replaces globalThis.fetch (and friends) when `expo` is first loaded. Load it now, so that a
+  // test's stubbed fetch (vi.stubGlobal) is never replaced by it later, when a screen imports a chunk that
+  // brings `expo` in on demand (components/workspace.ts).
+  requireFromExpo('./src/winter');
+
   // Dev-server plumbing (HMR client, fast refresh, the reload socket) that `expo` starts whenever it sees
   // a `window`, which React Native's jest setup defines: there is no dev server to talk to in a test.
   for (const devOnly of ['expo/src/async-require/setup', 'expo/src/async-require/messageSocket']) {

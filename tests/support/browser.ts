@@ -70,9 +70,10 @@ export async function dragMouse(page: Page, from: { x: number; y: number }, to: 
 /** On a phone the editor's sheet is dragged up by its handle to work in it, and down to see the plan; waits
  *  for its spring to settle so nothing is pressed under a moving sheet. */
 export async function dragSheet(page: Page, open: boolean) {
-  const handle = (await page.getByLabel('Drag to resize').boundingBox())!;
-  const x = handle.x + handle.width / 2;
-  const y = handle.y + 6;
+  // The handle is a button of its own (a tap steps the sheet's height); the drag starts in the handle's row beside it.
+  const handle = (await page.getByTestId('sheet-handle').boundingBox())!;
+  const x = handle.x + handle.width + 30;
+  const y = handle.y + handle.height / 2;
   // Stay inside the viewport: a pointer released outside it never reaches the page.
   const bottom = (page.viewportSize()?.height ?? 844) - 4;
   await dragMouse(page, { x, y }, { x, y: open ? y - 480 : bottom });
@@ -80,7 +81,7 @@ export async function dragSheet(page: Page, open: boolean) {
   await expect
     .poll(
       async () => {
-        const now = (await page.getByLabel('Drag to resize').boundingBox())!.y;
+        const now = (await page.getByTestId('sheet-handle').boundingBox())!.y;
         const settled = Math.abs(now - last) < 0.5;
         last = now;
         return settled;

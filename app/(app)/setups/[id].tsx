@@ -1,25 +1,22 @@
 // One setup in the editor (crew see it read-only).
 import { useLocalSearchParams } from 'expo-router';
-import { View } from 'react-native';
-import { EditorScreen } from '../../../components/editor/EditorScreen';
+import { workspaceScreen } from '../../../components/workspaceScreen';
 import { Loading } from '../../../components/Loading';
-import { Body, Title } from '../../../components/ui';
-import { colours } from '../../../constants/theme';
+import { SetupMissing } from '../../../components/library/SetupMissing';
 import { useMe } from '../../../hooks/me';
 import { useSetup } from '../../../hooks/setups';
+
+// Loaded with the other plan screens when first shown (components/workspace.ts).
+const EditorScreen = workspaceScreen('EditorScreen');
 
 export default function SetupEditorRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const me = useMe();
   const setup = useSetup(id);
   if (setup.isPending || me.isPending) return <Loading />;
-  if (setup.isError) {
-    return (
-      <View style={{ flex: 1, padding: 24, backgroundColor: colours.graphite }}>
-        <Title>Setup not found</Title>
-        <Body dim>It may have been deleted, or it belongs to a studio you are not in.</Body>
-      </View>
-    );
-  }
+  if (setup.isError) return <SetupMissing setupId={id} error={setup.error} onRetry={() => void setup.refetch()} />;
   return <EditorScreen setup={setup.data} units={me.data?.user.units ?? 'metric'} />;
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../../components/RouteError';

@@ -5,3 +5,6 @@ export default function StudioScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   return <StudioMembers studioId={id} />;
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../../components/RouteError';

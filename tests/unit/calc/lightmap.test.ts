@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { createLightMapCache, lightMap, meter, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../../calc';
 import { contourLines } from '../../../calc/contours';
-import { buildOccluders } from '../../../calc/prepare';
+import { buildOccluders } from '../../../calc/flatScene';
 import { castShadows } from '../../../calc/shadows';
 import { transmissionAlong } from '../../../calc/transport';
 
@@ -140,7 +140,7 @@ describe('lightMap', () => {
     expect(cache.stats.lightsReused).toBe(2);
     const fresh = lightMap(moved, grid);
     for (let k = 0; k < fresh.luxSeconds.length; k += 7) expect(inc.luxSeconds[k]!).toBeCloseTo(fresh.luxSeconds[k]!, 6);
-    // moving the subject only changes the reference
+    // moving a subject without a body only changes the reference (with a body, its shadow moves: the room is rebuilt)
     const subj = cache.updateParsed({ ...moved, subject: { ...moved.subject, y: 2.2 } }, grid);
     expect(cache.stats.lightsRecomputed).toBe(0);
     expect(subj.referenceLuxSeconds).not.toBe(inc.referenceLuxSeconds);
@@ -150,7 +150,7 @@ describe('lightMap', () => {
   });
 
   it('falls back to the brightest point when the subject is unlit, and stays finite', () => {
-    const s = room([flash('a', 1, 2.5, 180)]); // behind the subject's facing, aimed away
+    const s = room([flash('a', 1, 2.5, 180)], { options: { bounce: false } }); // behind the subject's facing, aimed away, no bounce
     const map = lightMap(s, grid);
     expect(map.reference).toBe('brightest');
     expect(Math.max(...map.stops)).toBeCloseTo(0, 6);
@@ -215,3 +215,56 @@ describe('contour lines', () => {
 function inverse(from: number, to: number) {
   return 2 * Math.log2(from / to);
 }
+
+describe('the map on the meter\'s transport', () => {
+  it('a small white room with a ceiling and a softbox close by: the map reads the meter\'s probes within 0.1 stop (floor, ceiling, every bounce, area face)', () => {
+    const white = '#f2f2f2';
+    const s: SceneInput = {
+      lights: [{ id: 'box', kind: 'flash', x: 2.2, y: 1.2, heightM: 1.7, aimDeg: 135, tiltDeg: -10, output: { type: 'energy', ratedWs: 200 }, powerFraction: 1 / 8, modifier: 'softbox' }],
+      surfaces: [
+        { id: 'n', x1: 0, y1: 0, x2: 3, y2: 0, colour: white, topM: 2.6 },
+        { id: 'e', x1: 3, y1: 0, x2: 3, y2: 3, colour: white, topM: 2.6 },
+        { id: 's', x1: 3, y1: 3, x2: 0, y2: 3, colour: white, topM: 2.6 },
+        { id: 'w', x1: 0, y1: 3, x2: 0, y2: 0, colour: white, topM: 2.6 },
+      ],
+      floor: { x1: 0, y1: 0, x2: 3, y2: 3, colour: white },
+      ceiling: { heightM: 2.6, colour: white },
+      subject: { x: 1.5, y: 1.5, heightM: 1.6, facingDeg: 0 },
+      camera: { x: 2.8, y: 1.5, aimDeg: 180, aperture: 8, shutterS: 1 / 125, iso: 100 },
+      probes: [
+        { id: 'near', x: 1.8, y: 1.5, z: 1.6, facingDeg: 0 },
+        { id: 'corner', x: 0.4, y: 2.6, z: 1.6, facingDeg: 0 },
+        { id: 'behind', x: 2.6, y: 0.4, z: 1.6, facingDeg: 0 },
+      ],
+    };
+    const m = meter(s);
+    const map = lightMap(s, { x0: 0.05, y0: 0.05, x1: 2.95, y1: 2.95, nx: 59, ny: 59, facing: 0 });
+    const at = (x: number, y: number) => {
+      const i = Math.round((x - 0.05) / map.dxM);
+      const j = Math.round((y - 0.05) / map.dyM);
+      return map.luxSeconds[j * map.nx + i]!;
+    };
+    for (const p of m.probes) {
+      // The probes sit on grid points (0.05 m steps); the bounce is a large part in the corner and behind the box.
+      expect(Math.abs(Math.log2(at(p.point.x, p.point.y) / p.luxSeconds)), p.id).toBeLessThan(0.1);
+    }
+    // Behind the box (its back is closed) all the light is bounce, and it is well above nothing.
+    const behind = m.probes.find((p) => p.id === 'behind')!;
+    expect(behind.bounceLuxSeconds / behind.luxSeconds).toBeGreaterThan(0.9);
+  });
+
+  it('posts contour paths ready to draw: one path per level through the traced vertices, with a label point on the level', () => {
+    const map = lightMap(room([flash('a', 5, 1.5, 150), flash('b', 1, 4, -30)]), grid);
+    expect(map.contourPaths.map((p) => p.stops)).toEqual(map.contours.map((c) => c.stops));
+    map.contours.forEach((level, k) => {
+      const d = map.contourPaths[k]!.d;
+      const moves = (d.match(/M/g) ?? []).length;
+      expect(moves).toBe(level.lines.filter((l) => l.length >= 2).length);
+      const first = level.lines[0]![0]!;
+      expect(d.startsWith(`M${Math.round(first[0] * 1000) / 1000},${Math.round(first[1] * 1000) / 1000}`)).toBe(true);
+      const label = map.contourPaths[k]!.label;
+      if (label) expect(level.lines.some((l) => l.some(([x, y]) => Math.abs(x - label[0]) < 1e-3 && Math.abs(y - label[1]) < 1e-3))).toBe(true);
+    });
+  });
+});
+

@@ -113,8 +113,12 @@ describe('meter — direct light', () => {
     const R = MODIFIERS.octa.faceRadiusM;
     const lit = (d: number) =>
       meter(scene([flash('a', front(d), { modifier: 'octa', modifierOverride: {} })])).subject.luxSeconds;
-    // E = I/(d² + R²): the ratio between two distances follows the disc law, not the point law.
-    expect(lit(0.5) / lit(2)).toBeCloseTo((4 + R * R) / (0.25 + R * R), 8);
+    // E = I/(d² + R²): the ratio between two distances follows the disc law, not the point law (coaxial disc
+    // view factor, Howell's catalogue). The octa is an area source whose face is an octagon of the disc's
+    // area, so the ratio matches the disc within 0.1 %.
+    const ratio = lit(0.5) / lit(2);
+    const disc = (4 + R * R) / (0.25 + R * R);
+    expect(Math.abs(ratio / disc - 1)).toBeLessThan(1e-3);
   });
 });
 

@@ -20,7 +20,7 @@ const lightArb: fc.Arbitrary<LightInput> = fc
     powerFraction: fc.double({ min: 1 / 256, max: 1, noNaN: true }),
     modifier: fc.constantFrom(...MODIFIER_IDS),
     gel: fc.constantFrom(...GEL_IDS),
-    role: fc.constantFrom('auto', 'key', 'fill', 'rim', 'background', 'other'),
+    role: fc.constantFrom('auto', 'key', 'fill', 'rim', 'hair', 'kicker', 'background', 'other'),
     enabled: fc.boolean(),
     flash: fc.boolean(),
     rating: fc.double({ min: 1, max: 3000, noNaN: true }),
@@ -115,7 +115,8 @@ describe('properties (fast-check)', () => {
       }),
       { numRuns: 150 },
     );
-  });
+    // A generous bound for a loaded machine (150 scenes, each metered by three receptors with every bounce).
+  }, 60_000);
 
   it('moving a light away from the subject (along the line between them) never brightens the subject', () => {
     // Walls are left out: moving a light can bring it nearer a wall and so raise the bounce, which is physical.
@@ -140,7 +141,7 @@ describe('properties (fast-check)', () => {
       }),
       { numRuns: 200 },
     );
-  });
+  }, 60_000);
 
   it('adding a light never darkens the subject, background or any point', () => {
     fc.assert(
@@ -153,7 +154,7 @@ describe('properties (fast-check)', () => {
       }),
       { numRuns: 150 },
     );
-  });
+  }, 60_000);
 
   it('an invalid scene is rejected by the schema with a message naming the field', () => {
     const fields: [string, (s: any, v: unknown) => void][] = [
@@ -177,5 +178,5 @@ describe('properties (fast-check)', () => {
       }),
       { numRuns: 150 },
     );
-  });
+  }, 60_000);
 });

@@ -2,11 +2,11 @@
 import { describe, expect, it } from 'vitest';
 import { demoSetups } from '../../../db/seed-setups';
 import { parseDocument, type SetupDocument } from '../../../model/document';
-import { actions, run, type ActionName } from '../../../canvas/state/actions';
-import { initialState, type EditorState } from '../../../canvas/state/editor';
-import { handleKey } from '../../../canvas/state/keys';
-import { createEditorStore } from '../../../canvas/state/store';
-import { snapPoint } from '../../../canvas/state/snap';
+import { actions, run, viewActions, type ActionName } from '../../../canvas/editor/actions';
+import { createEditor } from '../../../canvas/editor/editor';
+import { keymap, type KeyInput } from '../../../canvas/editor/keymap';
+import { snapPoint } from '../../../canvas/editor/snap';
+import { initialState, type EditorState } from '../../../canvas/editor/state';
 
 const base = (): SetupDocument => demoSetups[0]!.document;
 const item = (s: EditorState, id: string) => s.doc.items.find((i) => i.id === id)!;
@@ -28,6 +28,9 @@ describe('every command that changes the plan is undone by one undo and redone b
     ['setSteps', (s) => run(s, 'setSteps', { steps: [] })],
     ['setShots', (s) => run(s, 'setShots', { shots: [] })],
     ['startWall', (s) => run(s, 'startWall', { at: { x: 1, y: 1 }, gestureKey: 'w1' })],
+    ['placeItem', (s) => run(s, 'placeItem', { kind: 'camera' })],
+    ['setHeight', (s) => run(s, 'setHeight', { id: 'key', heightM: 1.2, gestureKey: 'h1' })],
+    ['setTilt', (s) => run(s, 'setTilt', { id: 'key', tiltDeg: 10, gestureKey: 't1' })],
   ];
   it.each(cases)('%s', (_name, change) => {
     const after = change(start);
@@ -39,8 +42,7 @@ describe('every command that changes the plan is undone by one undo and redone b
 
   it('covers every document-changing action', () => {
     const named = new Set(cases.map(([n]) => n));
-    const viewOnly: ActionName[] = ['undo', 'redo', 'select', 'selectInBox', 'selectAll', 'clearSelection', 'toggleSnap', 'setTool'];
-    for (const name of Object.keys(actions) as ActionName[]) if (!viewOnly.includes(name)) expect(named, name).toContain(name);
+    for (const name of Object.keys(actions) as ActionName[]) if (!viewActions.includes(name)) expect(named, name).toContain(name);
   });
 });
 
@@ -101,8 +103,9 @@ describe('read-only (crew)', () => {
 
 describe('keyboard', () => {
   const press = (key: string, mods: Partial<{ shiftKey: boolean; ctrlKey: boolean; metaKey: boolean }> = {}) => ({ key, shiftKey: false, ctrlKey: false, metaKey: false, ...mods });
+  const handleKey = (e: ReturnType<typeof createEditor>, k: KeyInput) => e.keys.down(k);
   it('arrows nudge 0.1 m, Shift 1 m; Ctrl+Z undoes, Ctrl+Shift+Z redoes; Ctrl+D duplicates; Delete deletes', () => {
-    const store = createEditorStore(parseDocument(base()));
+    const store = createEditor(parseDocument(base()));
     store.dispatch('select', { ids: ['key'] });
     const at = () => store.getState().doc.items.find((i) => i.id === 'key') as { x: number; y: number };
     handleKey(store, press('ArrowRight'));
@@ -119,5 +122,40 @@ describe('keyboard', () => {
     handleKey(store, press('Delete'));
     expect(store.getState().doc.items.length).toBe(n);
     expect(handleKey(store, press('q'))).toBe(false);
+  });
+});
+
+describe('the key map comes from the actions', () => {
+  it('every action shortcut is in the one map, bound to its action', () => {
+    for (const [name, a] of Object.entries(actions)) {
+      for (const sc of (a as { shortcut?: (string | { keys: string })[] }).shortcut ?? []) {
+        const keys = typeof sc === 'string' ? sc : sc.keys;
+        expect([...keymap.values()].some((b) => b.action === name), `${name} ${keys}`).toBe(true);
+      }
+    }
+    expect(keymap.get('Mod+z')?.action).toBe('undo');
+    expect(keymap.get('Mod+Shift+z')?.action).toBe('redo');
+    expect(keymap.get('Shift+ArrowLeft')).toEqual({ action: 'nudge', arg: { dx: -1, dy: 0 } });
+  });
+
+  it('camera keys zoom and fit without entering history', () => {
+    const e = createEditor(parseDocument(base()));
+    e.dispatch('setViewport', { w: 1000, h: 800 });
+    const fitted = e.getState().camera!;
+    const press = (key: string, mods: Partial<KeyInput> = {}) => e.keys.down({ key, shiftKey: false, ctrlKey: false, metaKey: false, ...mods });
+    expect(press('+', { shiftKey: true })).toBe(true);
+    expect(e.getState().camera!.scale).toBeCloseTo(fitted.scale * 1.25);
+    press('0');
+    expect(e.getState().camera).toEqual(fitted);
+    expect(e.getState().past.length).toBe(0);
+    expect(e.getState().revision).toBe(0);
+  });
+
+  it('Space held is input state the select tool reads (it pans)', () => {
+    const e = createEditor(parseDocument(base()));
+    e.keys.down({ key: ' ', shiftKey: false, ctrlKey: false, metaKey: false });
+    expect(e.getState().input.space).toBe(true);
+    e.keys.up({ key: ' ', shiftKey: false, ctrlKey: false, metaKey: false });
+    expect(e.getState().input.space).toBe(false);
   });
 });

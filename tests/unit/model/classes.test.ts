@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { demoSetups } from '../../../db/seed-setups';
 import { checkSchema, describeChange, describeTarget, evaluateCheck, stepChangeLine, stopsChangeText, type Check } from '../../../model/classes';
 import { parseDocument, type SetupDocument } from '../../../model/document';
-import { computeReadings } from '../../../model/readings';
+import { computeReadings } from '../../../model/setupReadings';
 
 const subject = { id: 'sub', kind: 'subject', label: 'Sitter', x: 4, y: 3, facingDeg: 90, faceHeightM: 1.6 };
 const camera = { id: 'cam', kind: 'camera', x: 4, y: 5.6, heightM: 1.6, aimDeg: -90, iso: 100, aperture: 8, shutterS: 1 / 200 };
@@ -13,9 +13,18 @@ const backdrop = (y = 1) => ({ id: 'bg', kind: 'wall', label: 'Grey paper', surf
 const light = (id: string, d: number, extra: Record<string, unknown> = {}) => ({
   id, kind: 'light', label: id, x: 4, y: 3 + d, heightM: 1.6, aimDeg: -90, tiltDeg: 0, source: { type: 'strobe', energyWs: 400 }, power: 1 / 4, modifier: 'bare-reflector', ...extra,
 });
+/**
+ * The same head 0.6 m over the face, tilted down onto it (as keys usually stand): the sitter's shadow falls
+ * below the face's height on the paper, so the paper beside the sitter is lit (the meter reads the background
+ * beside the silhouette, where the lens sees it).
+ */
+const keyAbove = (id: string, d: number, extra: Record<string, unknown> = {}) =>
+  light(id, d, { heightM: 2.2, tiltDeg: (-Math.atan2(0.6, d) * 180) / Math.PI, ...extra });
 const doc = (items: unknown[], extra: Record<string, unknown> = {}): SetupDocument =>
   parseDocument({ schemaVersion: 1, stage: { widthM: 8, depthM: 6 }, items, ...extra });
 const check = (...criteria: unknown[]): Check => checkSchema.parse({ criteria });
+/** A black stage with no ceiling: no room bounce, so a light's own path is all that reaches a point. */
+const DARK_STAGE = { meter: { floor: { colour: '#111111', reflectance: 0 }, ceiling: { heightM: null } } };
 const only = (c: Check, d: SetupDocument) => evaluateCheck(c, d).criteria[0]!;
 
 describe('the check schema', () => {
@@ -80,11 +89,11 @@ describe('evaluateCheck', () => {
 
   it('measures the background relative to the subject: a light 1 m from the face and 3 m from the paper puts it about 3.2 stops under (inverse-square, common practice)', () => {
     const c = check({ measure: 'background', max: -2 });
-    const far = only(c, doc([subject, camera, backdrop(1), light('key', 1)]));
+    const far = only(c, doc([subject, camera, backdrop(1), keyAbove('key', 1)]));
     expect(far.measured).toBeCloseTo(Math.log2(1 / 9), 0);
     expect(far.pass).toBe(true);
     // Paper 0.5 m behind the sitter: 1.5 m from the light, about 1.2 stops under; the target fails.
-    const near = only(c, doc([subject, camera, backdrop(2.5), light('key', 1)]));
+    const near = only(c, doc([subject, camera, backdrop(2.5), keyAbove('key', 1)]));
     expect(near.measured).toBeGreaterThan(-1.5);
     expect(near.pass).toBe(false);
   });
@@ -133,7 +142,7 @@ describe('evaluateCheck', () => {
   });
 
   it('passes only when every criterion passes', () => {
-    const d = doc([subject, camera, backdrop(1), light('key', 1)]);
+    const d = doc([subject, camera, backdrop(1), keyAbove('key', 1)]);
     expect(evaluateCheck(check({ measure: 'lights', max: 1 }, { measure: 'background', max: -2 }), d).pass).toBe(true);
     expect(evaluateCheck(check({ measure: 'lights', max: 1 }, { measure: 'background', max: -4 }), d).pass).toBe(false);
   });
@@ -166,11 +175,11 @@ describe('the change line', () => {
   });
 
   it('a flag between the key and the paper takes the light off the background and leaves the face alone', () => {
-    const key = { ...light('Key', 1), x: 3, y: 4, aimDeg: -45, modifier: 'softbox' };
-    // Across the line from the key to the paper's point behind the sitter, clear of the line to the face.
-    const flag = { id: 'flag', kind: 'flag', x: 3.75, y: 2.1, rotationDeg: -90, widthM: 0.5, heightM: 2.2 };
-    const before = doc([subject, camera, backdrop(1.6), key], steps(['sub', 'cam', 'bg', 'Key']));
-    const after = doc([subject, camera, backdrop(1.6), key, flag], steps(['sub', 'cam', 'bg', 'Key'], ['flag']));
+    const key = { ...keyAbove('Key', 1), x: 3, y: 4, aimDeg: -45, modifier: 'softbox' };
+    // Across the lines from the key to the paper beside the sitter, clear of the line to the face.
+    const flag = { id: 'flag', kind: 'flag', x: 3.8, y: 2.1, rotationDeg: -90, widthM: 1.4, heightM: 2.4 };
+    const before = doc([subject, camera, backdrop(1.6), key], { ...steps(['sub', 'cam', 'bg', 'Key']), ...DARK_STAGE });
+    const after = doc([subject, camera, backdrop(1.6), key, flag], { ...steps(['sub', 'cam', 'bg', 'Key'], ['flag']), ...DARK_STAGE });
     const bgBefore = computeReadings(before).meter!.background!.luxSeconds;
     const bgAfter = computeReadings(after).meter!.background!.luxSeconds;
     expect(bgAfter).toBeLessThan(bgBefore);
@@ -179,7 +188,8 @@ describe('the change line', () => {
 
   it('a background lit before the subject is read against the camera; a trace of light is no light (more than 8 stops under)', () => {
     const bgLight = { id: 'bgl', kind: 'light', label: 'Paper light', x: 4, y: 2.2, heightM: 0.5, aimDeg: -90, tiltDeg: 10, source: { type: 'speedlight', guideNumberM: 40 }, power: 1 / 8, role: 'background' };
-    const d = doc([subject, camera, backdrop(1), bgLight, light('Key', 1)], steps(['sub', 'cam', 'bg'], ['bgl'], ['Key']));
+    // Read flat along the face: a dome pointed at the camera would see the lit paper behind the sitter (−6 stops).
+    const d = doc([subject, camera, backdrop(1), bgLight, keyAbove('Key', 1)], { ...steps(['sub', 'cam', 'bg'], ['bgl'], ['Key']), meter: { ...DARK_STAGE.meter, receptor: 'flat-face' } });
     expect(stepChangeLine(d, 0)).toBe('starting with Sitter, the camera and Grey paper: nothing to meter yet (needs a light)');
     expect(stepChangeLine(d, 1)).toMatch(/^adding Paper light: no light on the subject yet, background [+−±]\d+\.\d vs the camera$/);
     expect(stepChangeLine(d, 2)).toMatch(/^adding Key: the subject reads f\/[\d.]+ \([+−±]\d\.\d vs the camera\), background [+−]\d\.\d stops?$/);

@@ -1,7 +1,13 @@
 import { useLocalSearchParams } from 'expo-router';
-import { LessonBuilder } from '../../../../components/classes/LessonBuilder';
+import { workspaceScreen } from '../../../../components/workspaceScreen';
+
+// Loaded with the other plan screens when first shown (components/workspace.ts).
+const LessonBuilder = workspaceScreen('LessonBuilder');
 
 export default function LessonEditRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();
   return <LessonBuilder lessonId={id} />;
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../../../components/RouteError';

@@ -5,3 +5,6 @@ export default function JoinStudioScreen() {
   const { token } = useLocalSearchParams<{ token: string }>();
   return <JoinStudio token={token} />;
 }
+
+// A route that throws shows a way back (open editors save first).
+export { RouteError as ErrorBoundary } from '../../../../components/RouteError';

@@ -1,0 +1,47 @@
+// Where the meter's readings are computed: in a Web Worker on the web (the drag never waits for the physics),
+// else in this thread after the current task (native, tests, or a web build without the worker file).
+// Either way a job is one document in, readings out, and the light map's per-light cache lives with the
+// engine between jobs.
+import { createLightMapCache } from '../../calc';
+import type { SetupDocument } from '../../model/document';
+import { computeReadings, type Readings } from '../../model/setupReadings';
+import { inlineClient, workerClient } from '../workerClient';
+
+export type MeterJob = { doc: SetupDocument; stepIndex?: number; lightMap: boolean };
+export type MeterEngine = { compute(job: MeterJob): Promise<Readings>; dispose(): void; readonly kind: 'worker' | 'inline' };
+
+/** Where the built worker is served (scripts/ensure.mjs bundles canvas/meter/worker.ts there). */
+const WORKER_URL = '/workers/meter.js';
+
+function inlineEngine(): MeterEngine {
+  const cache = createLightMapCache();
+  const c = inlineClient((job: MeterJob) => computeReadings(job.doc, { stepIndex: job.stepIndex, lightMap: job.lightMap, cache }));
+  return { kind: 'inline', compute: c.run, dispose: c.dispose };
+}
+
+type Reply = { id: number; readings: Readings };
+
+/** A worker engine, falling back to computing in the page if the worker cannot start (say, the dev server,
+ *  which does not serve the worker bundle). */
+function workerEngine(url = WORKER_URL): MeterEngine {
+  const cache = createLightMapCache();
+  const c = workerClient<MeterJob, Readings, Reply>({
+    url,
+    name: 'falloff-meter',
+    inline: (job) => computeReadings(job.doc, { stepIndex: job.stepIndex, lightMap: job.lightMap, cache }),
+    toMessage: (job, id) => ({ id, job }),
+    replyId: (r) => r.id,
+    fromReply: (r) => r.readings,
+  });
+  return {
+    get kind() {
+      return c.kind;
+    },
+    compute: c.run,
+    dispose: c.dispose,
+  };
+}
+
+export function defaultEngine(): MeterEngine {
+  return typeof Worker !== 'undefined' && typeof window !== 'undefined' ? workerEngine() : inlineEngine();
+}

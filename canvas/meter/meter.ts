@@ -1,0 +1,68 @@
+// The live meter: follows the editor's document at its own pace, including a drag under way (the moves a
+// gesture holds beside the document). One job at a time; while it runs, later
+// changes wait and only the newest is sent next, so a drag never queues work and the glyph never waits.
+// When the hand stops (no change for a little while), a result for an older document is not shown: the
+// next one, for the document as it stands, is — so the meter is at most one update behind the glyph.
+import { createStore, type StoreApi } from 'zustand';
+import type { SetupDocument } from '../../model/document';
+import { computeReadings, type Readings } from '../../model/setupReadings';
+import type { Editor } from '../editor/editor';
+import { liveDoc } from '../editor/state';
+import { defaultEngine, type MeterEngine } from './engine';
+
+type MeterState = { readings: Readings; doc: SetupDocument; computing: boolean };
+export type MeterOptions = { lightMap: boolean; stepIndex?: number };
+export type Meter = StoreApi<MeterState> & { setOptions: (o: Partial<MeterOptions>) => void; dispose: () => void; engine: MeterEngine };
+
+/** A change younger than this means the hand is still moving. */
+const SETTLE_MS = 40;
+
+export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEngine = defaultEngine(), now: () => number = () => Date.now()): Meter {
+  let options = opts;
+  const first = liveDoc(editor.getState());
+  // The first reading is computed at once, so the screen opens with numbers.
+  const store = createStore<MeterState>(() => ({ readings: computeReadings(first, options), doc: first, computing: false }));
+  let running = false;
+  let dirty = false;
+  let lastChange = now();
+  let disposed = false;
+
+  const send = () => {
+    if (disposed) return;
+    running = true;
+    dirty = false;
+    const doc = liveDoc(editor.getState());
+    const sent = { options };
+    store.setState({ computing: true });
+    void engine.compute({ doc, lightMap: options.lightMap, stepIndex: options.stepIndex }).then((readings) => {
+      if (disposed) return;
+      running = false;
+      const stale = dirty || sent.options !== options;
+      const handStopped = now() - lastChange >= SETTLE_MS;
+      if (!stale || !handStopped) store.setState({ readings, doc, computing: stale });
+      if (stale) send();
+      else store.setState({ computing: false });
+    });
+  };
+  const changed = () => {
+    lastChange = now();
+    if (running) dirty = true;
+    else send();
+  };
+  const unsubscribe = editor.subscribe((s, prev) => {
+    // A drag's release commits the very document the drag showed last: nothing new to compute.
+    if ((s.doc !== prev.doc || s.drag !== prev.drag) && liveDoc(s) !== liveDoc(prev)) changed();
+  });
+  return Object.assign(store, {
+    engine,
+    setOptions: (o: Partial<MeterOptions>) => {
+      options = { ...options, ...o };
+      changed();
+    },
+    dispose: () => {
+      disposed = true;
+      unsubscribe();
+      engine.dispose();
+    },
+  });
+}

@@ -1,0 +1,47 @@
+// The editor's panels that show the live meter (canvas/meter): they follow its results at once while no
+// gesture is under way and at a readable pace during one (usePaced), so a drag re-renders the dragged glyph,
+// not the meter's text; the last reading shows as soon as the hand lifts.
+import { memo } from 'react';
+import type { MeterResult } from '../../calc';
+import { useEditor, useEditorApi, usePaced, useSettled } from '../../canvas/editor/react';
+import type { Meter } from '../../canvas/meter/meter';
+import type { ItemOf, SetupDocument } from '../../model/document';
+import type { Units } from '../../model/units';
+import type { Readings } from '../../canvas/useReadings';
+import { MeterPanel } from './MeterPanel';
+import { SuggestedPower } from './SuggestedPower';
+
+type MeterState = ReturnType<Meter['getState']>;
+const pairs = new WeakMap<Readings, { readings: Readings; doc: SetupDocument }>();
+/** The readings with the document they were computed for (set together by the meter), as one value. */
+function readingsAndDoc(m: MeterState): { readings: Readings; doc: SetupDocument } {
+  let p = pairs.get(m.readings);
+  if (!p || p.doc !== m.doc) {
+    p = { readings: m.readings, doc: m.doc };
+    pairs.set(m.readings, p);
+  }
+  return p;
+}
+
+/** The light selected on the plan, as it stands when no gesture is under way (the falloff chart). */
+function useSettledLight(): ItemOf<'light'> | null {
+  return useSettled((s) => {
+    const i = s.selection.length === 1 ? s.doc.items.find((x) => x.id === s.selection[0]) : undefined;
+    return i?.kind === 'light' ? (i as ItemOf<'light'>) : null;
+  });
+}
+
+export const LiveMeterPanel = memo(function LiveMeterPanel({ meter, units }: { meter: Meter; units: Units }) {
+  const { readings, doc } = usePaced(meter, readingsAndDoc);
+  const selectedLight = useSettledLight();
+  const editor = useEditorApi();
+  const readOnly = useEditor((st) => st.readOnly);
+  // Reads the document at call time, so the choice never writes back a stale meter block.
+  const onReceptorChange = (receptor: MeterResult['receptor']) => editor.dispatch('updateDocument', { patch: { meter: { ...editor.getState().doc.meter, receptor } } });
+  return <MeterPanel readings={readings} doc={doc} selectedLight={selectedLight} units={units} onReceptorChange={readOnly ? undefined : onReceptorChange} />;
+});
+
+export const LiveSuggestedPower = memo(function LiveSuggestedPower({ meter }: { meter: Meter }) {
+  const result = usePaced(meter, (m) => m.readings.meter);
+  return <SuggestedPower result={result} />;
+});

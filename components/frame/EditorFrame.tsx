@@ -1,0 +1,18 @@
+// The frame view as the editor mounts it: reads the plan from the editor's store, sets the subject's skin
+// tone through the store's update action (so it is saved and undoable like any edit).
+import { useContext } from 'react';
+import { useWindowDimensions } from 'react-native';
+import type { SkinTone } from '../../calc/frame/scene';
+import { EditorContext, useEditor } from '../../canvas/editor/react';
+import { space } from '../../constants/theme';
+import { FrameView } from './FrameView';
+
+export function EditorFrame({ stepIndex, wide, readOnly }: { stepIndex?: number; wide: boolean; readOnly: boolean }) {
+  const store = useContext(EditorContext);
+  const doc = useEditor((s) => s.doc);
+  const { width } = useWindowDimensions();
+  const subject = doc.items.find((i) => i.kind === 'subject');
+  const paneWidth = wide ? 340 - 2 * space.md : Math.min(640, width - 2 * space.md);
+  const onSkinTone = !readOnly && subject && store ? (tone: SkinTone) => store.dispatch('updateItem', { id: subject.id, patch: { skinTone: tone } }) : undefined;
+  return <FrameView doc={doc} stepIndex={stepIndex} paneWidth={paneWidth} onSkinTone={onSkinTone} />;
+}

@@ -1,0 +1,36 @@
+// A screen from components/workspace.ts (or the read-only link's, components/shareScreen.ts), loaded when a
+// route first shows it (see there why they are together). The workspace always loads after the share screen's
+// chunk, which holds what the two share (scripts/chunkTiers.cjs).
+import { Suspense, lazy, type ComponentProps, type ComponentType } from 'react';
+import { Loading } from './Loading';
+
+type Workspace = typeof import('./workspace');
+type ScreenName = { [K in keyof Workspace]: Workspace[K] extends ComponentType<never> ? K : never }[keyof Workspace];
+
+/** The lower tier first, then the workspace: its modules expect the lower tier's to be defined. */
+const loadWorkspace = () => import('./shareScreen').then(() => import('./workspace'));
+
+function suspended<P extends object>(Screen: ComponentType<P>, name: string) {
+  function WorkspaceScreen(props: P) {
+    return (
+      <Suspense fallback={<Loading />}>
+        <Screen {...props} />
+      </Suspense>
+    );
+  }
+  WorkspaceScreen.displayName = `Workspace(${name})`;
+  return WorkspaceScreen;
+}
+
+export function workspaceScreen<K extends ScreenName>(name: K) {
+  type Props = ComponentProps<Workspace[K]> & object;
+  const Screen = lazy(() => loadWorkspace().then((m) => ({ default: m[name] as unknown as ComponentType<Props> })));
+  return suspended<Props>(Screen, name);
+}
+
+/** The read-only link's screen: its own chunk, without the editor's. */
+export function sharedSetupScreen() {
+  type Props = ComponentProps<typeof import('./shareScreen').SharedSetupScreen>;
+  const Screen = lazy(() => import('./shareScreen').then((m) => ({ default: m.SharedSetupScreen })));
+  return suspended<Props>(Screen, 'SharedSetupScreen');
+}

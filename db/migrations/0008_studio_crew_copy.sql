@@ -1,0 +1,1 @@
+ALTER TABLE "studios" ADD COLUMN "crew_may_copy" boolean DEFAULT false NOT NULL;

@@ -1,0 +1,100 @@
+// Outgoing mail through a durable queue in PostgreSQL (pg-boss): `send` stores the message as a job and
+// returns once it is committed; a worker in every server process hands jobs to SMTP and retries with growing
+// delays when the mail server is down or refuses, so mail accepted while SMTP is away goes out when it returns.
+// Delivery is at least once (a process killed between SMTP's "accepted" and the job's completion sends that
+// message again after the job expires); each message carries a Message-ID made from its job id, so a
+// repeat is recognisable as the same message.
+import PgBoss from 'pg-boss';
+import type { Logger } from 'pino';
+import { HttpError } from '../errors';
+import type { Attachment, Mailer, Message } from './mailer';
+
+export const MAIL_QUEUE = 'mail';
+/** Retries with exponential back-off from 2 s: 16 of them cover a mail server away for more than a day. */
+export const MAIL_RETRY = { retryLimit: 16, retryDelay: 2, retryBackoff: true } as const;
+/**
+ * The queue's own statements (and its wait for a connection) end within this: a queue table that is locked or
+ * broken while the rest of the database answers fails a send in seconds (a 503) instead of holding the request.
+ */
+export const MAIL_QUEUE_TIMEOUT_MS = 5_000;
+/** Seconds a client is told to wait before retrying a request whose mail the queue did not take. */
+export const MAIL_QUEUE_RETRY_AFTER_S = 30;
+
+/**
+ * The mail queue did not store a message (its tables unusable, its connection gone). The request that wanted to
+ * send it answers 503 with Retry-After and undoes what it made, so the client's retry starts clean.
+ */
+export class MailQueueUnavailable extends HttpError {
+  constructor(readonly reason: string) {
+    super(503, 'mail_unavailable', `the mail queue cannot take messages just now; nothing was sent or kept, try again in ${MAIL_QUEUE_RETRY_AFTER_S} s`, { retryAfterS: MAIL_QUEUE_RETRY_AFTER_S });
+  }
+}
+
+/** Messages fetched and sent together by one poll of the mail worker. */
+const MAIL_BATCH = 20;
+
+type StoredMessage = Omit<Message, 'attachments'> & { attachments?: (Omit<Attachment, 'content'> & { content: string })[] };
+
+const toStored = (m: Message): StoredMessage => ({ ...m, attachments: m.attachments?.map((a) => ({ ...a, content: a.content.toString('base64') })) });
+const fromStored = (m: StoredMessage): Message => ({ ...m, attachments: m.attachments?.map((a) => ({ ...a, content: Buffer.from(a.content, 'base64') })) });
+
+export type MailQueue = Mailer & { stop: () => Promise<void> };
+
+/**
+ * Start the queue on `databaseUrl` (pg-boss keeps its tables in the `pgboss` schema, made on first start) and
+ * a worker that delivers through `smtp`. Mail is sent from whichever process picks the job up.
+ */
+export async function startMailQueue(o: { databaseUrl: string; smtp: Mailer; logger: Logger; domain?: string }): Promise<MailQueue> {
+  const boss = new PgBoss({
+    connectionString: o.databaseUrl,
+    max: 3,
+    application_name: 'falloff-mail',
+    schedule: false,
+    // node-postgres options, passed through to pg-boss's pool
+    ...({ statement_timeout: MAIL_QUEUE_TIMEOUT_MS, connectionTimeoutMillis: MAIL_QUEUE_TIMEOUT_MS } as object),
+  });
+  // pg-boss reports a lost database connection as an 'error' event: an unhandled one would end the process.
+  boss.on('error', (err) => o.logger.warn({ err: { message: err.message, code: (err as { code?: string }).code } }, 'mail queue: database error'));
+  await boss.start();
+  await boss.createQueue(MAIL_QUEUE, { name: MAIL_QUEUE, ...MAIL_RETRY, expireInSeconds: 120, retentionDays: 7 });
+  const domain = o.domain ?? 'falloff.local';
+  // Up to MAIL_BATCH messages per fetch, sent side by side: a burst (a class's invitations) goes out in
+  // seconds, not one message per poll. A message that fails is failed on its own (pg-boss retries it later);
+  // the batch's completion then only touches the messages still active, i.e. those that went out.
+  const workerId = await boss.work<StoredMessage>(MAIL_QUEUE, { pollingIntervalSeconds: 0.5, batchSize: MAIL_BATCH }, async (jobs) => {
+    await Promise.all(
+      jobs.map(async (job) => {
+        const message = fromStored(job.data);
+        try {
+          await o.smtp.send({ ...message, messageId: `<${job.id}@${domain}>` });
+        } catch (err) {
+          o.logger.warn({ err: { message: (err as Error).message }, jobId: job.id }, 'mail not delivered yet; it will be retried');
+          await boss.fail(MAIL_QUEUE, job.id, { message: (err as Error).message });
+        }
+      }),
+    );
+  });
+  let stopped = false;
+  const stop = async () => {
+    if (stopped) return;
+    stopped = true;
+    await boss.stop({ graceful: true, wait: true, timeout: 5_000 });
+  };
+  return {
+    async send(m) {
+      let id: string | null;
+      try {
+        id = await boss.send(MAIL_QUEUE, toStored(m), MAIL_RETRY);
+      } catch (err) {
+        o.logger.warn({ err: { message: (err as Error).message, code: (err as { code?: string }).code } }, 'mail queue: message not stored');
+        throw new MailQueueUnavailable((err as Error).message);
+      }
+      if (!id) throw new MailQueueUnavailable('the queue returned no job id');
+      // Wake this process's worker now rather than at its next poll.
+      boss.notifyWorker(workerId);
+      return { messageId: id };
+    },
+    close: () => void stop(),
+    stop,
+  };
+}

@@ -1,0 +1,117 @@
+// Serving costs kept small: security headers computed once, the built web app served from files compressed at
+// build time (scripts/ensure.mjs writes .br and .gz beside each text file), with caching by content hash.
+import express, { type RequestHandler } from 'express';
+import helmet from 'helmet';
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import { readdirSync, statSync } from 'node:fs';
+import { extname, join, relative, sep } from 'node:path';
+
+/** helmet's options for the whole app, served at `publicUrl` (the CSP asks browsers to upgrade to https only
+ *  when the app is served over https: over plain http — a LAN address, a test host — it would turn every request
+ *  into a failing https one and leave a blank page). */
+export function helmetOptionsFor(publicUrl?: string): Parameters<typeof helmet>[0] {
+  return {
+    contentSecurityPolicy: {
+      directives: {
+        // Expo's web build inlines a small bootstrap and style tags; react-native-web sets inline styles.
+        'script-src': ["'self'", "'unsafe-inline'"],
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'font-src': ["'self'", 'data:'],
+        'upgrade-insecure-requests': publicUrl?.startsWith('https://') ? [] : null,
+      },
+    },
+  };
+}
+export const helmetOptions = helmetOptionsFor(undefined);
+
+/**
+ * helmet's headers as one precomputed list: helmet is run once against a recording response and its result is
+ * replayed per request (helmet's own chain is about a dozen middleware calls per request). Every header helmet
+ * sets here is the same for every request; a header it would remove is removed.
+ */
+export function securityHeaders(options = helmetOptions): RequestHandler {
+  const set: [string, string | string[]][] = [];
+  const removed: string[] = [];
+  const recorder = {
+    setHeader: (name: string, value: string | string[]) => set.push([name, value]),
+    removeHeader: (name: string) => removed.push(name),
+    getHeader: () => undefined,
+  };
+  let called = false;
+  helmet(options)({} as IncomingMessage, recorder as unknown as ServerResponse, () => (called = true));
+  if (!called) throw new Error('helmet did not finish synchronously: its headers cannot be precomputed');
+  return (_req, res, next) => {
+    for (const [name, value] of set) res.setHeader(name, value);
+    for (const name of removed) res.removeHeader(name);
+    next();
+  };
+}
+
+/** Files whose names carry a content hash (Expo's bundles and assets): cached for a year and never revalidated. */
+export function isHashed(urlPath: string) {
+  return urlPath.startsWith('/_expo/static/') || /\.[0-9a-f]{20,}\.[a-z0-9]+$/i.test(urlPath);
+}
+
+const types: Record<string, string> = {
+  '.js': 'application/javascript; charset=utf-8',
+  '.css': 'text/css; charset=utf-8',
+  '.html': 'text/html; charset=utf-8',
+  '.json': 'application/json; charset=utf-8',
+  '.svg': 'image/svg+xml',
+  '.map': 'application/json; charset=utf-8',
+  '.ttf': 'font/ttf',
+  '.otf': 'font/otf',
+  '.txt': 'text/plain; charset=utf-8',
+  '.webmanifest': 'application/manifest+json; charset=utf-8',
+};
+
+/** Files a browser must ask about every time: the pages and the service worker (a new build's worker replaces
+ *  the old one's precache, so it must never be held back by an HTTP cache). */
+const alwaysRevalidated = (urlPath: string) => urlPath.endsWith('.html') || urlPath === '/sw.js';
+
+/** The URL paths (from the web root) that have a precompressed twin, per encoding. */
+function precompressed(webDir: string) {
+  const found = { br: new Set<string>(), gzip: new Set<string>() };
+  const walk = (dir: string) => {
+    for (const name of readdirSync(dir)) {
+      const p = join(dir, name);
+      if (statSync(p).isDirectory()) walk(p);
+      else if (name.endsWith('.br')) found.br.add(`/${relative(webDir, p.slice(0, -3)).split(sep).join('/')}`);
+      else if (name.endsWith('.gz')) found.gzip.add(`/${relative(webDir, p.slice(0, -3)).split(sep).join('/')}`);
+    }
+  };
+  walk(webDir);
+  return found;
+}
+
+/**
+ * The built web app: precompressed files when the client takes them (Brotli, else gzip), content-hashed files
+ * cached for a year, index.html revalidated every time, everything else for an hour. Paths that are no file
+ * fall through (the caller answers them with the app's HTML).
+ */
+export function webFiles(webDir: string): RequestHandler {
+  const twins = precompressed(webDir);
+  const files = express.static(webDir, {
+    index: false,
+    // The caching headers are set below, per file.
+    cacheControl: false,
+    setHeaders(res, path) {
+      const urlPath = `/${relative(webDir, path).split(sep).join('/')}`.replace(/\.(br|gz)$/, '');
+      res.setHeader('Cache-Control', alwaysRevalidated(urlPath) ? 'no-cache' : isHashed(urlPath) ? 'public, max-age=31536000, immutable' : 'public, max-age=3600');
+    },
+  });
+  return (req, res, next) => {
+    if (req.method !== 'GET' && req.method !== 'HEAD') return next();
+    const path = req.path;
+    const accept = String(req.headers['accept-encoding'] ?? '');
+    const encoding = twins.br.has(path) && /\bbr\b/.test(accept) ? 'br' : twins.gzip.has(path) && /\bgzip\b/.test(accept) ? 'gzip' : null;
+    if (twins.br.has(path) || twins.gzip.has(path)) res.setHeader('Vary', 'Accept-Encoding');
+    if (encoding) {
+      res.setHeader('Content-Type', types[extname(path)] ?? 'application/octet-stream');
+      res.setHeader('Content-Encoding', encoding);
+      req.url = `${path}.${encoding === 'br' ? 'br' : 'gz'}${req.url.slice(path.length)}`;
+    }
+    files(req, res, next);
+  };
+}

@@ -1,0 +1,150 @@
+// A readable CPU profile of a drag in Chromium: `npx tsx tests/bench/editorProfile.ts [phone]` (after
+// scripts/ensure.mjs --test built the web app). It drags a light across the bench's forty-item plan with the
+// DevTools protocol's sampling profiler on, maps every sample of the built bundle back to its source file and
+// function through the source maps in dist-maps/, and prints where the main thread's time went: by package or
+// project folder, by source file, and the heaviest functions (self time). Not part of `npm run bench` (it
+// prints a breakdown, not a figure to track).
+import { readFileSync, existsSync } from 'node:fs';
+import { basename, join } from 'node:path';
+import { TraceMap, originalPositionFor } from '@jridgewell/trace-mapping';
+import { chromium } from 'playwright-core';
+import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { startServer } from '../../server/main';
+import { TEST_DATABASE_URL } from '../support/env';
+import { fortyItems } from './editorPlan';
+
+type CallFrame = { functionName: string; url: string; lineNumber: number; columnNumber: number };
+type ProfileNode = { id: number; callFrame: CallFrame; children?: number[] };
+type Profile = { nodes: ProfileNode[]; samples: number[]; timeDeltas: number[]; startTime: number; endTime: number };
+
+const phone = process.argv.includes('phone');
+const MOVES = 90;
+
+const maps = new Map<string, TraceMap | null>();
+function mapFor(url: string): TraceMap | null {
+  const file = basename(new URL(url, 'http://x').pathname);
+  if (!maps.has(file)) {
+    const p = join('dist-maps', `${file}.map`);
+    maps.set(file, existsSync(p) ? new TraceMap(readFileSync(p, 'utf8')) : null);
+  }
+  return maps.get(file)!;
+}
+
+/** Where a sampled frame comes from: its source file (shortened to package or project path) and function. */
+function place(cf: CallFrame): { file: string; fn: string; group: string } {
+  if (!cf.url) return { file: `(${cf.functionName || 'native'})`, fn: cf.functionName || '(anonymous)', group: `(${cf.functionName || 'native'})` };
+  const m = cf.url.includes('/_expo/') ? mapFor(cf.url) : null;
+  let file = cf.url.replace(/^https?:\/\/[^/]+/, '');
+  let fn = cf.functionName || '(anonymous)';
+  if (m) {
+    const o = originalPositionFor(m, { line: cf.lineNumber + 1, column: cf.columnNumber });
+    if (o.source) file = o.source.replace(/^.*?node_modules\//, 'node_modules/').replace(/^(\.\.\/)+/, '');
+    if (o.name) fn = o.name;
+    fn = `${fn} :${o.line ?? '?'}`;
+  }
+  const pkg = /node_modules\/((?:@[^/]+\/)?[^/]+)/.exec(file);
+  const group = pkg ? pkg[1]! : file.includes('/workers/') ? 'worker bundle' : file.split('/').slice(0, file.startsWith('/') ? 2 : 1).join('/');
+  return { file, fn, group };
+}
+
+async function main() {
+  const server = await startServer({ databaseUrl: TEST_DATABASE_URL, port: 0, logLevel: 'error' });
+  const browser = await chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+  try {
+    const viewport = phone ? { width: 390, height: 844 } : { width: 1440, height: 900 };
+    const context = await browser.newContext({ viewport });
+    const origin = { origin: server.url };
+    await context.request.post(`${server.url}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: origin });
+    const res = await context.request.post(`${server.url}/api/setups`, { data: { title: 'Profile: forty items', document: fortyItems() }, headers: origin });
+    const { id } = (await res.json()) as { id: string };
+    const page = await context.newPage();
+    await page.goto(`${server.url}/setups/${id}`);
+    await page.getByTestId('item-l0').waitFor();
+    await page.getByRole('button', { name: 'Snapping on' }).click();
+    await page.waitForTimeout(1500);
+    const cdp = await context.newCDPSession(page);
+    if (phone) await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
+    const send = (m: Record<string, unknown>) => cdp.send('Input.dispatchMouseEvent', m as never);
+    const box = (await page.getByTestId('item-l0').boundingBox())!;
+    const start = { x: box.x + box.width / 2, y: box.y + box.height / 2 };
+    // A first press and short drag selects the light (so the profiled drag is of a selected light, as in use).
+    await send({ type: 'mouseMoved', x: start.x, y: start.y, button: 'none' });
+    await send({ type: 'mousePressed', x: start.x, y: start.y, button: 'left', buttons: 1, clickCount: 1 });
+    for (let k = 1; k <= 10; k++) await send({ type: 'mouseMoved', x: start.x + k, y: start.y, button: 'left', buttons: 1 });
+    await send({ type: 'mouseReleased', x: start.x + 10, y: start.y, button: 'left', buttons: 0, clickCount: 1 });
+    await page.waitForTimeout(1500);
+    await cdp.send('Profiler.enable');
+    await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
+    await cdp.send('Profiler.start');
+    const from = { x: start.x + 10, y: start.y };
+    await send({ type: 'mousePressed', x: from.x, y: from.y, button: 'left', buttons: 1, clickCount: 1 });
+    const t0 = Date.now();
+    const inFlight: Promise<unknown>[] = [];
+    for (let k = 1; k <= MOVES; k++) {
+      const wait = t0 + (k * 1000) / 60 - Date.now();
+      if (wait > 0) await new Promise((r) => setTimeout(r, wait));
+      inFlight.push(send({ type: 'mouseMoved', x: from.x - k * 3, y: from.y - k * 1.5, button: 'left', buttons: 1 }));
+    }
+    await Promise.all(inFlight);
+    await send({ type: 'mouseReleased', x: from.x - MOVES * 3, y: from.y - MOVES * 1.5, button: 'left', buttons: 0, clickCount: 1 });
+    await page.waitForTimeout(1000);
+    const { profile } = (await cdp.send('Profiler.stop')) as unknown as { profile: Profile };
+
+    const byId = new Map(profile.nodes.map((n) => [n.id, n]));
+    const self = new Map<number, number>();
+    profile.samples.forEach((id, k) => self.set(id, (self.get(id) ?? 0) + (profile.timeDeltas[k] ?? 0) / 1000));
+    const total = (profile.endTime - profile.startTime) / 1000;
+    const groups = new Map<string, number>();
+    const files = new Map<string, number>();
+    const fns = new Map<string, number>();
+    let busy = 0;
+    for (const [id, ms] of self) {
+      const cf = byId.get(id)!.callFrame;
+      if (cf.functionName === '(idle)' || cf.functionName === '(program)') continue;
+      busy += ms;
+      const p = place(cf);
+      groups.set(p.group, (groups.get(p.group) ?? 0) + ms);
+      files.set(p.file, (files.get(p.file) ?? 0) + ms);
+      fns.set(`${p.fn}  ${p.file}`, (fns.get(`${p.fn}  ${p.file}`) ?? 0) + ms);
+    }
+    // Inclusive time of the project's own functions (components show up here with all they render).
+    const parent = new Map<number, number>();
+    for (const n of profile.nodes) for (const c of n.children ?? []) parent.set(c, n.id);
+    const inclusive = new Map<string, number>();
+    for (const [id, ms] of self) {
+      const seen = new Set<string>();
+      for (let n: number | undefined = id; n !== undefined; n = parent.get(n)) {
+        const cf = byId.get(n)!.callFrame;
+        if (!cf.url.includes('/_expo/')) continue;
+        const p = place(cf);
+        if (p.file.includes('node_modules/')) continue;
+        const key = `${p.fn}  ${p.file}`;
+        if (seen.has(key)) continue;
+        seen.add(key);
+        inclusive.set(key, (inclusive.get(key) ?? 0) + ms);
+      }
+    }
+    const top = (m: Map<string, number>, n: number) =>
+      [...m]
+        .sort((a, b) => b[1] - a[1])
+        .slice(0, n)
+        .map(([k, v]) => `  ${v.toFixed(0).padStart(6)} ms ${((100 * v) / busy).toFixed(1).padStart(5)} %  ${k}`)
+        .join('\n');
+    console.log(`${phone ? 'phone (CPU 4× slower)' : 'desktop'}: ${MOVES} moves; profile ${total.toFixed(0)} ms, JS busy ${busy.toFixed(0)} ms (${(busy / MOVES).toFixed(1)} ms a move)`);
+    console.log(`by package / folder:\n${top(groups, 15)}`);
+    console.log(`by file:\n${top(files, 25)}`);
+    console.log(`by function (self):\n${top(fns, 40)}`);
+    console.log(`project functions (inclusive):\n${top(inclusive, 40)}`);
+  } finally {
+    await browser.close();
+    await server.close();
+  }
+}
+
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});

@@ -1,0 +1,149 @@
+// A drag re-renders what the hand moves — the dragged item's glyph, its beam and the handles — and nothing
+// else: not the other items, not the inspector, and the meter's text at most at its readable pace (usePaced)
+// however fast the meter's results come. And the plan hands the editor at most one pointer move a frame.
+import { act, render } from '@testing-library/react-native';
+import { Profiler, type ProfilerOnRenderCallback } from 'react';
+import { fireGestureHandler, getByGestureTestId } from 'react-native-gesture-handler/jest-utils';
+import { State } from 'react-native-gesture-handler';
+import { createEditor, type Editor } from '../../canvas/editor/editor';
+import { toScreen } from '../../canvas/editor/camera';
+import { EditorContext, PANEL_PACE_MS } from '../../canvas/editor/react';
+import { createMeter, type Meter } from '../../canvas/meter/meter';
+import { PlanCanvas, type LightMapSource } from '../../canvas/PlanCanvas';
+import { graphiteTheme } from '../../canvas/views';
+import { Inspector } from '../../components/editor/Inspector';
+import { LiveMeterPanel, LiveSuggestedPower } from '../../components/editor/LiveMeter';
+import { demoSetups } from '../../db/seed-setups';
+
+// Every glyph drawn, by item id (the plan draws each item through ItemView).
+const glyphRenders = vi.hoisted(() => new Map<string, number>());
+vi.mock('../../canvas/views', async (importOriginal) => {
+  const views = await importOriginal<typeof import('../../canvas/views')>();
+  const { createElement } = await import('react');
+  const Counted = (p: Parameters<typeof views.ItemView>[0]) => {
+    glyphRenders.set(p.item.id, (glyphRenders.get(p.item.id) ?? 0) + 1);
+    return createElement(views.ItemView, p);
+  };
+  return { ...views, ItemView: Counted };
+});
+
+const twinRims = demoSetups.find((d) => d.title.startsWith('Twin rims'))!.document;
+
+function mount() {
+  const editor = createEditor(twinRims);
+  editor.dispatch('setViewport', { w: 900, h: 700 });
+  editor.dispatch('toggleSnap');
+  editor.dispatch('select', { ids: ['rimR'] });
+  const meter = createMeter(editor, { lightMap: true });
+  const renders = new Map<string, number>();
+  const counted: ProfilerOnRenderCallback = (id) => renders.set(id, (renders.get(id) ?? 0) + 1);
+  const map: LightMapSource = { get: () => meter.getState().readings.map, subscribe: (f) => meter.subscribe(f) };
+  const view = render(
+    <EditorContext.Provider value={editor}>
+      <Profiler id="inspector" onRender={counted}>
+        <Inspector units="metric" />
+      </Profiler>
+      <Profiler id="meter" onRender={counted}>
+        <LiveMeterPanel meter={meter} units="metric" />
+      </Profiler>
+      <Profiler id="suggested" onRender={counted}>
+        <LiveSuggestedPower meter={meter} />
+      </Profiler>
+      <PlanCanvas theme={graphiteTheme} units="metric" lightMap={map} />
+    </EditorContext.Provider>,
+  );
+  return { editor, meter, renders, view };
+}
+
+const at = (editor: Editor, id: string) => {
+  const s = editor.getState();
+  const i = s.doc.items.find((x) => x.id === id) as { x: number; y: number };
+  return toScreen(s.camera!, { x: i.x, y: i.y });
+};
+
+describe('a drag on the plan', () => {
+  let meter: Meter | null = null;
+  beforeEach(() => {
+    vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date'] });
+    glyphRenders.clear();
+  });
+  afterEach(() => {
+    meter?.dispose();
+    meter = null;
+    vi.useRealTimers();
+  });
+
+  it('re-renders the dragged glyph only; the inspector holds and the meter text follows at its pace', async () => {
+    const m = mount();
+    meter = m.meter;
+    const { editor, renders } = m;
+    await act(async () => vi.advanceTimersByTime(50));
+    glyphRenders.clear();
+    renders.clear();
+    const from = at(editor, 'rimR');
+    const MOVES = 20;
+    act(() => editor.pointer.down({ screen: from, pointer: 'mouse' }));
+    for (let k = 1; k <= MOVES; k++) {
+      // Each move is followed by the meter's result for it (the inline engine answers after the current task).
+      await act(async () => {
+        editor.pointer.move({ screen: { x: from.x - 4 * k, y: from.y + 2 * k }, pointer: 'mouse' });
+        await vi.advanceTimersByTimeAsync(5);
+      });
+    }
+    // The meter did follow the hand (it is not simply idle)…
+    expect(editor.getState().drag?.items.get('rimR')).toBeTruthy();
+    expect(m.meter.getState().doc.items.find((i) => i.id === 'rimR')).not.toBe(twinRims.items.find((i) => i.id === 'rimR'));
+    // …but within one pace the meter's text re-rendered at most once, the inspector not at all.
+    expect(MOVES * 5).toBeLessThan(PANEL_PACE_MS);
+    expect(renders.get('meter') ?? 0).toBeLessThanOrEqual(1);
+    expect(renders.get('suggested') ?? 0).toBeLessThanOrEqual(1);
+    expect(renders.get('inspector') ?? 0).toBe(0);
+    // The dragged glyph followed every move; no other glyph was drawn again.
+    expect(glyphRenders.get('rimR')).toBeGreaterThanOrEqual(MOVES);
+    expect([...glyphRenders.keys()]).toEqual(['rimR']);
+
+    // On release the panels catch up at once with the document as it now stands.
+    const before = { meter: renders.get('meter') ?? 0, inspector: renders.get('inspector') ?? 0 };
+    await act(async () => {
+      editor.pointer.up({ screen: { x: from.x - 4 * MOVES, y: from.y + 2 * MOVES }, pointer: 'mouse' });
+      await vi.advanceTimersByTimeAsync(50);
+    });
+    expect(renders.get('inspector') ?? 0).toBeGreaterThan(before.inspector);
+    expect(renders.get('meter') ?? 0).toBeGreaterThan(before.meter);
+    expect(m.view.getByTestId('meter-light-rimR')).toBeOnTheScreen();
+    expect([...glyphRenders.keys()]).toEqual(['rimR']);
+  });
+
+  it('hands the editor at most one pointer move a frame: the newest', async () => {
+    const m = mount();
+    meter = m.meter;
+    const { editor } = m;
+    await act(async () => vi.advanceTimersByTime(50));
+    const from = at(editor, 'rimL');
+    const moves: { x: number; y: number }[] = [];
+    const move = editor.pointer.move;
+    editor.pointer.move = (e) => {
+      moves.push(e.screen);
+      move(e);
+    };
+    // One gesture delivered within one frame: the start, three moves, the release.
+    act(() => {
+      fireGestureHandler(getByGestureTestId('plan-drag'), [
+        { state: State.BEGAN, x: from.x, y: from.y },
+        { state: State.ACTIVE, x: from.x + 5, y: from.y },
+        { x: from.x + 10, y: from.y },
+        { x: from.x + 15, y: from.y },
+        { x: from.x + 20, y: from.y },
+        { state: State.END, x: from.x + 30, y: from.y },
+      ]);
+    });
+    // The start places the item under the hand at once; the moves within the frame wait and are replaced by
+    // the release's, which never waits for a frame.
+    expect(moves).toEqual([
+      { x: from.x + 5, y: from.y },
+      { x: from.x + 30, y: from.y },
+    ]);
+    await act(async () => vi.advanceTimersByTimeAsync(20));
+    expect(moves).toHaveLength(2);
+  });
+});

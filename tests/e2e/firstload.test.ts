@@ -1,0 +1,107 @@
+// What the first load of a page asks for, in Chromium against the built app: the sign-in page shows its form
+// and asks for the session while its fonts are still on the way (held back here for as long as the test
+// likes); it downloads no plan screen, no reanimated and no gesture handler (checked against the build's source
+// maps); its fonts are WOFF2 subsets, a few tens of kilobytes each, declared with font-display: swap. A read-only
+// link loads the plan in a chunk of its own (components/shareScreen.ts), not the editor's workspace chunk.
+import { existsSync, readFileSync } from 'node:fs';
+import { basename, join } from 'node:path';
+import { describe, expect, inject, it } from 'vitest';
+import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { Client } from '../support/http';
+import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
+
+const base = inject('baseUrl');
+const browser = sharedBrowser();
+const root = join(__dirname, '..', '..');
+
+/** The source files (from the build's source maps, dist-maps/) that the given script URLs were built from. */
+function sourcesOf(scriptPaths: string[]): string[] {
+  const out: string[] = [];
+  for (const p of scriptPaths) {
+    const map = join(root, 'dist-maps', `${basename(p)}.map`);
+    if (!existsSync(map)) throw new Error(`no source map for ${p} in dist-maps/ (the web build keeps them there)`);
+    out.push(...(JSON.parse(readFileSync(map, 'utf8')) as { sources: string[] }).sources);
+  }
+  return out;
+}
+
+describe('first load', () => {
+  it('shows the sign-in form and asks for the session before any font arrives, without the plan screens', async () => {
+    const context = await browser().newContext({ viewport: viewports.phone, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    // Fonts are held until the test lets them go.
+    let release!: () => void;
+    const fontsHeld = new Promise<void>((r) => (release = r));
+    const fontUrls: string[] = [];
+    await page.route(/\.(woff2|ttf|otf)(\?|$)/, async (route) => {
+      fontUrls.push(new URL(route.request().url()).pathname);
+      await fontsHeld;
+      await route.continue();
+    });
+    const scripts: string[] = [];
+    let sessionAsked = false;
+    page.on('request', (r) => {
+      if (r.resourceType() === 'script') scripts.push(new URL(r.url()).pathname);
+      if (new URL(r.url()).pathname.startsWith('/api/auth/get-session')) sessionAsked = true;
+    });
+
+    // Not until 'load': the held preloads keep the load event back, which is the point.
+    await page.goto(`${base}/sign-in`, { waitUntil: 'commit' });
+    await expect.poll(() => page.getByLabel('E-mail').isVisible(), { timeout: 30_000 }).toBe(true);
+    await expect.poll(() => sessionAsked, { timeout: 30_000 }).toBe(true);
+    // Still held: the form did not wait for them.
+    expect(fontUrls.length).toBeGreaterThan(0);
+    release();
+    // (A screenshot waits for the fonts, so it is taken once they are let go.)
+    await shot(page, 'firstload-sign-in');
+
+    // The fonts: WOFF2 only, each a subset of a few tens of kilobytes, swapped in (never hiding text).
+    expect(fontUrls.every((u) => u.endsWith('.woff2'))).toBe(true);
+    const html = await (await fetch(`${base}/sign-in`)).text();
+    expect(html).toContain('font-display:swap');
+    expect(html).toMatch(/<link rel="preload" href="\/fonts\/IBMPlexSans_400Regular\.[0-9a-f]{20}\.woff2" as="font" type="font\/woff2" crossorigin>/);
+    for (const u of new Set(fontUrls)) {
+      const bytes = (await (await fetch(base + u)).arrayBuffer()).byteLength;
+      expect(bytes, u).toBeLessThan(40 * 1024);
+    }
+
+    // What the page's scripts were built from: no plan, editor, classes or crew screens, no reanimated, no
+    // gesture handler, no colour science, no setup document model (react-native-svg stays: the icons use it).
+    await expect.poll(() => page.getByRole('button', { name: 'Sign in' }).isVisible()).toBe(true);
+    expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
+    const sources = sourcesOf(scripts);
+    expect(sources.length).toBeGreaterThan(100);
+    for (const heavy of ['react-native-reanimated', 'react-native-gesture-handler', 'node_modules/culori', '/components/editor/', '/components/classes/', '/components/crew/', '/components/photos/', '/canvas/PlanCanvas', '/model/document.ts', '/calc/', 'zod/v4/locales/index']) {
+      // (The editor's small form fields serve the account page too.)
+      expect(sources.filter((s) => s.includes(heavy) && !s.endsWith('/components/editor/fields.tsx')), heavy).toEqual([]);
+    }
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('loads the read-only plan with a link, without the editor’s chunk', async () => {
+    const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
+    const setup = (await owner.get<{ setups: { id: string }[] }>('/api/setups')).body.setups[0]!;
+    const made = await owner.post<{ url: string }>(`/api/setups/${setup.id}/shares`, { label: 'First load test' });
+    expect(made.status).toBe(201);
+    const context = await browser().newContext({ viewport: viewports.phone, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    const scripts: string[] = [];
+    page.on('request', (r) => r.resourceType() === 'script' && scripts.push(new URL(r.url()).pathname));
+    await page.goto(new URL(new URL(made.body.url).pathname, base).href);
+    await expect.poll(() => page.getByTestId('shared-camera').isVisible(), { timeout: 30_000 }).toBe(true);
+    expect(await page.getByTestId('shared-plan').locator('svg').count()).toBeGreaterThan(0);
+    // Its own chunk (the plan, the meter, the document model), not the editor's workspace chunk.
+    expect(scripts.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
+    // (The meter's and the frame's workers, bundled apart from the app, have no map there.)
+    const sources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
+    for (const heavy of ['/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/']) {
+      expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
+    }
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});

@@ -1,0 +1,154 @@
+// Without signal, in Chromium against the built app and its service worker: a kept setup opens after a reload
+// with the network cut (still signed in), its crew sheet downloads from the device, an edit waits in the queue
+// ("Offline — 1 change waiting") through another reload, leaving warns, and on reconnect the edit reaches the
+// database through the normal save.
+import { readFileSync } from 'node:fs';
+import pg from 'pg';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, describe, expect, inject, it } from 'vitest';
+import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
+import { TEST_DATABASE_URL } from '../support/env';
+
+const base = inject('baseUrl');
+const browser = sharedBrowser();
+const db = new pg.Client({ connectionString: TEST_DATABASE_URL });
+let dbOpen: Promise<unknown> | null = null;
+afterAll(async () => {
+  if (dbOpen) await db.end();
+});
+
+const doc = {
+  schemaVersion: 1,
+  stage: { widthM: 6, depthM: 5 },
+  items: [
+    { id: 'sub', kind: 'subject', x: 3, y: 2, facingDeg: 90 },
+    { id: 'key', kind: 'light', x: 3, y: 3.2, aimDeg: -90, source: { type: 'strobe', energyWs: 400 } },
+    { id: 'cam', kind: 'camera', x: 3, y: 4.5, aimDeg: -90 },
+  ],
+};
+
+async function storedKeyX(id: string): Promise<number> {
+  dbOpen ??= db.connect();
+  await dbOpen;
+  const r = await db.query<{ document: { items: { id: string; x: number }[] } }>('select document from setups where id = $1', [id]);
+  return r.rows[0]!.document.items.find((i) => i.id === 'key')!.x;
+}
+
+async function signedInContext(viewport: { width: number; height: number }): Promise<BrowserContext> {
+  const ctx = await browser().newContext({ viewport, acceptDownloads: true });
+  const r = await ctx.request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: { origin: base } });
+  expect(r.status()).toBe(200);
+  return ctx;
+}
+
+async function newSetup(ctx: BrowserContext, title: string): Promise<string> {
+  const me = await (await ctx.request.get(`${base}/api/me`)).json();
+  const studioId = me.studios.find((s: { personal: boolean }) => !s.personal).id;
+  const made = await ctx.request.post(`${base}/api/setups`, { data: { studioId, title, document: doc }, headers: { origin: base } });
+  expect(made.status()).toBe(201);
+  return ((await made.json()) as { id: string }).id;
+}
+
+/** Open the page and wait until the service worker controls it (its first visit installs the worker). */
+async function openControlled(page: Page, url: string) {
+  await page.goto(url);
+  await expect.poll(() => page.evaluate(() => navigator.serviceWorker?.controller !== null && navigator.serviceWorker?.controller !== undefined), { timeout: 60_000, interval: 500 }).toBe(true);
+  // From now on every answer goes through the worker (and is kept as it says).
+  await page.reload();
+}
+
+const saveState = (page: Page) => page.getByTestId('save-state').innerText();
+
+describe('without signal', () => {
+  it('opens a kept setup and its crew sheet offline, queues an edit and saves it on reconnect', async () => {
+    const ctx = await signedInContext(viewports.wide);
+    const id = await newSetup(ctx, 'Basement dance studio — rig');
+    const neverOpened = await newSetup(ctx, 'Never opened on this phone');
+    const page = await ctx.newPage();
+    const errors = watchErrors(page);
+    await openControlled(page, `${base}/setups/${id}`);
+    await page.getByTestId('item-key').waitFor({ timeout: 30_000 });
+
+    // Keep it offline from its crew sheet panel (on a wide screen, in the right-hand column).
+    await page.getByTestId('keep-offline').click();
+    await expect.poll(() => page.getByTestId('keep-offline-note').innerText(), { timeout: 30_000 }).toMatch(/^On this device since/);
+
+    // The signal goes; a reload still opens the setup, signed in.
+    await ctx.setOffline(true);
+    await page.reload();
+    await page.getByTestId('item-key').waitFor({ timeout: 30_000 });
+    expect(page.url()).toContain(`/setups/${id}`);
+    await expect.poll(() => saveState(page), { timeout: 10_000 }).toBe('Offline — nothing waiting');
+    // Really without signal, the worker included: a setup never opened here cannot be fetched.
+    const fetched = (u: string) => page.evaluate((url) => fetch(url).then((r) => r.status, () => 'failed'), u);
+    expect(await fetched(`/api/setups/${neverOpened}`)).toBe('failed');
+    expect(await fetched(`/api/setups/${id}`)).toBe(200);
+
+    // The crew sheet comes from the device.
+    const [download] = await Promise.all([page.waitForEvent('download', { timeout: 30_000 }), page.getByTestId('download-pdf').click()]);
+    const pdf = readFileSync((await download.path())!);
+    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    await shot(page, 'offline-wide-kept');
+
+    // An edit waits on the device.
+    const key = (await page.getByTestId('item-key').boundingBox())!;
+    await page.mouse.click(key.x + key.width / 2, key.y + key.height / 2);
+    await page.keyboard.press('ArrowRight');
+    await expect.poll(() => saveState(page), { timeout: 15_000 }).toBe('Offline — 1 change waiting');
+    await shot(page, 'offline-wide-waiting');
+
+    // Reloading warns first, and the edit survives it.
+    const dialogs: string[] = [];
+    page.on('dialog', (d) => {
+      dialogs.push(d.type());
+      void (d.type() === 'beforeunload' ? d.accept() : d.dismiss());
+    });
+    await page.reload();
+    expect(dialogs).toContain('beforeunload');
+    await page.getByTestId('item-key').waitFor({ timeout: 30_000 });
+    await expect.poll(() => saveState(page), { timeout: 15_000 }).toBe('Offline — 1 change waiting');
+    // The way back asks too (dismissed: we stay).
+    await page.getByLabel('Back to setups').click();
+    await expect.poll(() => dialogs.filter((t) => t === 'confirm').length).toBe(1);
+    expect(page.url()).toContain(`/setups/${id}`);
+    expect(await storedKeyX(id)).toBe(3);
+
+    // The signal returns: the edit is saved through the normal save.
+    await ctx.setOffline(false);
+    await expect.poll(() => storedKeyX(id), { timeout: 30_000, interval: 500 }).toBeCloseTo(3.1);
+    await expect.poll(() => saveState(page), { timeout: 15_000 }).toBe('Saved');
+    expect(errors).toEqual([]);
+    await ctx.close();
+  });
+
+  it('shows the offline state on a phone, in the library and in the editor', async () => {
+    const ctx = await signedInContext(viewports.phone);
+    const id = await newSetup(ctx, 'Rooftop without signal');
+    const page = await ctx.newPage();
+    await openControlled(page, `${base}/setups`);
+    await page.getByText('Rooftop without signal').first().waitFor({ timeout: 30_000 });
+    await page.goto(`${base}/setups/${id}`);
+    await page.getByTestId('item-key').waitFor({ timeout: 30_000 });
+    await ctx.setOffline(true);
+    await page.reload();
+    await page.getByTestId('item-key').waitFor({ timeout: 30_000 });
+    const key = (await page.getByTestId('item-key').boundingBox())!;
+    await page.mouse.click(key.x + key.width / 2, key.y + key.height / 2);
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('ArrowRight');
+    await expect.poll(() => saveState(page), { timeout: 15_000 }).toBe('Offline — 2 changes waiting');
+    await shot(page, 'offline-phone-editor');
+    // The library says so too (the list seen last is kept).
+    page.on('dialog', (d) => void d.accept());
+    await page.getByLabel('Back to setups').click();
+    await expect.poll(() => page.getByTestId('offline-banner').innerText(), { timeout: 15_000 }).toContain('Offline — 2 changes waiting');
+    await page.getByText('Rooftop without signal').first().waitFor({ timeout: 15_000 });
+    await shot(page, 'offline-phone-library');
+    // Back online, the library's queue sends them (no editor open).
+    await ctx.setOffline(false);
+    await expect.poll(() => storedKeyX(id), { timeout: 30_000, interval: 500 }).toBeCloseTo(3.2);
+    await expect.poll(() => page.getByTestId('offline-banner').count(), { timeout: 15_000 }).toBe(0);
+    await ctx.close();
+  });
+});

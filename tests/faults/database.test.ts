@@ -1,0 +1,104 @@
+// PostgreSQL stops during traffic and comes back: the server (its own process) never exits, answers 503 with
+// Retry-After and a JSON error meanwhile (never a 500), and serves again within a few seconds of the return.
+import { afterAll, beforeAll, expect, test } from 'vitest';
+import { recordFigure } from '../support/redteam';
+import { startChildServer, type ChildServer } from '../support/child';
+import { Client, freshEmail } from '../support/http';
+import { clusterRunning, startCluster, stopCluster } from '../support/pg';
+
+let server: ChildServer;
+
+beforeAll(async () => {
+  startCluster();
+  server = await startChildServer();
+});
+
+afterAll(async () => {
+  // Whatever happened above, the cluster runs again for whatever comes next.
+  startCluster();
+  await server?.stop();
+});
+
+type Hit = { at: number; what: string; status: number; retryAfter: string | null; json: boolean; code?: string };
+
+test('a database restart during traffic: 503s with Retry-After, no 500, no exit, back within seconds', async () => {
+  const user = await new Client(server.url).signUp('Fault Tester', freshEmail('fault'), 'a fine long password');
+  const created = await user.post('/api/setups', { title: 'Survives a restart' });
+  expect(created.status).toBe(201);
+  const anon = new Client(server.url);
+
+  const hits: Hit[] = [];
+  const t0 = Date.now();
+  const probe = async (what: string, run: () => Promise<{ status: number; body: unknown; headers: Headers }>) => {
+    try {
+      const r = await run();
+      const body = r.body as { error?: { code?: string } } | null;
+      hits.push({ at: Date.now() - t0, what, status: r.status, retryAfter: r.headers.get('retry-after'), json: typeof r.body === 'object' && r.body !== null, code: body?.error?.code });
+    } catch {
+      hits.push({ at: Date.now() - t0, what, status: 0, retryAfter: null, json: false }); // connection refused: the process is gone
+    }
+  };
+  let running = true;
+  const traffic = (async () => {
+    while (running) {
+      await Promise.all([
+        probe('health', () => anon.get('/api/health')),
+        probe('list', () => user.get('/api/setups')),
+        probe('read', () => user.get(`/api/setups/${created.body.id}`)),
+        probe('session', () => user.get('/api/auth/get-session')),
+        probe('sign-in', () => anon.post('/api/auth/sign-in/email', { email: freshEmail('nobody'), password: 'not the password' })),
+        probe('sign-up', () => anon.post('/api/auth/sign-up/email', { name: 'Late', email: freshEmail('late'), password: 'a fine long password' })),
+      ]);
+      await new Promise((r) => setTimeout(r, 100));
+    }
+  })();
+
+  let restartedAt = 0;
+  try {
+    await new Promise((r) => setTimeout(r, 600));
+    const stoppedAt = Date.now() - t0;
+    stopCluster();
+    expect(clusterRunning()).toBe(false);
+    await new Promise((r) => setTimeout(r, 4_000));
+    expect(server.exited()).toBe(false);
+    const downFrom = Date.now() - t0 - 3_000; // the last 3 s with the database surely gone
+    startCluster();
+    restartedAt = Date.now() - t0;
+
+    // Back: the first moment every kind of request succeeds again.
+    let backAt = 0;
+    for (let i = 0; i < 300 && !backAt; i++) {
+      const [h, l, s] = await Promise.all([anon.get('/api/health'), user.get('/api/setups'), user.get('/api/auth/get-session')]);
+      if (h.status === 200 && l.status === 200 && s.status === 200 && s.body?.user) backAt = Date.now() - t0;
+      else await new Promise((r) => setTimeout(r, 100));
+    }
+    running = false;
+    await traffic;
+
+    const recovery = (backAt - restartedAt) / 1000;
+    console.log(`[faults] database stopped at ${stoppedAt} ms, started at ${restartedAt} ms, serving again ${recovery.toFixed(2)} s after its return; ${hits.length} requests`);
+    expect(backAt, 'the server never served again').toBeGreaterThan(0);
+    recordFigure('dbRecovery', `${recovery.toFixed(2)} s`, 'tests/faults/database.test.ts: pg_ctl stop -m fast during traffic, start again; first 200 after the start');
+    expect(recovery).toBeLessThan(5);
+
+    expect(server.exited(), server.stderr()).toBe(false);
+    expect(hits.filter((h) => h.status === 0), 'requests refused: the process went away').toEqual([]);
+    expect(hits.filter((h) => h.status >= 500 && h.status !== 503), 'a 5xx other than 503').toEqual([]);
+    const down = hits.filter((h) => h.at >= downFrom && h.at < restartedAt);
+    expect(down.length).toBeGreaterThan(20);
+    for (const h of down) {
+      expect(h, `${h.what} while the database was down`).toMatchObject({ status: 503, json: true });
+      expect(Number(h.retryAfter), `${h.what}: Retry-After`).toBeGreaterThan(0);
+      if (h.what !== 'health') expect(h.code).toBe('database_unavailable');
+    }
+    // A signed-in user was never told to sign in again.
+    expect(hits.filter((h) => h.what !== 'sign-in' && h.status === 401)).toEqual([]);
+  } finally {
+    running = false;
+    await traffic;
+    startCluster();
+  }
+  // And the data is all there.
+  const again = await user.get(`/api/setups/${created.body.id}`);
+  expect(again.status).toBe(200);
+}, 120_000);

@@ -1,0 +1,83 @@
+import { describe, expect, it } from 'vitest';
+import { type LightInput, type SceneInput, meter, parseScene } from '../../../calc';
+import { buildPatches, buildOccluders, prepareLight } from '../../../calc/flatScene';
+import { buildRoom, resetRoomCache } from '../../../calc/room';
+import { BEAM_TAIL_HALF_ANGLES, patchIncident } from '../../../calc/transport';
+
+// An invented small room: three walls, floor and ceiling, a softbox key, a gridded kicker, a snooted wall light.
+const lights: LightInput[] = [
+  { id: 'key', kind: 'flash', x: 3.2, y: 1.2, heightM: 2, aimDeg: 160, tiltDeg: -15, output: { type: 'energy', ratedWs: 400 }, modifier: 'softbox', role: 'key' },
+  { id: 'kick', kind: 'flash', x: 0.8, y: 1.2, heightM: 1.8, aimDeg: 20, tiltDeg: -5, output: { type: 'energy', ratedWs: 200 }, modifier: 'grid-20', role: 'kicker' },
+  { id: 'wash', kind: 'flash', x: 1.5, y: 3.2, heightM: 1.2, aimDeg: 180, output: { type: 'energy', ratedWs: 200 }, modifier: 'snoot', gel: 'full-cto', role: 'background' },
+];
+const room: SceneInput = {
+  lights,
+  surfaces: [
+    { id: 'back', x1: 0, y1: 0, x2: 0, y2: 4, colour: '#9aa4b0' },
+    { id: 'side', x1: 0, y1: 4, x2: 5, y2: 4, colour: '#e8e4dc' },
+    { id: 'far', x1: 5, y1: 4, x2: 5, y2: 0, colour: '#d0d0d0' },
+  ],
+  floor: { x1: 0, y1: 0, x2: 5, y2: 4 },
+  ceiling: { heightM: 2.8 },
+  subject: { x: 1.8, y: 2, heightM: 1.5, facingDeg: 0 },
+  camera: { x: 4.5, y: 2, heightM: 1.5, aimDeg: 180, aperture: 8, shutterS: 1 / 160, iso: 100 },
+  options: { receptor: 'dome-camera' },
+};
+
+describe('the room cache (speed) gives the answers of a fresh computation', () => {
+  it('after one light moves, after a light changes power and after a wall changes colour', () => {
+    resetRoomCache();
+    meter(room);
+    const steps: SceneInput[] = [
+      { ...room, lights: lights.map((l) => (l.id === 'kick' ? { ...l, x: 0.9, y: 1.1 } : l)) },
+      { ...room, lights: lights.map((l) => (l.id === 'key' ? { ...l, powerFraction: 0.5 } : l)) },
+      { ...room, surfaces: room.surfaces!.map((s) => (s.id === 'side' ? { ...s, colour: '#604030' } : s)) },
+      room,
+    ];
+    for (const s of steps) {
+      const cached = meter(s);
+      resetRoomCache();
+      const fresh = meter(s);
+      expect(cached).toEqual(fresh);
+    }
+  });
+
+  it('later bounces only add light: each light total luminance is its first bounce plus what comes back', () => {
+    resetRoomCache();
+    const s = parseScene(room);
+    const r = buildRoom(s);
+    // Bounce-by-bounce on the same coarse system is what the transfer replaces; check energy bookkeeping instead:
+    // every light's total luminance is at least its first bounce, and strictly more somewhere (light comes back).
+    for (let l = 0; l < r.lights.length; l++) {
+      let more = false;
+      for (let q = 0; q < r.lum[l]!.length; q++) {
+        expect(r.lum[l]![q]!).toBeGreaterThanOrEqual(r.lumFirst[l]![q]! - 1e-12);
+        if (r.lum[l]![q]! > r.lumFirst[l]![q]! * 1.001) more = true;
+      }
+      expect(more).toBe(true);
+    }
+  });
+
+  it('a narrow beam sampled only where it falls: patches in its tail keep their light within 1 % of the beam peak', () => {
+    const s = parseScene(room);
+    const P = buildPatches(s, 0.5, 400, true);
+    const occ = buildOccluders(s);
+    const L = prepareLight(s.lights[2]!, 2, s);
+    const fast = new Float64Array(P.count);
+    patchIncident(L, P, occ, fast);
+    // Reference: the same sampling on every patch, the tail rule switched off.
+    const ref = new Float64Array(P.count);
+    patchIncident(L, P, occ, ref, undefined, Infinity);
+    let peak = 0;
+    let skipped = 0;
+    for (let i = 0; i < P.count; i++) peak = Math.max(peak, Math.abs(ref[i]!));
+    for (let i = 0; i < P.count; i++) {
+      // Each patch within 1 % of the brightest patch's light (the tail is faint), and the lit ones exact.
+      expect(Math.abs(fast[i]! - ref[i]!)).toBeLessThan(0.01 * peak);
+      if (fast[i] !== ref[i]) skipped++;
+    }
+    // The rule did take effect on this snoot (otherwise this test checks nothing).
+    expect(skipped).toBeGreaterThan(10);
+    expect(BEAM_TAIL_HALF_ANGLES).toBe(3);
+  });
+});

@@ -1,0 +1,88 @@
+// The live meter follows the editor at its own pace: one job at a time, only the newest document sent next,
+// and when the hand has stopped an older result is not shown (at most one update behind).
+import { describe, expect, it } from 'vitest';
+import { createEditor } from '../../../canvas/editor/editor';
+import type { MeterEngine, MeterJob } from '../../../canvas/meter/engine';
+import { createMeter } from '../../../canvas/meter/meter';
+import { demoSetups } from '../../../db/seed-setups';
+import { computeReadings } from '../../../model/setupReadings';
+
+function manualEngine() {
+  const jobs: { job: MeterJob; resolve: () => void }[] = [];
+  const engine: MeterEngine = {
+    kind: 'inline',
+    compute: (job) => new Promise((resolve) => jobs.push({ job, resolve: () => resolve(computeReadings(job.doc, job)) })),
+    dispose: () => {},
+  };
+  return { engine, jobs };
+}
+const flush = () => new Promise((r) => setTimeout(r, 0));
+
+describe('the live meter', () => {
+  it('runs one job at a time and sends only the newest document next', async () => {
+    const e = createEditor(demoSetups[0]!.document);
+    const { engine, jobs } = manualEngine();
+    const t = 0;
+    const m = createMeter(e, { lightMap: false }, engine, () => t);
+    e.dispatch('select', { ids: ['key'] });
+    for (let k = 0; k < 5; k++) e.dispatch('nudge', { dx: 0.1, dy: 0 });
+    expect(jobs.length).toBe(1); // the rest wait
+    // The hand is still moving: the older result is shown, and the newest document goes next.
+    jobs[0]!.resolve();
+    await flush();
+    expect(m.getState().doc).toBe(jobs[0]!.job.doc);
+    expect(jobs.length).toBe(2);
+    expect(jobs[1]!.job.doc).toBe(e.getState().doc);
+    jobs[1]!.resolve();
+    await flush();
+    expect(m.getState().doc).toBe(e.getState().doc);
+    expect(m.getState().computing).toBe(false);
+    m.dispose();
+  });
+
+  it('when the hand has stopped, a result for an older document is skipped', async () => {
+    const e = createEditor(demoSetups[0]!.document);
+    const { engine, jobs } = manualEngine();
+    let t = 0;
+    const m = createMeter(e, { lightMap: false }, engine, () => t);
+    const first = m.getState().doc;
+    e.dispatch('select', { ids: ['key'] });
+    e.dispatch('nudge', { dx: 0.1, dy: 0 });
+    e.dispatch('nudge', { dx: 0.1, dy: 0 });
+    t += 500; // the hand stopped
+    jobs[0]!.resolve();
+    await flush();
+    expect(m.getState().doc).toBe(first); // not the stale one
+    jobs[1]!.resolve();
+    await flush();
+    expect(m.getState().doc).toBe(e.getState().doc);
+    m.dispose();
+  });
+
+  it('follows a drag under way (the moves held beside the document), and the release computes nothing more', async () => {
+    const e = createEditor(demoSetups[0]!.document);
+    e.dispatch('setCamera', { camera: { scale: 100, tx: 0, ty: 0 } });
+    const { engine, jobs } = manualEngine();
+    let t = 0;
+    const m = createMeter(e, { lightMap: false }, engine, () => t);
+    const keyX = (d: { items: readonly { id: string }[] }) => (d.items.find((i) => i.id === 'key') as unknown as { x: number }).x;
+    e.pointer.down({ screen: { x: 400, y: 410 }, pointer: 'mouse' });
+    for (let k = 1; k <= 5; k++) e.pointer.move({ screen: { x: 400 + k * 20, y: 410 }, pointer: 'mouse' });
+    expect(keyX(e.getState().doc)).toBe(4); // the document waits for the release
+    expect(jobs.length).toBe(1);
+    expect(keyX(jobs[0]!.job.doc)).toBeCloseTo(4.2); // the first move went out at once
+    jobs[0]!.resolve();
+    await flush();
+    expect(jobs.length).toBe(2); // then the newest
+    expect(keyX(jobs[1]!.job.doc)).toBeCloseTo(5);
+    t += 500;
+    jobs[1]!.resolve();
+    await flush();
+    expect(keyX(m.getState().doc)).toBeCloseTo(5);
+    e.pointer.up({ screen: { x: 500, y: 410 }, pointer: 'mouse' });
+    await flush();
+    expect(keyX(e.getState().doc)).toBeCloseTo(5);
+    expect(jobs.length).toBe(2); // the released document is the one just computed
+    m.dispose();
+  });
+});

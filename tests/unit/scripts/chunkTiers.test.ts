@@ -1,0 +1,103 @@
+// The web build's chunk tiers (scripts/chunkTiers.cjs): after Expo's split, modules that only a tier's two lazy
+// chunks share move from the common chunk (every page's download) into the tier's lower chunk; a module any
+// other lazy chunk needs stays common. Fake chunks shaped like Expo's (entries, deps, graph, flags).
+import { createRequire } from 'node:module';
+import { describe, expect, it } from 'vitest';
+
+const { layerChunks } = createRequire(__filename)('../../../scripts/chunkTiers.cjs') as {
+  layerChunks: (chunks: Set<Chunk>, tiers: { lower: string; upper: string }[], byPath?: Map<string, Chunk>) => { modules: number }[];
+};
+
+type Mod = { path: string; dependencies: Map<string, { absolutePath: string; data: { data: { asyncType: string | null } } }> };
+type Chunk = { name: string; entries: Set<Mod>; deps: Set<Mod>; graph: { dependencies: Map<string, Mod> }; isAsync: boolean; isVendor: boolean; isEntry: boolean; sealed: boolean };
+
+/** A graph from `path: [static deps] | { lazy: [...] }` lines. */
+function graphOf(edges: Record<string, { imports?: string[]; lazy?: string[] }>) {
+  const dependencies = new Map<string, Mod>();
+  for (const path of Object.keys(edges)) dependencies.set(path, { path, dependencies: new Map() });
+  for (const [path, { imports = [], lazy = [] }] of Object.entries(edges)) {
+    const m = dependencies.get(path)!;
+    for (const d of imports) m.dependencies.set(d, { absolutePath: d, data: { data: { asyncType: null } } });
+    for (const d of lazy) m.dependencies.set(d, { absolutePath: d, data: { data: { asyncType: 'async' } } });
+  }
+  return { dependencies };
+}
+
+describe('layerChunks', () => {
+  const graph = graphOf({
+    '/app/entry.js': { imports: ['/app/react.js'], lazy: ['/app/routes/sign-in.tsx', '/app/routes/share.tsx', '/app/routes/editor.tsx'] },
+    '/app/react.js': {},
+    '/app/routes/sign-in.tsx': { imports: ['/app/forms.ts'] },
+    '/app/routes/share.tsx': { lazy: ['/app/components/shareScreen.ts'] },
+    '/app/routes/editor.tsx': { imports: ['/app/forms.ts'], lazy: ['/app/components/shareScreen.ts', '/app/components/workspace.ts'] },
+    '/app/components/shareScreen.ts': { imports: ['/app/plan.tsx', '/app/react.js'] },
+    '/app/components/workspace.ts': { imports: ['/app/editor.tsx', '/app/forms.ts'] },
+    '/app/editor.tsx': { imports: ['/app/plan.tsx', '/app/toolbar.tsx'] },
+    '/app/plan.tsx': { imports: ['/app/gestures.js'], lazy: ['/app/later.ts'] },
+    '/app/gestures.js': {},
+    '/app/toolbar.tsx': {},
+    '/app/forms.ts': {},
+    '/app/later.ts': {},
+  });
+  const m = (p: string) => graph.dependencies.get(p)!;
+  // As Expo leaves them: each lazy chunk without what the entry or common chunk holds.
+  const chunk = (name: string, entry: string, deps: string[], flags: Partial<Chunk> = {}): Chunk => ({
+    name,
+    entries: new Set(entry ? [m(entry)] : []),
+    deps: new Set(deps.map(m)),
+    graph,
+    isAsync: true,
+    isVendor: false,
+    isEntry: false,
+    sealed: false,
+    ...flags,
+  });
+  const build = () => {
+    const chunks = {
+      entry: chunk('/app/entry.js', '/app/entry.js', ['/app/entry.js', '/app/react.js'], { isAsync: false, isEntry: true }),
+      common: chunk('/__common.js', '', ['/app/forms.ts', '/app/plan.tsx', '/app/gestures.js'], { isAsync: false, isVendor: true }),
+      signIn: chunk('sign-in', '/app/routes/sign-in.tsx', ['/app/routes/sign-in.tsx']),
+      shareRoute: chunk('share', '/app/routes/share.tsx', ['/app/routes/share.tsx']),
+      editorRoute: chunk('editor', '/app/routes/editor.tsx', ['/app/routes/editor.tsx']),
+      share: chunk('shareScreen', '/app/components/shareScreen.ts', ['/app/components/shareScreen.ts']),
+      workspace: chunk('workspace', '/app/components/workspace.ts', ['/app/components/workspace.ts', '/app/editor.tsx', '/app/toolbar.tsx']),
+      later: chunk('later', '/app/later.ts', ['/app/later.ts']),
+    };
+    return { chunks, set: new Set(Object.values(chunks)) };
+  };
+  const paths = (c: Chunk) => [...c.deps].map((d) => d.path).sort();
+
+  it('moves what only the share screen and the workspace share into the share screen’s chunk', () => {
+    const { chunks, set } = build();
+    const byPath = new Map<string, Chunk>();
+    const moved = layerChunks(set, [{ lower: 'components/shareScreen.ts', upper: 'components/workspace.ts' }], byPath);
+    expect(moved[0]!.modules).toBe(2);
+    expect(paths(chunks.share)).toEqual(['/app/components/shareScreen.ts', '/app/gestures.js', '/app/plan.tsx']);
+    // The forms serve the sign-in page too: they stay where every page gets them.
+    expect(paths(chunks.common)).toEqual(['/app/forms.ts']);
+    expect(paths(chunks.workspace)).toEqual(['/app/components/workspace.ts', '/app/editor.tsx', '/app/toolbar.tsx']);
+    expect(byPath.get('/app/plan.tsx')).toBe(chunks.share);
+  });
+
+  it('leaves the split alone when a chunk of the tier is missing or nothing is common', () => {
+    const { chunks, set } = build();
+    set.delete(chunks.workspace);
+    layerChunks(set, [{ lower: 'components/shareScreen.ts', upper: 'components/workspace.ts' }]);
+    expect(paths(chunks.common)).toEqual(['/app/forms.ts', '/app/gestures.js', '/app/plan.tsx']);
+    const again = build();
+    again.set.delete(again.chunks.common);
+    expect(layerChunks(again.set, [{ lower: 'components/shareScreen.ts', upper: 'components/workspace.ts' }])).toEqual([]);
+  });
+
+  it('keeps a module common when a lazy chunk outside the tier also needs it', () => {
+    const { chunks, set } = build();
+    // The sign-in route starts to draw a plan: the plan must stay where the sign-in page gets it.
+    graph.dependencies.get('/app/routes/sign-in.tsx')!.dependencies.set('/app/plan.tsx', { absolutePath: '/app/plan.tsx', data: { data: { asyncType: null } } });
+    try {
+      layerChunks(set, [{ lower: 'components/shareScreen.ts', upper: 'components/workspace.ts' }]);
+      expect(paths(chunks.common)).toEqual(['/app/forms.ts', '/app/gestures.js', '/app/plan.tsx']);
+    } finally {
+      graph.dependencies.get('/app/routes/sign-in.tsx')!.dependencies.delete('/app/plan.tsx');
+    }
+  });
+});
