@@ -113,13 +113,54 @@ export function useOfflineQueue(): { entries: QueuedEntry[]; waiting: number; co
   return { entries, waiting: entries.reduce((n, e) => n + e.count, 0), conflicts: entries.filter((e) => e.conflict) };
 }
 
+/** How the last send of queued changes went, for the banner: under way, or what stopped it and when the next
+ *  try is (the queue keeps trying on its own, sooner when the connection comes back or its owner signs in). */
+export type SendState = { sending: boolean; failed: string | null; retryAt: number | null };
+let sendState: SendState = { sending: false, failed: null, retryAt: null };
+const sendListeners = new Set<() => void>();
+function setSendState(next: Partial<SendState>) {
+  sendState = { ...sendState, ...next };
+  sendListeners.forEach((fn) => fn());
+}
+/** Whether queued changes are being sent, and why the last try left some unsent. */
+export function useSendState(): SendState {
+  return useSyncExternalStore(
+    (fn) => {
+      sendListeners.add(fn);
+      return () => sendListeners.delete(fn);
+    },
+    () => sendState,
+    () => sendState,
+  );
+}
+/** Why a send failed, in words for the banner. */
+function whyNotSent(err: unknown): string {
+  if (err instanceof ApiRequestError) {
+    if (err.status === 401) return 'you are signed out here; sign in again to send them';
+    if (err.status === 503) return 'the server is busy or restarting';
+    return `the server answered ${err.status}`;
+  }
+  return 'the server could not be reached';
+}
+
+/** Seconds between tries while changes stay unsent: doubling from 5 s to at most a minute. */
+export const RETRY_FIRST_MS = 5_000;
+export const RETRY_MAX_MS = 60_000;
+let retryTimer: ReturnType<typeof setTimeout> | null = null;
+let retryDelay = RETRY_FIRST_MS;
+
 let sending: Promise<void> | null = null;
 /** Send the signed-in person's queued changes of setups no editor has open, once (a send under way is joined).
  *  A 409 leaves the entry marked for a choice (opening the setup offers the usual choices); an answer that says
- *  the setup is gone or no longer theirs drops it; no connection, a 5xx or a lost session (401) keeps it. */
+ *  the setup is gone or no longer theirs drops it; no connection, a 5xx or a lost session (401) keeps it, and
+ *  another try is scheduled (5 s, doubling to a minute) for as long as some are left. */
 export function sendQueuedNow(qc: QueryClient): Promise<void> {
   if (!isOnlineNow()) return Promise.resolve();
+  if (retryTimer) clearTimeout(retryTimer);
+  retryTimer = null;
   sending ??= (async () => {
+    let failed: string | null = null;
+    setSendState({ sending: true, retryAt: null });
     try {
       for (const e of await offlineQueue.all()) {
         if (e.conflict || isOpenInEditor(e.setupId)) continue;
@@ -131,10 +172,20 @@ export function sendQueuedNow(qc: QueryClient): Promise<void> {
         } catch (err) {
           if (err instanceof ApiRequestError && err.status === 409) await offlineQueue.markConflict(e.setupId);
           else if (err instanceof ApiRequestError && err.status < 500 && err.status !== 401) await offlineQueue.remove(e.setupId);
+          else failed ??= whyNotSent(err);
         }
       }
     } finally {
       sending = null;
+    }
+    if (failed && isWeb) {
+      const delay = retryDelay;
+      retryDelay = Math.min(RETRY_MAX_MS, retryDelay * 2);
+      retryTimer = setTimeout(() => void sendQueuedNow(qc), delay);
+      setSendState({ sending: false, failed, retryAt: Date.now() + delay });
+    } else {
+      retryDelay = RETRY_FIRST_MS;
+      setSendState({ sending: false, failed: null, retryAt: null });
     }
   })();
   return sending;
@@ -145,7 +196,10 @@ export function useQueueSender() {
   const qc = useQueryClient();
   useEffect(() => {
     if (!isWeb) return;
-    const send = () => void sendQueuedNow(qc);
+    const send = () => {
+      retryDelay = RETRY_FIRST_MS;
+      void sendQueuedNow(qc);
+    };
     send();
     window.addEventListener('online', send);
     const offOwner = onQueueOwnerChange(send);
