@@ -1,4 +1,4 @@
-import { render } from '@testing-library/react-native';
+import { render } from '@testing-library/react';
 import type { ReactTestRendererJSON } from 'react-test-renderer';
 import { Mark, NavGlyph, type NavGlyphName } from '../../components/Glyph';
 

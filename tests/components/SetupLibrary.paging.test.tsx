@@ -1,5 +1,5 @@
 // SetupLibrary's paging, with the list hook replaced (vi.mock), so the test controls what pages exist.
-import { fireEvent, screen } from '@testing-library/react-native';
+import { fireEvent, screen } from '@testing-library/react';
 import { SetupLibrary } from '../../components/SetupLibrary';
 import { renderScreen, serveApi, setup } from './support/library';
 
@@ -30,7 +30,7 @@ describe('SetupLibrary paging', () => {
     const fetchNextPage = vi.fn();
     paging.current = { hasNextPage: true, isFetchingNextPage: false, fetchNextPage };
     renderScreen(<SetupLibrary />);
-    expect(screen.getByText('Beauty dish overhead')).toBeOnTheScreen();
+    expect(screen.getByText('Beauty dish overhead')).toBeInTheDocument();
     endOfList();
     expect(fetchNextPage).toHaveBeenCalledTimes(1);
   });

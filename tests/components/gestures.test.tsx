@@ -1,6 +1,6 @@
 // Proves the harness runs gesture handler and reanimated together: a pan gesture drives a shared value,
 // the shared value drives an animated style, and the end of the gesture reports back to React state.
-import { act, render, screen } from '@testing-library/react-native';
+import { act, render, screen } from '@testing-library/react';
 import { useState } from 'react';
 import { Text, View } from 'react-native';
 import { Gesture, GestureDetector, GestureHandlerRootView, State } from 'react-native-gesture-handler';
@@ -42,7 +42,7 @@ const translateX = () => (getAnimatedStyle(screen.getByTestId('light')) as { tra
 describe('GestureDetector with a reanimated shared value', () => {
   it('renders with the shared value applied', () => {
     render(<LightOnRail startPx={30} />);
-    expect(screen.getByText('at 0.30 m')).toBeOnTheScreen();
+    expect(screen.getByText('at 0.30 m')).toBeInTheDocument();
     expect(translateX()).toBe(30);
   });
 
@@ -57,6 +57,6 @@ describe('GestureDetector with a reanimated shared value', () => {
       ]);
     });
     expect(translateX()).toBe(125);
-    expect(await screen.findByText('at 1.25 m')).toBeOnTheScreen();
+    expect(await screen.findByText('at 1.25 m')).toBeInTheDocument();
   });
 });

@@ -33,14 +33,14 @@ const routes = { index: Library, 'setups/[id]': SetupScreen };
 describe('expo-router under the harness', () => {
   it('renders the initial route with its pathname', () => {
     renderRouter(routes, { initialUrl: '/' });
-    expect(screen.getByText('showing /')).toBeOnTheScreen();
+    expect(screen.getByText('showing /')).toBeInTheDocument();
     expect(screen).toHavePathname('/');
   });
 
   it('follows a Link to a dynamic route and reads its param', () => {
     renderRouter(routes, { initialUrl: '/' });
-    fireEvent.press(screen.getByText('Key and fill'));
-    expect(screen.getByText('setup key-and-fill')).toBeOnTheScreen();
+    fireEvent.click(screen.getByText('Key and fill'));
+    expect(screen.getByText('setup key-and-fill')).toBeInTheDocument();
     expect(screen).toHavePathname('/setups/key-and-fill');
   });
 
@@ -48,18 +48,18 @@ describe('expo-router under the harness', () => {
     // (Read the router's state directly: expo-router's structured matchers such as toHaveSearchParams
     // format their failure message with Jest's diff helper, whose signature vitest's does not share.)
     const router = renderRouter(routes, { initialUrl: '/' });
-    fireEvent.press(screen.getByRole('button', { name: 'Open the rim light setup' }));
-    expect(screen.getByText('setup rim-light')).toBeOnTheScreen();
-    expect(screen.getByText('view plan')).toBeOnTheScreen();
+    fireEvent.click(screen.getByRole('button', { name: 'Open the rim light setup' }));
+    expect(screen.getByText('setup rim-light')).toBeInTheDocument();
+    expect(screen.getByText('view plan')).toBeInTheDocument();
     expect(router.getPathnameWithParams()).toBe('/setups/rim-light?view=plan');
 
-    fireEvent.press(screen.getByRole('button', { name: 'Back' }));
-    expect(screen.getByText('showing /')).toBeOnTheScreen();
+    fireEvent.click(screen.getByRole('button', { name: 'Back' }));
+    expect(screen.getByText('showing /')).toBeInTheDocument();
   });
 
   it('starts on a deep link', () => {
     renderRouter(routes, { initialUrl: '/setups/bounce-test' });
-    expect(screen.getByText('setup bounce-test')).toBeOnTheScreen();
-    expect(screen.getByText('view default')).toBeOnTheScreen();
+    expect(screen.getByText('setup bounce-test')).toBeInTheDocument();
+    expect(screen.getByText('view default')).toBeInTheDocument();
   });
 });
