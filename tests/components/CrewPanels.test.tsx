@@ -51,7 +51,7 @@ describe('CrewSheetPanel', () => {
     show(<CrewSheetPanel setupId={SETUP} />);
     expect(await screen.findByText('Crew sheet')).toBeInTheDocument();
     expect(screen.getByText(/1 light and 3 other items in the kit, camera and meter, 2 steps, 2 shots, and the safety notes/)).toBeInTheDocument();
-    expect(screen.getByTestId('crew-sheet-preview').querySelector('img')).toHaveAttribute('src', `/api/setups/${SETUP}/plan.png?width=900&v=4`);
+    expect(screen.getByRole('img', { name: /^The plan as printed on the crew sheet/ })).toHaveAttribute('src', `/api/setups/${SETUP}/plan.png?width=900&v=4`);
     for (const id of ['download-pdf', 'download-png', 'download-svg']) expect(screen.getByTestId(id)).toBeInTheDocument();
     expect(await screen.findByText('No links yet.')).toBeInTheDocument();
     expect(screen.queryByTestId('make-share-link')).toBeNull();

@@ -23,7 +23,22 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-const endOfList = () => fireEvent(screen.getByLabelText('Your setups'), 'onEndReached');
+/**
+ * The user scrolls the list to its end. jsdom lays nothing out, so the list's scroll box is given the sizes a
+ * browser would report (a 2000 px list in a 600 px box, scrolled to its end) before the scroll event.
+ */
+const endOfList = () => {
+  const box = screen.getByLabelText('Your setups');
+  Object.defineProperties(box, {
+    scrollHeight: { configurable: true, value: 2000 },
+    offsetHeight: { configurable: true, value: 600 },
+    scrollWidth: { configurable: true, value: 400 },
+    offsetWidth: { configurable: true, value: 400 },
+    // (jsdom ignores writes to scrollTop: the position the user scrolled to is given the same way.)
+    scrollTop: { configurable: true, value: 1400 },
+  });
+  fireEvent.scroll(box);
+};
 
 describe('SetupLibrary paging', () => {
   it('asks for the next page at the end of the list when there is one', () => {

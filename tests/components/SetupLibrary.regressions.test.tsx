@@ -15,7 +15,7 @@ afterEach(() => {
 describe('SetupLibrary sort', () => {
   it('asks the server for the order picked (A–Z sends sort=title)', async () => {
     const api = serveApi(() => ({ status: 200, body: { setups: [setup({ title: 'Clamshell portrait' })], nextCursor: null } }));
-    const user = userEvent.setup({ advanceTimers: (ms) => void vi.advanceTimersByTime(ms) });
+    const user = userEvent.setup();
     renderScreen(<SetupLibrary />);
     expect(await screen.findByText('Clamshell portrait')).toBeInTheDocument();
     expect(api.listRequests().every((u) => !u.searchParams.has('sort'))).toBe(true);

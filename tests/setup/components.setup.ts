@@ -5,6 +5,9 @@ import { installRequireHooks, requireFromRoot } from './rn-require';
 
 installRequireHooks();
 
+// What Metro defines for a development web build.
+(globalThis as { __DEV__?: boolean }).__DEV__ = true;
+
 // React's act() environment flag, as @testing-library/react sets it when it can see a global afterEach.
 (globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
 
