@@ -2,7 +2,7 @@ import { render } from '@testing-library/react';
 import { Mark, NavGlyph, type NavGlyphName } from '../../components/Glyph';
 
 /** The shapes inside the drawing, in document order (react-native-svg draws real SVG elements on the web). */
-const shapes = (svg: SVGSVGElement) => [...svg.querySelectorAll('*')].map((n) => n.tagName.toLowerCase());
+const shapes = (svg: SVGSVGElement) => Array.from(svg.querySelectorAll('*')).map((n) => n.tagName.toLowerCase());
 
 describe('Mark', () => {
   it('draws the point source and one falloff ring per stop, in the given colour and size', () => {
@@ -15,8 +15,8 @@ describe('Mark', () => {
     // Decoration: hidden from assistive tech (the text beside it says what it is).
     expect(svg.closest('[aria-hidden="true"]')).toBeTruthy();
 
-    const source = [...svg.querySelectorAll('circle')];
-    const rings = [...svg.querySelectorAll('path')];
+    const source = Array.from(svg.querySelectorAll('circle'));
+    const rings = Array.from(svg.querySelectorAll('path'));
     expect(source).toHaveLength(1);
     expect(source[0]).toHaveAttribute('fill', '#123456');
     expect(rings).toHaveLength(3);

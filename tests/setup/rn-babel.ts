@@ -15,11 +15,17 @@ import { mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'no
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { TransformOptions } from '@babel/core';
+
+/** The little of @babel/core's API used here (its type package is not installed). */
+type TransformOptions = Record<string, unknown> & { caller?: Record<string, unknown> };
+type Result = { code?: string | null; ast?: { program: { body: { type: string }[] } } | null } | null;
+type Babel = {
+  transformSync(code: string, options: TransformOptions): Result;
+  transformFromAstSync(ast: unknown, code: string, options: TransformOptions): Result;
+};
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const requireFromRoot = createRequire(join(root, 'package.json'));
-type Babel = typeof import('@babel/core');
 /** Loaded on the first cache miss only: a warm run never needs Babel here. */
 let babelInstance: Babel | undefined;
 const babel = (): Babel => (babelInstance ??= requireFromRoot('@babel/core') as Babel);
@@ -70,7 +76,7 @@ const firstPass: TransformOptions = {
   sourceMaps: false,
   // A development build for the web, as Metro makes it for the web target. `isDev: true` matters: with
   // `false` the preset inlines process.env.NODE_ENV = 'production' and __DEV__ = false.
-  caller: { name: 'falloff-vitest', platform: 'web', isDev: true, isServer: false, isNodeModule: true, supportsStaticESM: false } as TransformOptions['caller'],
+  caller: { name: 'falloff-vitest', platform: 'web', isDev: true, isServer: false, isNodeModule: true, supportsStaticESM: false },
   presets: [[requireFromRoot.resolve('babel-preset-expo'), { enableBabelRuntime: false }]],
   // Kept so that pass 2, when needed, starts from the tree instead of parsing the code again.
   ast: true,
