@@ -160,6 +160,27 @@ describe('Inspector', () => {
     expect(src).toMatchObject({ type: 'continuous', lamp: 'tungsten', kelvin: 3200, lumens: 8000 });
   });
 
+  it('steps ISO the way the trade expects: "+" to the next third-stop value up, "−" down', () => {
+    const store = setup('cam');
+    expect(item<'camera'>(store, 'cam').iso).toBe(100);
+    fireEvent.click(screen.getByRole('button', { name: 'More ISO' }));
+    expect(item<'camera'>(store, 'cam').iso).toBe(125);
+    expect(screen.getByLabelText('ISO')).toHaveValue('125');
+    fireEvent.click(screen.getByRole('button', { name: 'Less ISO' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Less ISO' }));
+    expect(item<'camera'>(store, 'cam').iso).toBe(80);
+  });
+
+  it('steps the shutter with "−" to a longer time (1/250 → 1/200)', () => {
+    const store = setup('cam');
+    const field = screen.getByLabelText('Shutter (s)');
+    fireEvent.change(field, { target: { value: '250' } });
+    fireEvent.keyDown(field, { key: 'Enter' });
+    fireEvent.click(screen.getByRole('button', { name: 'Less shutter (s)' }));
+    expect(item<'camera'>(store, 'cam').shutterS).toBeCloseTo(1 / 200, 9);
+    expect(screen.getByLabelText('Shutter (s)')).toHaveValue('1/200');
+  });
+
   it('steps the camera aperture along the usual third-stop scale', () => {
     const store = setup('cam');
     fireEvent.click(screen.getByRole('button', { name: 'More aperture (f/)' }));

@@ -11,6 +11,13 @@ installRequireHooks();
 // React's act() environment flag, as @testing-library/react sets it when it can see a global afterEach.
 (globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
 
+// Pointer capture, which every browser has and jsdom lacks (gesture handler's web side captures the pointer
+// on pointerdown): a capture that keeps nothing, since jsdom dispatches events to their target anyway.
+const proto = Element.prototype as Element & Partial<Pick<Element, 'setPointerCapture' | 'releasePointerCapture' | 'hasPointerCapture'>>;
+proto.setPointerCapture ??= () => {};
+proto.releasePointerCapture ??= () => {};
+proto.hasPointerCapture ??= () => false;
+
 // The testing library looks for a global `jest` to tell whether fake timers are on (waitFor and findBy*
 // then advance them instead of waiting for real time): give it vitest's.
 (globalThis as { jest?: unknown }).jest = { advanceTimersByTime: (ms: number) => vi.advanceTimersByTime(ms) };
