@@ -163,11 +163,11 @@ describe('Inspector', () => {
   it('steps ISO the way the trade expects: "+" to the next third-stop value up, "−" down', () => {
     const store = setup('cam');
     expect(item<'camera'>(store, 'cam').iso).toBe(100);
-    fireEvent.click(screen.getByRole('button', { name: 'More ISO' }));
+    fireEvent.click(screen.getByRole('button', { name: 'More iso' }));
     expect(item<'camera'>(store, 'cam').iso).toBe(125);
     expect(screen.getByLabelText('ISO')).toHaveValue('125');
-    fireEvent.click(screen.getByRole('button', { name: 'Less ISO' }));
-    fireEvent.click(screen.getByRole('button', { name: 'Less ISO' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Less iso' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Less iso' }));
     expect(item<'camera'>(store, 'cam').iso).toBe(80);
   });
 
