@@ -7,6 +7,8 @@ import { reactNativeBridge } from './vite-plugin-react-native';
 
 export const componentsProject: TestProjectInlineConfiguration = {
   plugins: [reactNativeBridge()],
+  // The app's own platform files as Metro picks them for the web: `X.web.tsx` before `X.tsx`.
+  resolve: { extensions: ['.web.tsx', '.web.ts', '.web.js', '.tsx', '.ts', '.mjs', '.js', '.jsx', '.json'] },
   test: {
     name: 'components',
     include: ['tests/components/**/*.test.tsx'],
