@@ -31,7 +31,7 @@ function mount(order: ['under', 'over'] | ['over', 'under']) {
   editor.dispatch('setViewport', { w: W, h: H });
   render(
     <EditorContext.Provider value={editor}>
-      <PlanCanvas theme={graphiteTheme} units="metric" />
+      <PlanCanvas theme={graphiteTheme} units="metric" lightMap={null} />
     </EditorContext.Provider>,
   );
   return editor;
