@@ -4,7 +4,7 @@ import Svg, { Circle, Line, Path, Rect } from 'react-native-svg';
 /** The app mark: a point source with its falloff rings, one ring per stop. */
 export function Mark({ size = 28, colour = '#f0b24a' }: { size?: number; colour?: string }) {
   return (
-    <Svg width={size} height={size} viewBox="0 0 32 32" accessibilityElementsHidden>
+    <Svg width={size} height={size} viewBox="0 0 32 32" accessibilityElementsHidden aria-hidden>
       <Circle cx={8} cy={16} r={3.5} fill={colour} />
       <Path d="M14 8 A11 11 0 0 1 14 24" stroke={colour} strokeWidth={2} fill="none" opacity={0.85} />
       <Path d="M20 5 A15 15 0 0 1 20 27" stroke={colour} strokeWidth={2} fill="none" opacity={0.55} />
@@ -17,7 +17,7 @@ export type NavGlyphName = 'setups' | 'classes' | 'account';
 
 export function NavGlyph({ name, colour, size = 22 }: { name: NavGlyphName; colour: string; size?: number }) {
   return (
-    <Svg width={size} height={size} viewBox="0 0 24 24" accessibilityElementsHidden>
+    <Svg width={size} height={size} viewBox="0 0 24 24" accessibilityElementsHidden aria-hidden>
       {name === 'setups' ? (
         <>
           <Rect x={3} y={4} width={18} height={16} rx={2} stroke={colour} strokeWidth={1.8} fill="none" />

@@ -56,6 +56,9 @@ export function Button({
       accessibilityRole="button"
       accessibilityLabel={label}
       accessibilityState={{ disabled: off, busy }}
+      // react-native-web reads aria-* props, not accessibilityState: without these the web build never says busy.
+      aria-busy={busy}
+      aria-disabled={off}
       disabled={off}
       onPress={onPress}
       testID={testID}

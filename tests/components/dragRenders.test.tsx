@@ -1,7 +1,7 @@
 // A drag re-renders what the hand moves — the dragged item's glyph, its beam and the handles — and nothing
 // else: not the other items, not the inspector, and the meter's text at most at its readable pace (usePaced)
 // however fast the meter's results come. And the plan hands the editor at most one pointer move a frame.
-import { act, render } from '@testing-library/react-native';
+import { act, render } from '@testing-library/react';
 import { Profiler, type ProfilerOnRenderCallback } from 'react';
 import { fireGestureHandler, getByGestureTestId } from 'react-native-gesture-handler/jest-utils';
 import { State } from 'react-native-gesture-handler';
@@ -110,7 +110,7 @@ describe('a drag on the plan', () => {
     });
     expect(renders.get('inspector') ?? 0).toBeGreaterThan(before.inspector);
     expect(renders.get('meter') ?? 0).toBeGreaterThan(before.meter);
-    expect(m.view.getByTestId('meter-light-rimR')).toBeOnTheScreen();
+    expect(m.view.getByTestId('meter-light-rimR')).toBeInTheDocument();
     expect([...glyphRenders.keys()]).toEqual(['rimR']);
   });
 
