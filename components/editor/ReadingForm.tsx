@@ -24,7 +24,7 @@ function specs(units: Units): Record<Key, Spec> {
   };
 }
 
-export function describeReading(r: MeterReading, units: Units, powerNow: number): string {
+function describeReading(r: MeterReading, units: Units, powerNow: number): string {
   const parts = [`f/${formatFNumber(r.aperture)} at ISO ${r.iso.toFixed(0)}`, `${lengthText(r.distanceM, units).trim()} ${unitSuffix(units)} from the light`];
   if (r.shutterS !== null) parts.push(`at ${formatShutter(r.shutterS)} s`);
   parts.push(`at power ${formatPower(r.power ?? powerNow)}`);

@@ -1,0 +1,12 @@
+const fontkit = require('fontkit');
+const f = fontkit.openSync(require.resolve('@expo-google-fonts/ibm-plex-sans/500Medium/IBMPlexSans_500Medium.ttf'));
+const m = fontkit.openSync(require.resolve('@expo-google-fonts/ibm-plex-mono/400Regular/IBMPlexMono_400Regular.ttf'));
+console.log(f.unitsPerEm, m.unitsPerEm);
+const chars = [];
+for (let c = 32; c < 127; c++) chars.push(c);
+for (let c = 160; c < 256; c++) chars.push(c);
+for (const ch of '·°−–—′″×÷’‘“”…→←↑↓€') chars.push(ch.codePointAt(0));
+const w = chars.map(c => f.glyphForCodePoint(c).advanceWidth);
+console.log(JSON.stringify(w));
+const mw = new Set(chars.map(c => m.glyphForCodePoint(c).advanceWidth)); console.log([...mw]);
+console.log(chars.filter(c=>f.glyphForCodePoint(c).id===0));
