@@ -63,18 +63,6 @@ export function SideView({ units, height = 260 }: { units: Units; height?: numbe
         </Text>
         <Text style={s.hint}>Drag a head to raise it, its ring to tilt it.</Text>
       </View>
-      {lines.length > 1 ? (
-        <View style={s.chips} accessibilityLabel="Cut along">
-          {lines.map((i) => {
-            const on = (scene?.line.fromId ?? null) === i.id;
-            return (
-              <Pressable key={i.id} accessibilityRole="radio" accessibilityState={{ checked: on }} aria-checked={on} accessibilityLabel={`Along ${names.get(i.id) ?? ''}`} onPress={() => setRefId(i.id)} style={[s.chip, on && s.chipOn]}>
-                <Text style={[s.chipText, on && { color: colours.accent }]}>{names.get(i.id)}</Text>
-              </Pressable>
-            );
-          })}
-        </View>
-      ) : null}
       <View
         style={[s.canvas, { height }]}
         onLayout={onLayout}
@@ -92,6 +80,19 @@ export function SideView({ units, height = 260 }: { units: Units; height?: numbe
           <SideDrawing scene={scene} box={box} selection={selection} units={units} />
         ) : null}
       </View>
+      {/* Below the drawing: on a phone's half-height sheet the drawing shows first. */}
+      {lines.length > 1 ? (
+        <View style={s.chips} accessibilityLabel="Cut along">
+          {lines.map((i) => {
+            const on = (scene?.line.fromId ?? null) === i.id;
+            return (
+              <Pressable key={i.id} accessibilityRole="radio" accessibilityState={{ checked: on }} aria-checked={on} accessibilityLabel={`Along ${names.get(i.id) ?? ''}`} onPress={() => setRefId(i.id)} style={[s.chip, on && s.chipOn]}>
+                <Text style={[s.chipText, on && { color: colours.accent }]}>{names.get(i.id)}</Text>
+              </Pressable>
+            );
+          })}
+        </View>
+      ) : null}
     </View>
   );
 }
