@@ -16,7 +16,7 @@ import { FONT_NAMES, pdfFonts, type FontName } from './fonts';
 import { FRAME_LIMITS } from '../../calc/frame/render';
 import { planSvg } from './plan';
 
-export type Paper = 'a4' | 'letter';
+type Paper = 'a4' | 'letter';
 export type SheetInput = {
   doc: SetupDocument;
   title: string;
@@ -65,7 +65,7 @@ type Doc = InstanceType<typeof PDFDocument>;
 type Block = { height: (w: number) => number; draw: (x: number, y: number, w: number) => void; keepWithNext?: boolean };
 
 /** The largest standard scale at which `sizeM` fits in `sizePt`, and points per plan metre at it. */
-export function planScale(widthM: number, depthM: number, boxW: number, boxH: number): { ratio: number; ptPerM: number } {
+function planScale(widthM: number, depthM: number, boxW: number, boxH: number): { ratio: number; ptPerM: number } {
   const fit = Math.min(boxW / widthM, boxH / depthM); // pt per metre
   const exact = (1000 * PT_PER_MM) / fit;
   const ratio = SCALES.find((s) => s >= exact - 1e-9) ?? Math.ceil(exact);

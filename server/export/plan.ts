@@ -9,9 +9,6 @@ import { computeReadings, type Readings } from '../../model/setupReadings';
 import type { Units } from '../../model/units';
 import { realFontNames, resvgFontBuffers } from './fonts';
 
-export const PNG_DEFAULT_WIDTH = 2000;
-export const PNG_MAX_WIDTH = 4000;
-
 export type PlanDrawing = { svg: string; viewBox: [number, number, number, number]; widthPx: number; heightPx: number };
 
 /**
