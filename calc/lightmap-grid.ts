@@ -9,7 +9,7 @@ import type { GridFrame } from './contours';
 import { type Occluders, MIN_DISTANCE_SQ_M2 } from './flatScene';
 import type { LightMapGrid } from './lightmap';
 import { PROFILE_LUT_SIZE } from './modifiers';
-import { type FieldReceptor, type Room, type RoomLight, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse } from './room';
+import { type FieldReceptor, type Room, type RoomLight, type Weights, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse, patchWeights } from './room';
 import type { Scene } from './sceneSchema';
 import { castShadows } from './shadows';
 import { DEG } from './vec';
@@ -38,6 +38,8 @@ export type WallStrip = {
   surfaceId: string;
   /** The strip's receptors (1 mm off the wall, facing the camera's side), at the map's height. */
   receptors: FieldReceptor[];
+  /** Each receptor's weights on the room's coarse patches (its later-bounce gather), kept with the fixed part. */
+  bounce: Weights[];
   /** The wall's ends on the plan (the drawn strip). */
   x1: number;
   y1: number;
@@ -131,7 +133,8 @@ export function mapReceptorKind(scene: Scene, grid: LightMapGrid): MapReceptorKi
   return r === 'dome-camera' ? 'dome' : r === 'flat-light' ? 'pointed' : 'flat';
 }
 
-function wallStrips(scene: Scene, z: number): WallStrip[] {
+function wallStrips(room: Room, z: number): WallStrip[] {
+  const scene = room.scene;
   const out: WallStrip[] = [];
   const cam = scene.camera;
   scene.surfaces.forEach((s, i) => {
@@ -152,7 +155,8 @@ function wallStrips(scene: Scene, z: number): WallStrip[] {
       const t = (k + 0.5) / count;
       receptors.push({ x: s.x1 + ex * t + nx * 1e-3, y: s.y1 + ey * t + ny * 1e-3, z: h, nx, ny, nz: 0, kind: 'flat' });
     }
-    out.push({ surfaceIndex: i, surfaceId: s.id, receptors, x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, nx, ny });
+    const bounce = receptors.map((r) => patchWeights(room, room.coarse, r, false, 2));
+    out.push({ surfaceIndex: i, surfaceId: s.id, receptors, bounce, x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, nx, ny });
   });
   return out;
 }
@@ -249,7 +253,7 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
     ky,
     coarseFrame,
     kernel,
-    walls: wallStrips(scene, z),
+    walls: wallStrips(room, z),
   };
 }
 
@@ -362,35 +366,54 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
   if (face && pf) areaCorrection(L, g, out, pf);
 }
 
+/** Area sources: near the light and where the coarse ratio changes fast, the ratio is found every this many points. */
+const AREA_FINE_STRIDE = 2;
+/** Area sources: a fine cell whose corner ratios differ by more than this factor (or a face's horizon) is computed exactly. */
+const AREA_FINE_SPREAD = 1.2;
+
+let ratioBuf = new Float64Array(0);
+let ratioDone = new Uint8Array(0);
+
 /**
  * Big faces: out holds point form × shadows, pf the point form alone. The exact value's ratio to the point
- * form is found on the coarse grid and interpolated; points near the light, and coarse cells whose corners
- * disagree by over a factor of two (a face's horizon crossing the cell), are computed exactly.
+ * form varies smoothly except where the face crosses a point's horizon; it is found on a coarse grid and
+ * interpolated. Coarse cells near the light, or whose corners disagree by over a factor of two, get the ratio
+ * every AREA_FINE_STRIDE points; within them, a fine cell whose corners still disagree (by over
+ * AREA_FINE_SPREAD, or an undefined ratio) is computed exactly point by point.
  */
 function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float32Array): void {
   const { nx, ny } = g.frame;
+  const n = g.n;
+  if (ratioBuf.length !== n) {
+    ratioBuf = new Float64Array(n);
+    ratioDone = new Uint8Array(n);
+  } else ratioDone.fill(0);
+  const rb = ratioBuf;
+  const done = ratioDone;
+  const ratioAt = (k: number): number => {
+    if (done[k] === 1) return rb[k]!;
+    const p = pf[k]!;
+    const e = areaAt(L, g, k);
+    const r = p > 0 ? e / p : e > 0 ? NaN : 1;
+    rb[k] = r;
+    done[k] = 1;
+    return r;
+  };
   // The ratio varies slowly away from the face: found every AREA_RATIO_STEP bounce cells.
   const st = g.step * AREA_RATIO_STEP;
   const kx = Math.ceil((nx - 1) / st) + 1;
   const ky = Math.ceil((ny - 1) / st) + 1;
   const ratio = new Float64Array(kx * ky);
   const idx = (a: number, b: number) => Math.min(ny - 1, b * st) * nx + Math.min(nx - 1, a * st);
-  for (let b = 0; b < ky; b++) {
-    for (let a = 0; a < kx; a++) {
-      const k = idx(a, b);
-      const p = pf[k]!;
-      const e = areaAt(L, g, k);
-      ratio[b * kx + a] = p > 0 ? e / p : e > 0 ? NaN : 1;
-    }
-  }
+  for (let b = 0; b < ky; b++) for (let a = 0; a < kx; a++) ratio[b * kx + a] = ratioAt(idx(a, b));
   const near = AREA_REFINE_RADII * Math.sqrt(L.faceR2);
-  const near2 = near * near;
   const dz2 = (g.z - L.pz) * (g.z - L.pz);
   const cb = ky > 1 ? ky - 2 : 0;
   const ca = kx > 1 ? kx - 2 : 0;
   const at = (a: number, b: number) => ratio[Math.min(b, ky - 1) * kx + Math.min(a, kx - 1)]!;
-  // Cells whose corner ratios disagree by over a factor AREA_RATIO_SPREAD (or are undefined) are computed exactly throughout.
-  const exact = new Uint8Array(kx * ky);
+  // Coarse cells near the light, or whose corner ratios disagree by over AREA_RATIO_SPREAD (or are undefined), are refined.
+  const fine = new Uint8Array(kx * ky);
+  const cellHalf = 0.5 * Math.hypot(st * g.frame.dx, st * g.frame.dy);
   for (let b = 0; b <= cb; b++) {
     for (let a = 0; a <= ca; a++) {
       const r00 = at(a, b);
@@ -399,28 +422,50 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
       const r11 = at(a + 1, b + 1);
       const lo = Math.min(r00, r10, r01, r11);
       const hi = Math.max(r00, r10, r01, r11);
-      if (Number.isNaN(lo + hi) || hi > lo * AREA_RATIO_SPREAD) exact[b * kx + a] = 1;
+      const cx = g.frame.x0 + (a + 0.5) * st * g.frame.dx - L.px;
+      const cy = g.frame.y0 + (b + 0.5) * st * g.frame.dy - L.py;
+      const reach = near + cellHalf;
+      if (Number.isNaN(lo + hi) || hi > lo * AREA_RATIO_SPREAD || cx * cx + cy * cy + dz2 < reach * reach) fine[b * kx + a] = 1;
     }
   }
+  const fs = AREA_FINE_STRIDE;
+  // Points this close to the face's plane (the face at their horizon) are computed exactly.
+  const band = 1.5 * fs * Math.max(g.frame.dx, g.frame.dy);
+  const planeZ = (g.z - L.pz) * L.az;
   for (let j = 0; j < ny; j++) {
     const b = Math.min(Math.floor(j / st), cb);
     const j0 = b * st;
     const j1 = Math.min(ny - 1, (b + 1) * st);
     const fy = j1 > j0 ? (j - j0) / (j1 - j0) : 0;
+    const ja = Math.min(j0 + fs * Math.floor((j - j0) / fs), j1);
+    const jb = Math.min(ja + fs, j1);
+    const gy = jb > ja ? (j - ja) / (jb - ja) : 0;
     for (let i = 0; i < nx; i++) {
       const k = j * nx + i;
       const p = pf[k]!;
       if (!(p > 0)) continue;
       const t = out[k]! / p;
       const a = Math.min(Math.floor(i / st), ca);
-      const ddx = g.px[k]! - L.px;
-      const ddy = g.py[k]! - L.py;
-      if (exact[b * kx + a] === 1 || ddx * ddx + ddy * ddy + dz2 < near2) {
-        out[k] = areaAt(L, g, k) * t;
-        continue;
-      }
       const i0 = a * st;
       const i1 = Math.min(nx - 1, (a + 1) * st);
+      if (fine[b * kx + a] === 1) {
+        const ia = Math.min(i0 + fs * Math.floor((i - i0) / fs), i1);
+        const ib = Math.min(ia + fs, i1);
+        const gx = ib > ia ? (i - ia) / (ib - ia) : 0;
+        const r00 = ratioAt(ja * nx + ia);
+        const r10 = ratioAt(ja * nx + ib);
+        const r01 = ratioAt(jb * nx + ia);
+        const r11 = ratioAt(jb * nx + ib);
+        const lo = Math.min(r00, r10, r01, r11);
+        const hi = Math.max(r00, r10, r01, r11);
+        const plane = (g.px[k]! - L.px) * L.ax + (g.py[k]! - L.py) * L.ay + planeZ;
+        if (Number.isNaN(lo + hi) || hi > lo * AREA_FINE_SPREAD || (lo <= 0 && hi > 0) || Math.abs(plane) < band) {
+          out[k] = ratioAt(k) * p * t;
+          continue;
+        }
+        out[k] = p * t * ((r00 * (1 - gx) + r10 * gx) * (1 - gy) + (r01 * (1 - gx) + r11 * gx) * gy);
+        continue;
+      }
       const fx = i1 > i0 ? (i - i0) / (i1 - i0) : 0;
       const r = (at(a, b) * (1 - fx) + at(a + 1, b) * fx) * (1 - fy) + (at(a, b + 1) * (1 - fx) + at(a + 1, b + 1) * fx) * fy;
       out[k] = p * r * t;

@@ -16,7 +16,7 @@ import { kelvinToLinearRgb, relativeLuminance, type Rgb } from './colour';
 import { type Geometry, bounceCoarse, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
 import { DARK_LUX_SECONDS, recordedTone } from './meter';
 import type { RecordedTone } from './results';
-import { type Room, type RoomLight, buildRoom, coarseBounceInto, directLight, gather, subjectReceptors } from './room';
+import { type Room, type RoomLight, buildRoom, directLight, gather, subjectReceptors } from './room';
 import { type Scene, type SceneInput, parseScene } from './sceneSchema';
 
 /** Where to compute the map. Grid point (i, j) is at (x0 + i·(x1−x0)/(nx−1), y0 + j·(y1−y0)/(ny−1)). */
@@ -349,7 +349,8 @@ function wallTones(room: Room, g: Geometry, list: LightEntry[]): WallTone[] {
     const front = -(s.y2 - s.y1) * w.nx + (s.x2 - s.x1) * w.ny > 0;
     const o = room.optics[w.surfaceIndex]!;
     const rho = front ? o.front.rgb : o.back.rgb;
-    const samples = w.receptors.map((r) => {
+    const C = room.coarseLum;
+    const samples = w.bounce.map((W) => {
       const rgb: [number, number, number] = [0, 0, 0];
       for (const e of list) {
         rgb[0] += e.walls[m]!;
@@ -357,7 +358,13 @@ function wallTones(room: Room, g: Geometry, list: LightEntry[]): WallTone[] {
         rgb[2] += e.walls[m + 2]!;
       }
       m += 3;
-      coarseBounceInto(room, r, false, false, rgb);
+      for (let q = 0; q < W.n; q++) {
+        const b = W.off[q]!;
+        const x = W.w[q]!;
+        rgb[0] += C[b]! * x;
+        rgb[1] += C[b + 1]! * x;
+        rgb[2] += C[b + 2]! * x;
+      }
       if (amb) for (let c = 0; c < 3; c++) rgb[c] = rgb[c]! + ambH * amb[c]!;
       return recordedTone(rgb, rho, gains, correctH);
     });
