@@ -73,6 +73,13 @@ export type Geometry = {
   ky: number;
   coarseFrame: GridFrame;
   kernel: Float32Array;
+  /**
+   * Interpolation of the coarse bounce at each point: the coarse cell's first corner (b·kx + a) and the four
+   * corner weights [4k … 4k+3] for (a, b), (a+1, b), (a, b+1), (a+1, b+1). Bilinear, except that corners lying on
+   * a surface, or across one from the point, are left out and the rest renormalised (see interpolationWeights).
+   */
+  cell: Int32Array;
+  weights: Float32Array;
   walls: WallStrip[];
 };
 
@@ -161,6 +168,101 @@ function wallStrips(room: Room, z: number): WallStrip[] {
   return out;
 }
 
+/** Corners nearer a surface's line than this (m) count as on it. */
+const ON_SURFACE_M = 1e-3;
+
+/** Do the open segments p→q and a→a+e cross (strictly)? */
+function crosses(px: number, py: number, qx: number, qy: number, ax: number, ay: number, ex: number, ey: number): boolean {
+  const dx = qx - px;
+  const dy = qy - py;
+  const den = dx * ey - dy * ex;
+  if (den === 0) return false;
+  const t = ((ax - px) * ey - (ay - py) * ex) / den;
+  const u = ((ax - px) * dy - (ay - py) * dx) / den;
+  return t > 1e-9 && t < 1 - 1e-9 && u > 1e-9 && u < 1 - 1e-9;
+}
+
+/** Distance from (x, y) to the segment a→a+e. */
+function segmentDistance(x: number, y: number, ax: number, ay: number, ex: number, ey: number): number {
+  const l2 = ex * ex + ey * ey;
+  const t = l2 > 0 ? Math.max(0, Math.min(1, ((x - ax) * ex + (y - ay) * ey) / l2)) : 0;
+  const dx = ax + ex * t - x;
+  const dy = ay + ey * t - y;
+  return Math.sqrt(dx * dx + dy * dy);
+}
+
+/**
+ * The coarse bounce is interpolated between coarse points every `step` points. Near a wall that is wrong two
+ * ways: a coarse point on the wall's line sees the wall edge-on (no bounce from it), and one across the wall
+ * sees the other room. Such corners are left out of the point's interpolation and the others renormalised; a
+ * point whose corners are all left out keeps plain bilinear weights.
+ */
+function interpolationWeights(scene: Scene, frame: GridFrame, coarse: GridFrame, step: number, z: number, cell: Int32Array, weights: Float32Array): void {
+  const segs = scene.surfaces.filter((s) => s.baseM <= z && z <= s.topM).map((s) => [s.x1, s.y1, s.x2 - s.x1, s.y2 - s.y1] as const);
+  const { nx, ny } = frame;
+  const kx = coarse.nx;
+  const ky = coarse.ny;
+  const cb = ky > 1 ? ky - 2 : 0;
+  const ca = kx > 1 ? kx - 2 : 0;
+  const onWall = new Uint8Array(kx * ky);
+  for (let b = 0; b < ky; b++) {
+    for (let a = 0; a < kx; a++) {
+      const x = coarse.x0 + a * coarse.dx;
+      const y = coarse.y0 + b * coarse.dy;
+      if (segs.some(([ax, ay, ex, ey]) => segmentDistance(x, y, ax, ay, ex, ey) < ON_SURFACE_M)) onWall[b * kx + a] = 1;
+    }
+  }
+  const w = [0, 0, 0, 0];
+  for (let j = 0; j < ny; j++) {
+    const b = Math.min(Math.floor(j / step), cb);
+    const j1 = Math.min(ny - 1, (b + 1) * step);
+    const fy = j1 > b * step ? (j - b * step) / (j1 - b * step) : 0;
+    for (let i = 0; i < nx; i++) {
+      const k = j * nx + i;
+      const a = Math.min(Math.floor(i / step), ca);
+      const i1 = Math.min(nx - 1, (a + 1) * step);
+      const fx = i1 > a * step ? (i - a * step) / (i1 - a * step) : 0;
+      w[0] = (1 - fx) * (1 - fy);
+      w[1] = fx * (1 - fy);
+      w[2] = (1 - fx) * fy;
+      w[3] = fx * fy;
+      cell[k] = b * kx + a;
+      if (segs.length > 0) {
+        const x = frame.x0 + i * frame.dx;
+        const y = frame.y0 + j * frame.dy;
+        let kept = 0;
+        let dropped = false;
+        for (let c = 0; c < 4; c++) {
+          if (w[c] === 0) continue;
+          const ca2 = Math.min(kx - 1, a + (c & 1));
+          const cb2 = Math.min(ky - 1, b + (c >> 1));
+          const cx = coarse.x0 + ca2 * coarse.dx;
+          const cy = coarse.y0 + cb2 * coarse.dy;
+          if (onWall[cb2 * kx + ca2] === 1 || segs.some(([ax, ay, ex, ey]) => crosses(x, y, cx, cy, ax, ay, ex, ey))) {
+            dropped = true;
+            continue;
+          }
+          kept += w[c]!;
+        }
+        if (dropped && kept > 0) {
+          for (let c = 0; c < 4; c++) {
+            const ca2 = Math.min(kx - 1, a + (c & 1));
+            const cb2 = Math.min(ky - 1, b + (c >> 1));
+            const cx = coarse.x0 + ca2 * coarse.dx;
+            const cy = coarse.y0 + cb2 * coarse.dy;
+            const out = w[c] === 0 || onWall[cb2 * kx + ca2] === 1 || segs.some(([ax, ay, ex, ey]) => crosses(x, y, cx, cy, ax, ay, ex, ey));
+            w[c] = out ? 0 : w[c]! / kept;
+          }
+        }
+      }
+      weights[4 * k] = w[0]!;
+      weights[4 * k + 1] = w[1]!;
+      weights[4 * k + 2] = w[2]!;
+      weights[4 * k + 3] = w[3]!;
+    }
+  }
+}
+
 export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geometry {
   const scene = room.scene;
   const kind = mapReceptorKind(scene, grid);
@@ -234,9 +336,13 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
       if (f !== 0) kernel[base + k] = f * t;
     }
   }
+  const frame: GridFrame = { nx, ny, x0: grid.x0, y0: grid.y0, dx, dy };
+  const cell = new Int32Array(n);
+  const weights = new Float32Array(4 * n);
+  interpolationWeights(scene, frame, coarseFrame, step, z, cell, weights);
   return {
     key,
-    frame: { nx, ny, x0: grid.x0, y0: grid.y0, dx, dy },
+    frame,
     n,
     z,
     kind,
@@ -253,6 +359,8 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
     ky,
     coarseFrame,
     kernel,
+    cell,
+    weights,
     walls: wallStrips(room, z),
   };
 }

@@ -252,22 +252,16 @@ export function createLightMapCache(): LightMapCache {
     const coarse = new Float64Array(nK);
     for (const e of list) for (let k = 0; k < nK; k++) coarse[k]! += e.bounce[k]!;
     const { nx, ny } = g.frame;
-    const st = g.step;
     const kx = g.kx;
-    for (let j = 0; j < ny; j++) {
-      const b = Math.min(Math.floor(j / st), g.ky - 2 < 0 ? 0 : g.ky - 2);
-      const j1 = Math.min(ny - 1, (b + 1) * st);
-      const fy = g.ky > 1 ? (j - b * st) / (j1 - b * st) : 0;
-      for (let i = 0; i < nx; i++) {
-        const a = Math.min(Math.floor(i / st), kx - 2 < 0 ? 0 : kx - 2);
-        const i1 = Math.min(nx - 1, (a + 1) * st);
-        const fx = kx > 1 ? (i - a * st) / (i1 - a * st) : 0;
-        const c00 = coarse[b * kx + a]!;
-        const c10 = coarse[b * kx + a + 1] ?? c00;
-        const c01 = coarse[(b + 1) * kx + a] ?? c00;
-        const c11 = coarse[(b + 1) * kx + a + 1] ?? c00;
-        H[j * nx + i]! += (c00 * (1 - fx) + c10 * fx) * (1 - fy) + (c01 * (1 - fx) + c11 * fx) * fy;
-      }
+    const ky = g.ky;
+    const cell = g.cell;
+    const W = g.weights;
+    const dx1 = kx > 1 ? 1 : 0;
+    const dy1 = ky > 1 ? kx : 0;
+    for (let k = 0; k < n; k++) {
+      const c = cell[k]!;
+      const q = 4 * k;
+      H[k]! += W[q]! * coarse[c]! + W[q + 1]! * coarse[c + dx1]! + W[q + 2]! * coarse[c + dy1]! + W[q + 3]! * coarse[c + dx1 + dy1]!;
     }
 
     let ref = subjectReading(room);

@@ -5,6 +5,7 @@ import { createLightMapCache, lightMap, meter, parseScene, type LightInput, type
 import { contourLines } from '../../../calc/contours';
 import { buildOccluders } from '../../../calc/flatScene';
 import { castShadows } from '../../../calc/shadows';
+import { buildRoom, gather, unitVector } from '../../../calc/room';
 import { transmissionAlong } from '../../../calc/transport';
 
 const flash = (id: string, x: number, y: number, aimDeg: number, over: Partial<LightInput> = {}): LightInput =>
@@ -268,3 +269,58 @@ describe('the map on the meter\'s transport', () => {
   });
 });
 
+
+describe('the map near walls', () => {
+  // An invented portrait room: a softbox key and a bare head washing the pale wall behind the subject.
+  const s: SceneInput = {
+    lights: [
+      { id: 'key', kind: 'flash', x: 3.6, y: 1.6, heightM: 1.9, aimDeg: 145, tiltDeg: -10, output: { type: 'energy', ratedWs: 400 }, powerFraction: 1 / 4, modifier: 'softbox' },
+      { id: 'wash', kind: 'flash', x: 1.4, y: 3.2, heightM: 1.2, aimDeg: 200, output: { type: 'energy', ratedWs: 400 }, powerFraction: 1 / 2, modifier: 'bare-reflector' },
+    ],
+    surfaces: [
+      { id: 'n', x1: 0, y1: 0, x2: 6, y2: 0, colour: '#d8d2c8' },
+      { id: 'e', x1: 6, y1: 0, x2: 6, y2: 5, colour: '#c8c8c8' },
+      { id: 's', x1: 6, y1: 5, x2: 0, y2: 5, colour: '#8a9aa8' },
+      { id: 'w', x1: 0, y1: 5, x2: 0, y2: 0, colour: '#e0ddd5' },
+    ],
+    floor: { x1: 0, y1: 0, x2: 6, y2: 5, colour: '#606060' },
+    ceiling: { heightM: 3, colour: '#f0f0f0' },
+    subject: { x: 2, y: 2.5, heightM: 1.3, facingDeg: 0 },
+    camera: { x: 5, y: 2.5, heightM: 1.3, aimDeg: 180, aperture: 8, shutterS: 1 / 160, iso: 100 },
+  };
+  const grid = { x0: 0, y0: 0, x1: 6, y1: 5, nx: 121, ny: 101 };
+  const cellAt = (x: number, y: number) => Math.round(y / 0.05) * grid.nx + Math.round(x / 0.05);
+  const points: [number, number, number][] = [];
+  for (const d of [0.1, 0.3, 1]) {
+    for (const t of [1, 2.5, 4]) points.push([d, t, d], [6 - d, t, d]);
+    for (const t of [1, 3, 5]) points.push([t, d, d], [t, 5 - d, d]);
+  }
+  // Bounds: the bounce is interpolated between points 0.2 m apart; the wall's light changes fastest within a
+  // few centimetres of it (the wash's hot spot), so 0.1 m from a wall gets the looser bound.
+  const bound = (d: number) => (d < 0.2 ? 0.4 : 0.1);
+
+  it('a flat receptor facing towards, away from and along the walls reads the meter\'s probes at 0.1, 0.3 and 1 m from them', () => {
+    const parsed = parseScene(s);
+    for (const facing of [0, 90, 180, 270]) {
+      const map = lightMap(parsed, { ...grid, facing });
+      const m = meter({ ...parsed, probes: points.map(([x, y], i) => ({ id: `p${i}`, x, y, z: 1.3, facingDeg: facing })) });
+      points.forEach(([x, y, d], i) => {
+        const err = Math.log2(map.luxSeconds[cellAt(x, y)]! / m.probes[i]!.luxSeconds);
+        expect(Math.abs(err), `facing ${facing}° at (${x}, ${y}), ${d} m from a wall`).toBeLessThan(bound(d));
+      });
+    }
+  });
+
+  it('the dome pointed at the camera reads the meter\'s own dome at the same points', () => {
+    const parsed = parseScene({ ...s, options: { receptor: 'dome-camera' } });
+    const map = lightMap(parsed, grid);
+    expect(map.receptor).toBe('dome');
+    meter(parsed);
+    const r = buildRoom(parsed);
+    for (const [x, y, d] of points) {
+      const dome = { x, y, z: 1.3, ...unitVector(5 - x, 2.5 - y, 0), kind: 'dome' as const };
+      const total = gather(r, dome, false).reduce((acc, g) => acc + g.direct + g.bounce, 0);
+      expect(Math.abs(Math.log2(map.luxSeconds[cellAt(x, y)]! / total)), `(${x}, ${y}), ${d} m from a wall`).toBeLessThan(bound(d));
+    }
+  });
+});
