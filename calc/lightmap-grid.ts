@@ -33,7 +33,7 @@ const AREA_RATIO_STEP = 2;
 export type MapReceptorKind = 'dome' | 'flat' | 'pointed';
 
 /** Points along one wall where its tone is shown, on the side the camera is on. */
-export type WallStrip = {
+type WallStrip = {
   surfaceIndex: number;
   surfaceId: string;
   /** The strip's receptors (1 mm off the wall, facing the camera's side), at the map's height. */
@@ -83,7 +83,7 @@ export type Geometry = {
   walls: WallStrip[];
 };
 
-/** Occluders of the body's four panels. */
+/** Occluders of the body's panels (torso, then head). */
 function bodyOccluders(scene: Scene): Occluders | null {
   const panels = bodyPanels(scene);
   if (panels.length === 0) return null;
@@ -94,17 +94,17 @@ function bodyOccluders(scene: Scene): Occluders | null {
     ay: Float64Array.from(panels, (p) => p.ay),
     ex: Float64Array.from(panels, (p) => p.ex),
     ey: Float64Array.from(panels, (p) => p.ey),
-    zLo: new Float64Array(n),
+    zLo: Float64Array.from(panels, (p) => p.zLo),
     zHi: Float64Array.from(panels, (p) => p.zHi),
     transmission: new Float64Array(n),
     surface: new Int32Array(n).fill(-2),
   };
 }
 
-/** Inside the body's footprint (a convex quad, corners in order)? */
+/** Inside the body's footprint (the torso's convex quad, its first four panels; it holds the head's)? */
 function insideBody(body: Occluders, x: number, y: number): boolean {
   let sign = 0;
-  for (let i = 0; i < body.count; i++) {
+  for (let i = 0; i < Math.min(4, body.count); i++) {
     const c = (x - body.ax[i]!) * body.ey[i]! - (y - body.ay[i]!) * body.ex[i]!;
     const s = c > 0 ? 1 : c < 0 ? -1 : 0;
     if (s === 0) continue;
@@ -448,7 +448,8 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
   for (let k = 0; k < n; k++) {
     const t = out[k]!;
     if (pf) pf[k] = 0;
-    if (t === 0) continue;
+    // Shaded points of a big face keep their point form (pf): the exact/point ratio stays defined through shadows.
+    if (t === 0 && !pf) continue;
     const dx = px[k]! - lpx;
     const dy = py[k]! - lpy;
     const d2 = dx * dx + dy * dy + dz2;
@@ -551,7 +552,8 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
     for (let i = 0; i < nx; i++) {
       const k = j * nx + i;
       const p = pf[k]!;
-      if (!(p > 0)) continue;
+      // Fully shaded points stay dark (their ratio is still defined, as a corner for their neighbours).
+      if (!(p > 0) || out[k] === 0) continue;
       const t = out[k]! / p;
       const a = Math.min(Math.floor(i / st), ca);
       const i0 = a * st;

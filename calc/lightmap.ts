@@ -54,7 +54,7 @@ export type LightMapGrid = {
 };
 
 /** One contour level as SVG path data in plan metres (traced where the map is computed; the UI only draws it). */
-export type ContourPath = {
+type ContourPath = {
   stops: number;
   /** "M x,y L x,y …" for every line of the level, coordinates rounded to the millimetre. */
   d: string;
@@ -63,7 +63,7 @@ export type ContourPath = {
 };
 
 /** The tone the camera records along one wall, on the side the camera is on (the meter's recorded tone). */
-export type WallTone = {
+type WallTone = {
   surfaceId: string;
   x1: number;
   y1: number;
@@ -105,7 +105,7 @@ export type LightMapResult = {
 };
 
 /** What the last update recomputed, for tests and the benchmark. */
-export type LightMapStats = { geometryRebuilt: boolean; lightsRecomputed: number; lightsReused: number };
+type LightMapStats = { geometryRebuilt: boolean; lightsRecomputed: number; lightsReused: number };
 
 export type LightMapCache = {
   /** Compute the map for this scene, reusing everything that did not change since the last call. */
@@ -165,7 +165,7 @@ function subjectReading(room: Room): number {
 }
 
 /** SVG path data of each contour level, with a label point on its longest line. */
-export function contourPaths(levels: ContourLevel[]): ContourPath[] {
+function contourPaths(levels: ContourLevel[]): ContourPath[] {
   const r = (v: number) => Math.round(v * 1000) / 1000;
   return levels.map((level) => {
     let d = '';

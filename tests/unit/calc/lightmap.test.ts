@@ -324,3 +324,53 @@ describe('the map near walls', () => {
     }
   });
 });
+
+describe('the subject\'s body: a torso and a head', () => {
+  // A bare point source 2 m in front of the subject, at the height of the map's plane, so its rays are level and
+  // the shadow's width on the plane is the plan projection of whichever box the plane cuts. The subject faces the light.
+  const body = { widthM: 0.45, depthM: 0.25, topM: 1.75 };
+  const scene = (h: number): SceneInput =>
+    room([flash('a', 1, 2.5, 0, { heightM: h })], {
+      surfaces: [],
+      flags: [],
+      subject: { x: 3, y: 2.5, heightM: 1.6, facingDeg: 180, body },
+      options: { bounce: false },
+    });
+  // Points along x = 5, 2 m behind the subject; 2 mm apart across.
+  const line = (h: number) => lightMap(scene(h), { x0: 5, y0: 2, x1: 5.001, y1: 3, nx: 2, ny: 501, heightM: h, facing: 180 });
+  // Half width of the shadow at x = 5: the box's nearest corners (half width w, at x = 3 − d/2 towards the light)
+  // seen from the light at x = 1: w · (5 − 1) / (3 − d/2 − 1).
+  const halfShadow = (w: number, d: number) => (w * 4) / (2 - d / 2);
+  const edges = (h: number) => {
+    const m = line(h);
+    const dark: number[] = [];
+    for (let j = 0; j < m.ny; j++) if (m.luxSeconds[j * 2]! === 0) dark.push(2 + j * 0.002);
+    return { lo: Math.min(...dark), hi: Math.max(...dark), lit: m.luxSeconds.some((v) => v > 0) };
+  };
+
+  it('at head height the shadow is the head\'s (0.16 m wide, 0.2 m deep), not the shoulders\'', () => {
+    const e = edges(1.6);
+    const half = halfShadow(0.08, 0.2);
+    expect(e.lit).toBe(true);
+    expect(e.lo).toBeCloseTo(2.5 - half, 2);
+    expect(e.hi).toBeCloseTo(2.5 + half, 2);
+  });
+
+  it('at chest height the shadow is the torso\'s (the body\'s width and depth)', () => {
+    const e = edges(1.2);
+    const half = halfShadow(0.225, 0.25);
+    expect(e.lo).toBeCloseTo(2.5 - half, 2);
+    expect(e.hi).toBeCloseTo(2.5 + half, 2);
+  });
+
+  it('above the head nothing is shaded; a body too short for a head is one box', () => {
+    expect(edges(1.85).lo).toBe(Infinity);
+    const short = lightMap(
+      room([flash('a', 1, 2.5, 0, { heightM: 0.5 })], { surfaces: [], flags: [], subject: { x: 3, y: 2.5, heightM: 0.5, facingDeg: 180, body: { widthM: 0.45, depthM: 0.25, topM: 0.55 } }, options: { bounce: false } }),
+      { x0: 5, y0: 2, x1: 5.001, y1: 3, nx: 2, ny: 501, heightM: 0.5, facing: 180 },
+    );
+    const dark: number[] = [];
+    for (let j = 0; j < short.ny; j++) if (short.luxSeconds[j * 2]! === 0) dark.push(2 + j * 0.002);
+    expect(Math.max(...dark) - 2.5).toBeCloseTo(halfShadow(0.225, 0.25), 2);
+  });
+});
