@@ -871,7 +871,7 @@ export function gather(room: Room, r: FieldReceptor, self: boolean, only?: numbe
  * Bounce at a receptor from the coarse patches' totals over all lights, added into `out` (linear sRGB lux·s).
  * `cacheWeights`: keep the receptor's patch weights for the room (points asked again while lights move).
  */
-export function coarseBounceInto(room: Room, r: FieldReceptor, self: boolean, cacheWeights: boolean, out: [number, number, number]): void {
+function coarseBounceInto(room: Room, r: FieldReceptor, self: boolean, cacheWeights: boolean, out: [number, number, number]): void {
   const C = room.coarse;
   const L = room.coarseLum;
   if (cacheWeights) {
