@@ -22,6 +22,7 @@ export function Handles({ theme, units }: { theme: PlanTheme; units: Units }) {
   const id = settled.id;
   const live = id ? moved?.get(id) : undefined;
   const h = live ? flat(editor.getState(), live) : settled;
+  if (!('ax' in h)) return null;
   const c = { x: h.cx, y: h.cy };
   const aim = { x: h.ax!, y: h.ay! };
   const height = { x: h.hx!, y: h.hy! };

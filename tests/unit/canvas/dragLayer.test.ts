@@ -43,12 +43,13 @@ afterEach(() => vi.useRealTimers());
 
 describe('offsetOf', () => {
   const key = doc.items.find((i) => i.id === 'key')! as Item & { x: number; y: number; aimDeg: number };
+  const as = (o: object) => o as Item;
   it('is the shift of an item that only moved', () => {
-    expect(offsetOf(key, { ...key, x: key.x + 0.5, y: key.y - 0.25 })).toEqual({ dx: 0.5, dy: -0.25 });
+    expect(offsetOf(key, as({ ...key, x: key.x + 0.5, y: key.y - 0.25 }))).toEqual({ dx: 0.5, dy: -0.25 });
   });
   it('is null when the item turned or changed beside moving', () => {
-    expect(offsetOf(key, { ...key, aimDeg: key.aimDeg + 10 })).toBeNull();
-    expect(offsetOf(key, { ...key, x: key.x + 1, label: 'Moved and renamed' })).toBeNull();
+    expect(offsetOf(key, as({ ...key, aimDeg: key.aimDeg + 10 }))).toBeNull();
+    expect(offsetOf(key, as({ ...key, x: key.x + 1, label: 'Moved and renamed' }))).toBeNull();
   });
   it('shifts a segment only when both ends moved alike', () => {
     const wall = { id: 'w', kind: 'wall', a: { x: 0, y: 0 }, b: { x: 2, y: 0 }, colour: '#ffffff' } as unknown as Item;
