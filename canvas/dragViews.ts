@@ -60,10 +60,13 @@ export function useItemDrag(id: string, draw: (i: Item) => SvgNode | null, shift
       if (s && p) writeItem(s, p, item, shifts ? offset : null, drawRef.current);
       else setLive(item);
     });
+    // The nodes as they stand now, put back as React drew them when the view goes.
+    const shellNode = shell.current;
+    const previewNode = preview.current;
     return () => {
       off();
-      const s = domOf(shell.current);
-      const p = domOf(preview.current);
+      const s = domOf(shellNode);
+      const p = domOf(previewNode);
       if (s && p) writeItem(s, p, null, null, drawRef.current);
     };
   }, [layer, id, shifts]);
@@ -98,9 +101,10 @@ export function useGroupDrag(transform: (o: Offset) => string) {
       s?.removeAttribute('transform');
       show(items);
     });
+    const shellNode = shell.current;
     return () => {
       off();
-      domOf(shell.current)?.removeAttribute('transform');
+      domOf(shellNode)?.removeAttribute('transform');
     };
   }, [layer]);
   return { shell, moved };
