@@ -18,11 +18,11 @@ export type Offset = { dx: number; dy: number };
 
 /** One item's view: `live` is the item as the hand holds it (null: the gesture ended or left it; show the
  *  document again); `offset` is set when the live item differs from the drawn one only by a shift. */
-export type ItemDragView = (live: Item | null, offset: Offset | null) => void;
+type ItemDragView = (live: Item | null, offset: Offset | null) => void;
 
 /** A view of several moved items at once (the selection marks, the handles): `moved` is the gesture's live
  *  items (null: show the document again); `offset` is set when every one of them moved by the same shift. */
-export type GroupDragView = (moved: ReadonlyMap<string, Item> | null, offset: Offset | null) => void;
+type GroupDragView = (moved: ReadonlyMap<string, Item> | null, offset: Offset | null) => void;
 
 type Watched = { getState: () => EditorState; subscribe: (f: (s: EditorState, prev: EditorState) => void) => () => void };
 
