@@ -12,7 +12,7 @@ import type { SetupDetail, SetupSaved } from '../../model/api';
 import type { SetupDocument } from '../../model/document';
 import type { Editor } from './editor';
 
-export type Changes = { document?: SetupDocument; title?: string; notes?: string };
+type Changes = { document?: SetupDocument; title?: string; notes?: string };
 export type SaveBody = Changes & { version: number };
 
 export type SaveStatus =
@@ -24,10 +24,10 @@ export type SaveStatus =
   | { kind: 'failed'; message: string };
 
 /** Changes sent as the page closed whose arrival was never confirmed. */
-export type KeptChanges = { setupId: string; baseVersion: number; changes: Changes; at: string };
+type KeptChanges = { setupId: string; baseVersion: number; changes: Changes; at: string };
 
 /** `waiting`: edits made since the last confirmed save while the server could not be reached (0 otherwise). */
-export type PersistState = { status: SaveStatus; kept: KeptChanges | null; waiting: number };
+type PersistState = { status: SaveStatus; kept: KeptChanges | null; waiting: number };
 
 /** Changes made without signal, kept durably until a save confirms them. `count`: the edits they hold. */
 export type QueuedChanges = { setupId: string; baseVersion: number; changes: Changes; count: number; at: string };
@@ -48,7 +48,7 @@ export type PersistClient = {
   createCopy: (body: { studioId?: string; title: string; document: SetupDocument; notes: string }) => Promise<{ id: string }>;
 };
 
-export type KeyValueStorage = { getItem(k: string): string | null; setItem(k: string, v: string): void; removeItem(k: string): void };
+type KeyValueStorage = { getItem(k: string): string | null; setItem(k: string, v: string): void; removeItem(k: string): void };
 
 export type PersistOptions = {
   setup: Pick<SetupDetail, 'id' | 'version' | 'studioId' | 'title' | 'notes' | 'document'>;
@@ -87,7 +87,7 @@ export type Persist = StoreApi<PersistState> & {
 
 export const AUTOSAVE_DELAY_MS = 700;
 export const BACKOFF_FIRST_MS = 2000;
-export const BACKOFF_MAX_MS = 30_000;
+const BACKOFF_MAX_MS = 30_000;
 export const keptKey = (id: string) => `falloff:unsaved:${id}`;
 
 /** Every live persist, so an error boundary can save before it shows its message. */
