@@ -51,7 +51,7 @@ async function centreOf(l: Locator) {
 }
 
 describe('comments through a share link', () => {
-  it('crew on a phone pins a question to a light from the link; the photographer replies and resolves', async () => {
+  it('crew on a phone pins a question to a light from the link; the photographer replies and resolves', { timeout: 400_000 }, async () => {
     const owner = await person('wide', 'Odile Photographer');
     const crew = await person('phone', 'Tomas Assistant', true);
     const studio = await owner.send('POST', '/studios', { name: `Quay ${word}` });

@@ -28,7 +28,7 @@ const placeOf = (page: Page, testId: string) =>
   });
 
 describe('signing out on a phone with changes waiting', () => {
-  it('shows the whole question, buttons included, without scrolling', async () => {
+  it('shows the whole question, buttons included, without scrolling', { timeout: 300_000 }, async () => {
     const ctx = await browser().newContext({ viewport: viewports.phone, hasTouch: true, isMobile: true });
     const email = freshEmail('signout-phone');
     const up = await ctx.request.post(`${base}/api/auth/sign-up/email`, { data: { name: 'Ines Phone', email, password: PASSWORD }, headers: { origin: base } });
