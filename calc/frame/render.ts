@@ -21,14 +21,14 @@ export const FRAME_LIMITS =
 
 /** Reflectance of clothing on the neutral form (our own mid-dark grey) and of the eye (mostly the dark iris and pupil that show between the lids). */
 const CLOTH_REFLECTANCE = 0.1;
-const EYE_REFLECTANCE = 0.08;
+const EYE_REFLECTANCE = 0.05;
 /** Reflectance of the cornea at normal incidence, about 2.5 % (n ≈ 1.376; Fresnel). */
 const CORNEA_REFLECTANCE = 0.025;
 /**
  * Smallest angular radius (of the reflected ray about the light) a catchlight is drawn with, radians: a small
  * or distant light's true mirror image is under a pixel at any useful frame size, so it is drawn this large.
  */
-const MIN_CATCHLIGHT_RAD = 0.6;
+const MIN_CATCHLIGHT_RAD = 0.45;
 /** Flags and scrims seen by the lens: near-black fabric (from memory). */
 const FLAG_REFLECTANCE = 0.04;
 const PROP_COLOUR = '#7d6c5a';
@@ -136,15 +136,40 @@ type LatticeLevel = {
   cellId: Int32Array;
 };
 /** Lattices of `step`, `step`/2, … down to 2 pixels (none for step 1: every pixel is computed). */
-function latticeLevels(W: number, H: number, step: number): LatticeLevel[] {
+function latticeLevels(W: number, H: number, step: number, cache = true): LatticeLevel[] {
   const out: LatticeLevel[] = [];
   if (W < 2 || H < 2) return out;
   for (let s = step; s >= 2; s = Math.floor(s / 2)) {
     const LX = Math.ceil((W - 1) / s) + 1;
     const LY = Math.ceil((H - 1) / s) + 1;
-    out.push({ s, LX, LY, D: new Float64Array(LX * LY * 3), done: new Uint8Array(LX * LY), state: new Uint8Array(LX * LY), cellId: new Int32Array(LX * LY) });
+    const key = `${s}:${LX}:${LY}`;
+    let v = cache ? levelCache.get(key) : undefined;
+    if (!v) {
+      v = { s, LX, LY, D: new Float64Array(LX * LY * 3), done: new Uint8Array(LX * LY), state: new Uint8Array(LX * LY), cellId: new Int32Array(LX * LY) };
+      if (levelCache.size > 16) levelCache.clear();
+      if (cache) levelCache.set(key, v);
+    } else {
+      v.done.fill(0);
+      v.state.fill(0);
+    }
+    out.push(v);
   }
   return out;
+}
+
+/**
+ * Working arrays kept between renders (a drag renders many frames of one size; fresh arrays of a few MB each
+ * time cost more in garbage collection than the light itself). Renders run one at a time on a thread.
+ */
+const levelCache = new Map<string, LatticeLevel>();
+type Scratch = { n: number; hitP: Float32Array; hitN: Float32Array; alb: Float32Array; see: Float32Array; mats: Uint8Array };
+let scratch: Scratch | null = null;
+function scratchFor(N: number): Scratch {
+  if (scratch && scratch.n >= N) return scratch;
+  const fresh = { n: N, hitP: new Float32Array(N * 3), hitN: new Float32Array(N * 3), alb: new Float32Array(N * 3), see: new Float32Array(N), mats: new Uint8Array(N) };
+  // Kept up to about a 1200 × 800 frame; a larger one (a print export) gets its own.
+  if (N <= 1_000_000) scratch = fresh;
+  return fresh;
 }
 
 /** Imported constants as local ones: the inner loops read them per pixel. */
@@ -195,11 +220,12 @@ function hitPanel(P: Float64Array, i: number, ox: number, oy: number, oz: number
 
 /**
  * For each 8 × 8 tile, a bit per part of the form whose bounding sphere can project into it (conservative: the
- * box around the sphere in camera space, projected; a sphere reaching behind the lens covers every tile).
+ * box around the sphere in camera space, projected; a sphere reaching behind the lens covers every tile). Two
+ * words per tile: parts 0–31, then 32–63.
  */
 function partTileMasks(S: Solids, cam: FrameCamera, W: number, H: number, tilesX: number): Uint32Array {
   const tilesY = (H + TILE - 1) >> TILE_SHIFT;
-  const masks = new Uint32Array(tilesX * tilesY);
+  const masks = new Uint32Array(tilesX * tilesY * 2);
   for (let i = 0; i < S.count; i++) {
     const vx = S.c[i * 3]! - cam.ox;
     const vy = S.c[i * 3 + 1]! - cam.oy;
@@ -232,9 +258,9 @@ function partTileMasks(S: Solids, cam: FrameCamera, W: number, H: number, tilesX
       y0 = Math.max(0, Math.floor(pyLo) >> TILE_SHIFT);
       y1 = Math.min(tilesY - 1, Math.floor(pyHi) >> TILE_SHIFT);
     } else if (zf + r <= 0) continue;
-    if (i >= 32) break; // tested by every ray (hitSolids)
-    const bit = (1 << i) >>> 0;
-    for (let ty = y0; ty <= y1; ty++) for (let tx = x0; tx <= x1; tx++) masks[ty * tilesX + tx] = (masks[ty * tilesX + tx]! | bit) >>> 0;
+    const bit = (1 << (i & 31)) >>> 0;
+    const w = i >> 5;
+    for (let ty = y0; ty <= y1; ty++) for (let tx = x0; tx <= x1; tx++) masks[(ty * tilesX + tx) * 2 + w] = (masks[(ty * tilesX + tx) * 2 + w]! | bit) >>> 0;
   }
   return masks;
 }
@@ -282,11 +308,7 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
   const stops = new Float32Array(N);
   const ids = new Int32Array(N);
   // What each pixel's ray hits: point, normal, albedo, what a scrim in the view lets through, material.
-  const hitP = new Float32Array(N * 3);
-  const hitN = new Float32Array(N * 3);
-  const alb = new Float32Array(N * 3);
-  const see = new Float32Array(N);
-  const mats = new Uint8Array(N);
+  const { hitP, hitN, alb, see, mats } = scratchFor(N);
 
   const n = new Float64Array(3);
   const acc = new Float64Array(3);
@@ -391,8 +413,10 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
           ab = propRgb[2];
         }
       }
-      const tileMask = tileMasks ? tileMasks[(py >> TILE_SHIFT) * tilesX + (px >> TILE_SHIFT)]! : 0;
-      if (S && tileMask !== 0 && hitSolids(S, ox, oy, oz, dx, dy, dz, 1e-6, best, hit, tileMask)) {
+      const ti = ((py >> TILE_SHIFT) * tilesX + (px >> TILE_SHIFT)) * 2;
+      const tileMask = tileMasks ? tileMasks[ti]! : 0;
+      const tileMaskHi = tileMasks ? tileMasks[ti + 1]! : 0;
+      if (S && (tileMask !== 0 || tileMaskHi !== 0) && hitSolids(S, ox, oy, oz, dx, dy, dz, 1e-6, best, hit, tileMask, tileMaskHi)) {
         best = hit.t;
         id = ID_SUBJECT;
         mat = S.mat[hit.part]!;
@@ -470,7 +494,7 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
 
   // Pass 2: the bounce on a lattice of every 2·`step`-th pixel (and the last row and column), eagerly; the
   // direct light on lattices of `step`, `step`/2, … 2 pixels, each point computed when a pixel first asks.
-  const levels = latticeLevels(W, H, step);
+  const levels = N <= 1_000_000 ? latticeLevels(W, H, step) : latticeLevels(W, H, step, false);
   const top = levels[0];
   // The bounce is smooth within an object: its lattice is twice the direct light's top one.
   const bstep = step * 2;
@@ -548,8 +572,9 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
           blend(v, k, j, fx, fy, 15, out);
           return;
         }
-        if (li !== levels.length - 1) continue;
-        // The finest lattice beside an edge: the corners that see this pixel's object.
+        // The finest lattice beside an edge: the corners that see this pixel's object (not on the form's
+        // outline, where a light from behind grazes it in a rim thinner than a cell).
+        if (li !== levels.length - 1 || id === ID_SUBJECT) continue;
         const m = (ids[y0 * W + x0] === id ? 1 : 0) | (ids[y0 * W + x1] === id ? 2 : 0) | (ids[y1 * W + x0] === id ? 4 : 0) | (ids[y1 * W + x1] === id ? 8 : 0);
         if (m === 0 || m === 15) break;
         if (blend(v, k, j, fx, fy, m, out)) return;
