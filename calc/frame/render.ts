@@ -34,13 +34,13 @@ const FLAG_REFLECTANCE = 0.04;
 const PROP_COLOUR = '#7d6c5a';
 
 /** Object ids in `FrameResult.ids`. */
-export const ID_VOID = -1;
-export const ID_FLOOR = 0;
-export const ID_CEILING = 1;
+const ID_VOID = -1;
+const ID_FLOOR = 0;
+const ID_CEILING = 1;
 export const ID_SURFACE = 100; // + surface index
-export const ID_FLAG = 200; // + flag index
+const ID_FLAG = 200; // + flag index
 export const ID_SUBJECT = 300;
-export const ID_PROP = 400; // + prop index
+const ID_PROP = 400; // + prop index
 
 export type FrameCamera = {
   ox: number;
@@ -78,7 +78,7 @@ export type RenderOptions = {
   latticeStep?: number;
 };
 
-export function frameCamera(fs: FrameScene): FrameCamera {
+function frameCamera(fs: FrameScene): FrameCamera {
   const c = fs.scene.camera;
   const a = (c.aimDeg * Math.PI) / 180;
   const t = (fs.extras.cameraTiltDeg * Math.PI) / 180;
@@ -92,7 +92,7 @@ export function frameCamera(fs: FrameScene): FrameCamera {
 }
 
 /** Image height for a width, from the sensor's aspect ratio. */
-export function frameHeight(fs: FrameScene, width: number): number {
+function frameHeight(fs: FrameScene, width: number): number {
   const c = fs.scene.camera;
   return Math.max(1, Math.round((width * c.sensorHeightMm) / c.sensorWidthMm));
 }
@@ -265,7 +265,7 @@ function partTileMasks(S: Solids, cam: FrameCamera, W: number, H: number, tilesX
   return masks;
 }
 
-export type PreparedFrame = {
+type PreparedFrame = {
   fs: FrameScene;
   field: Field;
   solids: Solids | null;
@@ -274,7 +274,7 @@ export type PreparedFrame = {
 };
 
 /** Everything that does not depend on the picture's size; reuse it for a coarse and a refined pass. */
-export function prepareFrame(input: FrameInput): PreparedFrame {
+function prepareFrame(input: FrameInput): PreparedFrame {
   const fs: FrameScene = parseFrameInput(input);
   const field = prepareField(fs.scene);
   const solids = fs.extras.subjectVisible ? buildSubjectSolids(fs.scene.subject, fs.extras.pose) : null;
@@ -674,7 +674,7 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
       const h1 = d[1]! + sm[1]!;
       const h2 = d[2]! + sm[2]!;
       const y = 0.2126 * h0 + 0.7152 * h1 + 0.0722 * h2;
-      stops[pi] = y > 0 ? Math.log2(y * inv) : -30;
+      stops[pi] = y > 0 ? fastLog2(y * inv) : -30;
       let lr = alb[pi * 3]! * h0 * wb[0] * inv;
       let lg = alb[pi * 3 + 1]! * h1 * wb[1] * inv;
       let lb = alb[pi * 3 + 2]! * h2 * wb[2] * inv;
@@ -700,6 +700,25 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
   const subjectH = exposureAt(field, { x: sub.x, y: sub.y, z: sub.heightM, nx: Math.cos((sub.facingDeg * Math.PI) / 180), ny: Math.sin((sub.facingDeg * Math.PI) / 180), nz: 0 }, true);
   const subjH = subjectH.luxSeconds + 0.2126 * amb[0] + 0.7152 * amb[1] + 0.0722 * amb[2];
   return { width: W, height: H, linear, stops, ids, subjectStops: subjH > 0 ? Math.log2(subjH * inv) : null, camera: cam };
+}
+
+/** log2 by exponent and a 1024-step table of the mantissa, linearly interpolated (error under 1e-6). */
+const LOG2_STEPS = 1024;
+const LOG2_TABLE = Float64Array.from({ length: LOG2_STEPS + 1 }, (_, i) => Math.log2(1 + i / LOG2_STEPS));
+const f64 = new Float64Array(1);
+const u32 = new Uint32Array(f64.buffer);
+/** Which 32-bit half of a float64 holds the sign, exponent and the mantissa's top (1 on little-endian machines). */
+const HI = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0;
+function fastLog2(x: number): number {
+  if (!(x >= 1e-300) || x === Infinity) return Math.log2(x);
+  f64[0] = x;
+  const hi = u32[HI]!;
+  const e = (hi >>> 20) - 1023;
+  if (e === -1023) return Math.log2(x); // subnormal
+  const frac = ((hi & 0xfffff) + u32[1 - HI]! / 4294967296) / 1048576; // mantissa − 1, in [0, 1)
+  const t = frac * LOG2_STEPS;
+  const i = t | 0;
+  return e + LOG2_TABLE[i]! + (t - i) * (LOG2_TABLE[i + 1]! - LOG2_TABLE[i]!);
 }
 
 const specOut: [number, number, number] = [0, 0, 0];

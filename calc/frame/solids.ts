@@ -9,7 +9,7 @@
 import type { FrameProp } from './scene';
 import { PROP_BOXES } from './scene';
 
-export const MAT_SKIN = 1;
+const MAT_SKIN = 1;
 export const MAT_EYE = 2;
 export const MAT_CLOTH = 3;
 
@@ -102,7 +102,7 @@ function legs(pose: 'standing' | 'seated', floorU: number): Part[] {
 /** Shoulder width the form's shoulder line is drawn for, m (the subject's body width scales it). */
 const FORM_SHOULDERS_M = 0.44;
 /** Most parts a form has (two 32-bit words of picture-tile masks, render.ts). */
-export const MAX_PARTS = 64;
+const MAX_PARTS = 64;
 
 /**
  * Ellipsoids as flat arrays: centre (3) and the world → unit-sphere matrix M (9, row-major) per part, so a
