@@ -122,5 +122,12 @@ export async function runTask<T>(modulePath: string, fn: string, arg: unknown, w
   }
 }
 
+/** Stop the pool's threads (tests that run tasks in process end with this, so vitest can exit). */
+export async function closePool() {
+  const p = pool;
+  pool = null;
+  await p?.destroy();
+}
+
 /** A Buffer view of bytes that came back from a thread (structured clone gives a Uint8Array). */
 export const asBuffer = (u: Uint8Array): Buffer => Buffer.from(u.buffer, u.byteOffset, u.byteLength);
