@@ -149,6 +149,8 @@ export const RETRY_MAX_MS = 60_000;
 let retryTimer: ReturnType<typeof setTimeout> | null = null;
 let retryDelay = RETRY_FIRST_MS;
 
+/** How long one queued send may take before it counts as failed (and is tried again). */
+const SEND_TIMEOUT_MS = 15_000;
 let sending: Promise<void> | null = null;
 /** Send the signed-in person's queued changes of setups no editor has open, once (a send under way is joined).
  *  A 409 leaves the entry marked for a choice (opening the setup offers the usual choices); an answer that says
@@ -165,7 +167,9 @@ export function sendQueuedNow(qc: QueryClient): Promise<void> {
       for (const e of await offlineQueue.all()) {
         if (e.conflict || isOpenInEditor(e.setupId)) continue;
         try {
-          await persistClient.save(e.setupId, { version: e.baseVersion, ...e.changes });
+          // A send that hangs (seen right after the connection returns) is given up after a while and tried
+          // again; the idempotency key makes a retry of a save that did commit return its result, not a 409.
+          await persistClient.save(e.setupId, { version: e.baseVersion, ...e.changes }, { signal: AbortSignal.timeout(SEND_TIMEOUT_MS), idempotencyKey: `queued-${e.setupId}-${e.baseVersion}-${Date.parse(e.at) || 0}` });
           await offlineQueue.remove(e.setupId);
           void qc.invalidateQueries({ queryKey: setupKeys.detail(e.setupId) });
           void qc.invalidateQueries({ queryKey: setupKeys.lists() });

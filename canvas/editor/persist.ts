@@ -44,7 +44,7 @@ export type DurableQueue = {
 export type PersistClient = {
   /** `idempotencyKey`: the same for a retry of the same save, so a save that committed but whose answer was lost
    *  is answered again by the server instead of a version conflict. */
-  save: (id: string, body: SaveBody, opts?: { keepalive?: boolean; idempotencyKey?: string }) => Promise<Pick<SetupSaved, 'version'> & Partial<SetupSaved>>;
+  save: (id: string, body: SaveBody, opts?: { keepalive?: boolean; idempotencyKey?: string; signal?: AbortSignal }) => Promise<Pick<SetupSaved, 'version'> & Partial<SetupSaved>>;
   createCopy: (body: { studioId?: string; title: string; document: SetupDocument; notes: string }) => Promise<{ id: string }>;
 };
 
@@ -378,9 +378,14 @@ export function createPersist(editor: Editor, o: PersistOptions): Persist {
   return persist;
 }
 
+/** The persists of the editors on the page now: attached by the mounted editor (attachToPage), not merely made.
+ *  A render React throws away (Suspense, a concurrent render) can make a persist that is never mounted nor
+ *  disposed; counting it kept that setup's queued changes from ever being sent by the library. */
+const attached = new Set<Persist>();
+
 /** Whether a setup is open in an editor on this page (its queued changes are that editor's to send). */
 export function isOpenInEditor(setupId: string): boolean {
-  return [...live].some((p) => p.setupId === setupId);
+  return [...attached].some((p) => p.setupId === setupId);
 }
 
 /** Hook the page's lifecycle to a persist: save on close (pagehide, or the tab hidden), retry when online. */
@@ -393,7 +398,9 @@ export function attachToPage(p: Persist, target: Pick<Window, 'addEventListener'
   target.addEventListener('pagehide', onHide);
   target.addEventListener('visibilitychange', onVisibility);
   target.addEventListener('online', onOnline);
+  attached.add(p);
   return () => {
+    attached.delete(p);
     target.removeEventListener('pagehide', onHide);
     target.removeEventListener('visibilitychange', onVisibility);
     target.removeEventListener('online', onOnline);
