@@ -24,7 +24,7 @@ export function OfflineBanner() {
     : conflicts.length
       ? `${conflicts.length === 1 ? 'A setup was' : `${conflicts.length} setups were`} changed elsewhere while you were offline: open ${conflicts.length === 1 ? 'it' : 'each'} to choose`
       : stuck
-        ? `${changes(waiting)} not sent yet: ${send.failed}. ${send.retryAt ? 'Trying again shortly' : ''}`.trim()
+        ? `${changes(waiting)} not sent yet: ${send.failed}. Trying again shortly`
         : `Back online — sending ${changes(waiting)}`;
   return (
     <View style={[s.bar, online && conflicts.length ? { borderBottomColor: colours.accent } : null]} accessibilityRole="alert" accessibilityLiveRegion="polite" testID="offline-banner">

@@ -5,20 +5,11 @@ import type { Page } from 'playwright-core';
 import { describe, expect, inject, it } from 'vitest';
 import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
 import { Client, freshEmail } from '../support/http';
+import { offlineDoc } from '../support/offlineSetup';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
 const PASSWORD = 'e2e-sign-out-phone-1';
-
-const doc = {
-  schemaVersion: 1,
-  stage: { widthM: 6, depthM: 5 },
-  items: [
-    { id: 'sub', kind: 'subject', x: 3, y: 2, facingDeg: 90 },
-    { id: 'key', kind: 'light', x: 3, y: 3.2, aimDeg: -90, source: { type: 'strobe', energyWs: 400 } },
-    { id: 'cam', kind: 'camera', x: 3, y: 4.5, aimDeg: -90 },
-  ],
-};
 
 /** The box's top and bottom against the viewport's height. */
 const placeOf = (page: Page, testId: string) =>
@@ -34,7 +25,7 @@ describe('signing out on a phone with changes waiting', () => {
     const up = await ctx.request.post(`${base}/api/auth/sign-up/email`, { data: { name: 'Ines Phone', email, password: PASSWORD }, headers: { origin: base } });
     expect(up.status()).toBe(200);
     expect((await ctx.request.get(await new Client(base).mailedLink(email, '/api/auth/verify-email'))).ok()).toBe(true);
-    const made = await ctx.request.post(`${base}/api/setups`, { data: { title: 'Waiting on the phone', document: doc }, headers: { origin: base } });
+    const made = await ctx.request.post(`${base}/api/setups`, { data: { title: 'Waiting on the phone', document: offlineDoc }, headers: { origin: base } });
     expect(made.status()).toBe(201);
     const id = ((await made.json()) as { id: string }).id;
 
