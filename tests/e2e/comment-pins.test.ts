@@ -1,10 +1,9 @@
 // The comment pins' plan beside the editor's own plan on a wide screen, in Chromium: it is hidden from
 // assistive tech (the items are reached once, on the editor's plan), and zoom and
 // pan work on it with the pins showing — a pin stays on its light as the view moves.
-import type { Locator } from 'playwright-core';
 import { describe, expect, inject, it } from 'vitest';
-import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
-import { Client, freshEmail } from '../support/http';
+import { sharedBrowser, shot } from '../support/browser';
+import { centreOf, newPerson } from '../support/comments';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
@@ -21,29 +20,12 @@ const doc = {
   ],
 };
 
-async function centreOf(l: Locator) {
-  const b = (await l.boundingBox())!;
-  return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
-}
-
 describe('the comment pins plan in the editor', () => {
   it('is hidden from assistive tech, and zooms and pans with the pins on their items', async () => {
-    const context = await browser().newContext({ viewport: viewports.wide });
-    const email = freshEmail('pins');
-    const r = await context.request.post(`${base}/api/auth/sign-up/email`, { data: { name: 'Ines Pins', email, password: PASSWORD }, headers: { origin: base } });
-    expect(r.status()).toBe(200);
-    const link = await new Client(base).mailedLink(email, '/api/auth/verify-email');
-    expect((await context.request.get(link)).ok()).toBe(true);
-    const send = async (path: string, data: unknown) => {
-      const res = await context.request.post(`${base}/api${path}`, { data, headers: { origin: base } });
-      expect(res.ok(), await res.text()).toBe(true);
-      return res.json();
-    };
-    const setup = await send('/setups', { title: 'Kicker check', document: doc });
-    await send(`/setups/${setup.id}/comments`, { body: 'Is the kicker spilling onto the paper?', itemId: 'kick' });
+    const { context, page, errors, send } = await newPerson(base, browser(), { viewport: 'wide', name: 'Ines Pins', password: PASSWORD });
+    const setup = await send('POST', '/setups', { title: 'Kicker check', document: doc });
+    await send('POST', `/setups/${setup.id}/comments`, { body: 'Is the kicker spilling onto the paper?', itemId: 'kick' });
 
-    const page = await context.newPage();
-    const errors = watchErrors(page);
     await page.goto(`${base}/setups/${setup.id}`);
     await page.getByTestId('plan').waitFor({ timeout: 30_000 });
     const plan = page.getByTestId('comment-plan');

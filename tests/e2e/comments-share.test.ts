@@ -5,11 +5,10 @@
 // padded "04:18 PM".
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { BrowserContext, Locator } from 'playwright-core';
 import { describe, expect, inject, it } from 'vitest';
 import { pdfText } from '../api/exports.helpers';
-import { artifactsDir, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
-import { Client, freshEmail } from '../support/http';
+import { artifactsDir, sharedBrowser, shot } from '../support/browser';
+import { centreOf, newPerson, replyAndResolve, studioWithCrew } from '../support/comments';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
@@ -30,33 +29,13 @@ const doc = {
   ],
 };
 
-async function person(vp: keyof typeof viewports, name: string, touch = false) {
-  const context = await browser().newContext({ viewport: viewports[vp], locale: 'en-US', acceptDownloads: true, ...(touch ? { isMobile: true, hasTouch: true } : {}) });
-  const email = freshEmail(name.split(' ')[0]!.toLowerCase());
-  const r = await context.request.post(`${base}/api/auth/sign-up/email`, { data: { name, email, password: PASSWORD }, headers: { origin: base } });
-  expect(r.status()).toBe(200);
-  const link = await new Client(base).mailedLink(email, '/api/auth/verify-email');
-  expect((await context.request.get(link)).ok()).toBe(true);
-  const page = await context.newPage();
-  return { context, page, email, errors: watchErrors(page), send: sender(context) };
-}
-const sender = (c: BrowserContext) => async (method: 'POST' | 'PUT', path: string, data: unknown) => {
-  const r = await c.request.fetch(`${base}/api${path}`, { method, data, headers: { origin: base } });
-  expect(r.ok(), await r.text()).toBe(true);
-  return r.json();
-};
-async function centreOf(l: Locator) {
-  const b = (await l.boundingBox())!;
-  return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
-}
+const person = (vp: 'phone' | 'wide', name: string, touch = false) => newPerson(base, browser(), { viewport: vp, name, password: PASSWORD, touch });
 
 describe('comments through a share link', () => {
   it('crew on a phone pins a question to a light from the link; the photographer replies and resolves', { timeout: 400_000 }, async () => {
     const owner = await person('wide', 'Odile Photographer');
     const crew = await person('phone', 'Tomas Assistant', true);
-    const studio = await owner.send('POST', '/studios', { name: `Quay ${word}` });
-    const inv = await owner.send('POST', `/studios/${studio.id}/members`, { email: crew.email, role: 'crew' });
-    await crew.send('POST', `/invitations/${inv.link.slice(inv.link.lastIndexOf('/') + 1)}/accept`, {});
+    const studio = await studioWithCrew(owner, crew, `Quay ${word}`);
     const setup = await owner.send('POST', '/setups', { studioId: studio.id, title: `Cello portrait ${word}`, notes: 'Chair at the tape cross; cello spike on the rubber mat.', document: doc });
     const { url } = await owner.send('POST', `/setups/${setup.id}/shares`, { label: 'Crew' });
 
@@ -97,20 +76,11 @@ describe('comments through a share link', () => {
     await o.getByTestId('plan').waitFor({ timeout: 30_000 });
     const othread = o.getByTestId('comment-thread');
     await expect.poll(() => othread.count(), { timeout: 20_000 }).toBe(1);
-    const pin = await centreOf(o.getByTestId('comment-plan').getByLabel('Comment 1'));
-    const light = await centreOf(o.getByTestId('comment-plan').getByTestId('pin-item-hair'));
-    expect(Math.abs(pin.x - light.x)).toBeLessThan(20);
-    expect(Math.abs(pin.y - light.y)).toBeLessThan(40);
-    await othread.getByRole('button', { name: 'Reply' }).click();
-    await o.getByLabel('Your reply').fill('Yes, 2.2 m; tilt it down a touch more.');
-    await o.getByRole('button', { name: 'Send the reply' }).click();
-    await expect.poll(() => o.getByTestId('comment-reply').count(), { timeout: 15_000 }).toBe(1);
-    await expect.poll(() => othread.getByRole('button', { name: 'Reply' }).count(), { timeout: 15_000 }).toBe(1);
-    expect(await o.getByTestId('comment-reply').textContent()).toMatch(TODAY);
-    await othread.scrollIntoViewIfNeeded();
-    await shot(o, 'comments-share-wide-reply');
-    await othread.getByRole('button', { name: 'Resolve' }).click();
-    await expect.poll(() => o.getByText('Show resolved (1)').count(), { timeout: 15_000 }).toBe(1);
+    await replyAndResolve(o, 'hair', 'Yes, 2.2 m; tilt it down a touch more.', async (t) => {
+      expect(await o.getByTestId('comment-reply').textContent()).toMatch(TODAY);
+      await t.scrollIntoViewIfNeeded();
+      await shot(o, 'comments-share-wide-reply');
+    });
 
     // ---- Back on the phone: the answer, under "resolved" ----
     await p.reload();

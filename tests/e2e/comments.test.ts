@@ -3,10 +3,10 @@
 // setup in the library, opens it, finds the numbered pin on the light, replies and resolves the thread; the
 // crew member sees the reply and the resolved state. The studio, its crew member and the setup are made
 // through the API; the talking is the UI.
-import type { BrowserContext, Locator, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { describe, expect, inject, it } from 'vitest';
-import { dragSheet, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
-import { freshEmail, Client } from '../support/http';
+import { dragSheet, sharedBrowser, shot } from '../support/browser';
+import { centreOf, newPerson, replyAndResolve, studioWithCrew } from '../support/comments';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
@@ -24,38 +24,15 @@ const doc = {
   ],
 };
 
-async function person(vp: keyof typeof viewports, name: string, touch = false) {
-  const context = await browser().newContext({ viewport: viewports[vp], ...(touch ? { isMobile: true, hasTouch: true } : {}) });
-  const email = freshEmail(name.split(' ')[0]!.toLowerCase());
-  const r = await context.request.post(`${base}/api/auth/sign-up/email`, { data: { name, email, password: PASSWORD }, headers: { origin: base } });
-  expect(r.status()).toBe(200);
-  // Sign-up does not sign in: the link mailed to the address confirms it and signs this browser in.
-  const link = await new Client(base).mailedLink(email, '/api/auth/verify-email');
-  expect((await context.request.get(link)).ok()).toBe(true);
-  const page = await context.newPage();
-  return { context, page, email, errors: watchErrors(page), api: apiOf(context) };
-}
-const apiOf = (c: BrowserContext) => ({
-  send: async (method: 'POST' | 'PUT', path: string, data: unknown) => {
-    const r = await c.request.fetch(`${base}/api${path}`, { method, data, headers: { origin: base } });
-    expect(r.ok(), await r.text()).toBe(true);
-    return r.json();
-  },
-});
-async function centreOf(l: Locator) {
-  const b = (await l.boundingBox())!;
-  return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
-}
+const person = (vp: 'phone' | 'wide', name: string, touch = false) => newPerson(base, browser(), { viewport: vp, name, password: PASSWORD, touch });
 const text = (p: Page, id: string) => p.getByTestId(id).first().textContent();
 
 describe('comments on set', () => {
   it('crew on a phone comments on a light; the photographer sees the pin, replies and resolves', async () => {
     const owner = await person('wide', 'Noor Photographer');
     const crew = await person('phone', 'Kai Assistant', true);
-    const studio = await owner.api.send('POST', '/studios', { name: `Riverside ${word}` });
-    const inv = await owner.api.send('POST', `/studios/${studio.id}/members`, { email: crew.email, role: 'crew' });
-    await crew.api.send('POST', `/invitations/${inv.link.slice(inv.link.lastIndexOf('/') + 1)}/accept`, {});
-    const setup = await owner.api.send('POST', '/setups', { studioId: studio.id, title: `Sprint rims ${word}`, document: doc });
+    const studio = await studioWithCrew(owner, crew, `Riverside ${word}`);
+    const setup = await owner.send('POST', '/setups', { studioId: studio.id, title: `Sprint rims ${word}`, document: doc });
 
     // ---- The crew member, on a phone: tap the rim on the comment plan, ask, send ----
     const p = crew.page;
@@ -90,20 +67,11 @@ describe('comments on set', () => {
     await expect.poll(() => thread.count(), { timeout: 15_000 }).toBe(1);
     expect(await thread.textContent()).toContain('Kai Assistant · on Rim left');
     expect(await thread.textContent()).toContain('new');
-    // The pin sits on the light in the comment plan.
-    const pin = await centreOf(o.getByTestId('comment-plan').getByLabel('Comment 1'));
-    const light = await centreOf(o.getByTestId('comment-plan').getByTestId('pin-item-rim'));
-    expect(Math.abs(pin.x - light.x)).toBeLessThan(20);
-    expect(Math.abs(pin.y - light.y)).toBeLessThan(40);
-    await thread.getByRole('button', { name: 'Reply' }).click();
-    await o.getByLabel('Your reply').fill('Bare is fine; flag the camera side with the small black card.');
-    await o.getByRole('button', { name: 'Send the reply' }).click();
-    await expect.poll(() => o.getByTestId('comment-reply').count(), { timeout: 10_000 }).toBe(1);
-    await expect.poll(() => thread.getByRole('button', { name: 'Reply' }).count(), { timeout: 10_000 }).toBe(1);
-    await thread.scrollIntoViewIfNeeded();
-    await shot(o, 'comments-wide-reply');
-    await thread.getByRole('button', { name: 'Resolve' }).click();
-    await expect.poll(() => o.getByText('Show resolved (1)').count(), { timeout: 10_000 }).toBe(1);
+    // The pin sits on the light in the comment plan; a reply, then resolved.
+    await replyAndResolve(o, 'rim', 'Bare is fine; flag the camera side with the small black card.', async (t) => {
+      await t.scrollIntoViewIfNeeded();
+      await shot(o, 'comments-wide-reply');
+    });
     expect(await o.getByTestId('comment-plan').getByLabel('Comment 1').count()).toBe(0);
     // Reading the thread cleared the unread count.
     await o.goto(`${base}/setups`);

@@ -36,6 +36,12 @@ describe('without signal', () => {
     const neverOpened = await newSetup(ctx, 'Never opened on this phone');
     const page = await ctx.newPage();
     const errors = watchErrors(page);
+    // Every write that got an answer while the context was offline (there must be none), with its time.
+    let offlineSince = 0;
+    const answeredOffline: string[] = [];
+    ctx.on('requestfinished', (r) => {
+      if (offlineSince && r.method() !== 'GET') answeredOffline.push(`${r.method()} ${new URL(r.url()).pathname} ${Date.now() - offlineSince} ms after going offline${r.serviceWorker() ? ' (service worker)' : ''}`);
+    });
     await openControlled(page, `${base}/setups/${id}`);
     await page.getByTestId('item-key').waitFor({ timeout: 30_000 });
 
@@ -45,6 +51,7 @@ describe('without signal', () => {
 
     // The signal goes; a reload still opens the setup, signed in.
     await ctx.setOffline(true);
+    offlineSince = Date.now();
     await page.reload();
     await page.getByTestId('item-key').waitFor({ timeout: 30_000 });
     expect(page.url()).toContain(`/setups/${id}`);
@@ -81,6 +88,7 @@ describe('without signal', () => {
     await page.getByLabel('Back to setups').click();
     await expect.poll(() => dialogs.filter((t) => t === 'confirm').length).toBe(1);
     expect(page.url()).toContain(`/setups/${id}`);
+    expect(answeredOffline).toEqual([]);
     expect(await storedKeyX(id)).toBe(3);
 
     // The signal returns: the edit is saved through the normal save.
