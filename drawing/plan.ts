@@ -57,6 +57,8 @@ export function rayReach(ox: number, oy: number, dx: number, dy: number, max: nu
 }
 
 const BEAM_RAYS = 33;
+/** A beam whose plan view is shorter than this (a light aimed within about 4° of straight up or down) draws no fan. */
+const MIN_BEAM_REACH_M = 0.2;
 
 /** A translucent fan as wide as the light's beam, tinted by its gel; with `clip`, cut short at walls and the
  *  stage's edge (a fan of rays, each stopped where it first meets one). */
@@ -65,10 +67,14 @@ export function sketchBeam(l: ItemOf<'light'>, clip?: BeamClip): SvgNode | null 
   const spec = MODIFIERS[l.modifier];
   const halfDeg = Math.min(80, l.gridDeg !== null ? Math.min(spec.halfAngleDeg, l.gridDeg / 2) : spec.halfAngleDeg);
   const h = (halfDeg * Math.PI) / 180;
+  // Seen from above, a beam tilted up or down reaches less far across the floor: the fan is the plan's view of
+  // the beam (its reach × cos tilt), so a flash turned straight up to bounce draws no fan across the set.
+  const reach = BEAM_REACH_M * Math.cos((l.tiltDeg * Math.PI) / 180);
+  if (reach < MIN_BEAM_REACH_M) return null;
   if (!clip) {
-    const ex = Math.cos(h) * BEAM_REACH_M;
-    const ey = Math.sin(h) * BEAM_REACH_M;
-    return g({ transform: place(l.x, l.y, l.aimDeg) }, path({ d: `M0,0 L${ex},${-ey} A${BEAM_REACH_M},${BEAM_REACH_M} 0 0 1 ${ex},${ey} Z`, fill: GELS[l.gel].tint, fillOpacity: 0.1 }));
+    const ex = Math.cos(h) * reach;
+    const ey = Math.sin(h) * reach;
+    return g({ transform: place(l.x, l.y, l.aimDeg) }, path({ d: `M0,0 L${ex},${-ey} A${reach},${reach} 0 0 1 ${ex},${ey} Z`, fill: GELS[l.gel].tint, fillOpacity: 0.1 }));
   }
   const aim = (l.aimDeg * Math.PI) / 180;
   const pts: string[] = [];
@@ -76,7 +82,7 @@ export function sketchBeam(l: ItemOf<'light'>, clip?: BeamClip): SvgNode | null 
     const a = aim - h + (2 * h * k) / (BEAM_RAYS - 1);
     const dx = Math.cos(a);
     const dy = Math.sin(a);
-    const t = rayReach(l.x, l.y, dx, dy, BEAM_REACH_M, clip);
+    const t = rayReach(l.x, l.y, dx, dy, reach, clip);
     pts.push(`${Math.round((l.x + dx * t) * 1000) / 1000},${Math.round((l.y + dy * t) * 1000) / 1000}`);
   }
   return path({ d: `M${l.x},${l.y} L${pts.join(' L')} Z`, fill: GELS[l.gel].tint, fillOpacity: 0.1 });

@@ -189,11 +189,13 @@ function readingsOf(doc: SetupDocument, readings: Readings): { rows: Reading[]; 
       const change = v.fraction !== null && v.stopsChange !== null && Math.abs(v.stopsChange) >= 0.05
         ? v.beyondFull ? `; over full power by ${Math.log2(v.fraction).toFixed(1)} stops for ${formatStops(v.targetStops)}` : `; for ${formatStops(v.targetStops)} set ${formatPower(v.fraction)}`
         : '';
-      rows.push({
-        label: name,
-        value: v.stops === null ? '—' : `${formatStops(v.stops)} vs key`,
-        detail: v.stops === null ? 'no key to compare with' : `pointed at the light, ${formatAperture(l.pointed.aperture)}; wanted ${formatStops(v.targetStops)}${change}`,
-      });
+      // With no key in the look (a kicker alone on the face), its level is still read: pointed at it, against
+      // the camera — never a blank for a light that lights the face.
+      rows.push(
+        v.stops === null
+          ? { label: name, value: formatAperture(l.pointed.aperture), detail: l.pointed.stopsVsCamera === null ? 'no light pointed at it; no key to compare with' : `pointed at the light, ${formatStops(l.pointed.stopsVsCamera)} stops vs the camera; no key to compare with` }
+          : { label: name, value: `${formatStops(v.stops)} vs key`, detail: `pointed at the light, ${formatAperture(l.pointed.aperture)}; wanted ${formatStops(v.targetStops)}${change}` },
+      );
       continue;
     }
     // Background lights: the tone the camera records on the background, per channel.

@@ -9,7 +9,7 @@ import { itemSchema } from '../../model/document';
 import { clampScale, fitStage, panBy, zoomAt, type Camera } from './camera';
 import { commit, holdOrCommit, mapItems, nextId, redo, settleDrag, undo, type EditorState, type InputState } from './state';
 import { snapPoint, tidy } from './snap';
-import { freeSpot, initialAim, viewCentre } from './placement';
+import { cameraSpot, freeSpot, initialAim, viewCentre } from './placement';
 import { insetCamera } from './inset';
 import { setHeight, setTilt } from './heights';
 
@@ -52,14 +52,16 @@ export const actions = {
   }),
 
   /** Add an item from the kit: in a free spot near the middle of the view, a camera or light aimed at the
-   *  subject (placement.ts). */
+   *  subject; a camera in front of the subject at its face height when there is room (placement.ts). */
   placeItem: define<{ kind: ItemKind }>({
     id: 'place-item',
     label: 'Add to plan',
     enabled: writable,
     perform: (s, { kind }) => {
-      const at = freeSpot(s.doc.items, s.doc.stage, viewCentre(s.camera, s.viewport, s.doc.stage));
+      const inFront = kind === 'camera' ? cameraSpot(s.doc.items, s.doc.stage) : null;
+      const at = inFront?.at ?? freeSpot(s.doc.items, s.doc.stage, viewCentre(s.camera, s.viewport, s.doc.stage));
       let item = createItem(kind, nextId(s.doc, kind), at);
+      if (inFront && item.kind === 'camera') item = { ...item, heightM: inFront.heightM };
       const aim = initialAim(kind, at, s.doc.items);
       if (aim !== null) item = withAngle(item, aim);
       const next = commit(s, { ...s.doc, items: [...s.doc.items, item] });

@@ -1,8 +1,8 @@
 // Where a new item lands: near the middle of what the plan shows (above the phone's sheet), in a free spot
 // so that items added one after another do not pile up, and turned sensibly: a camera or a light faces the
 // subject, a subject faces the camera. Pure functions of the document and the view.
-import type { Item, ItemKind, SetupDocument } from '../../model/document';
-import type { Point } from '../../model/geometry';
+import type { Item, ItemKind, ItemOf, SetupDocument } from '../../model/document';
+import { direction, type Point } from '../../model/geometry';
 import { anchorOf, angleTo, isSegment, kinds } from '../../model/kinds';
 import { toPlan, type Camera } from './camera';
 
@@ -80,3 +80,24 @@ export function initialAim(kind: ItemKind, at: Point, items: readonly Item[]): n
   }
   return null;
 }
+
+/** How far in front of the subject a new camera stands, metres, nearest first tried last: a short tele's
+ *  head-and-shoulders distance (common practice), shorter when the stage ends first. */
+const CAMERA_DISTANCES_M = [3, 2.5, 2];
+
+/**
+ * Where a new camera stands when there is a subject: in front of it along its facing, at a working distance
+ * (not 0.7 m beside it, where the free-spot search would put it), and at the height of its face; null when
+ * there is no subject or no clear spot in front of it on the stage (then the free spot is used).
+ */
+export function cameraSpot(items: readonly Item[], stage: SetupDocument['stage']): { at: Point; heightM: number } | null {
+  const subject = items.find((i): i is ItemOf<'subject'> => i.kind === 'subject');
+  if (!subject) return null;
+  const d = direction(subject.facingDeg);
+  for (const r of CAMERA_DISTANCES_M) {
+    const p = tidyPoint({ x: subject.x + d.x * r, y: subject.y + d.y * r });
+    if (inside(p, stage) && clearance(p, items) >= FREE_RADIUS_M) return { at: p, heightM: subject.faceHeightM };
+  }
+  return null;
+}
+

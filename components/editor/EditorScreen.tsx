@@ -287,8 +287,9 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
             </>
           }
         >
-          {/* A focus stop of its own, so a keyboard can scroll the panel (WCAG 2.1.1). */}
-          <ScrollView contentContainerStyle={{ paddingBottom: 40 }} role="tabpanel" aria-label={tabs.find((t) => t.id === tab)?.label} tabIndex={0}>
+          {/* A focus stop of its own, so a keyboard can scroll the panel (WCAG 2.1.1). Keyed by the tab: each tab
+              opens at its top (a scroll kept from a longer tab hid the frame's top and the item's name). */}
+          <ScrollView key={tab} contentContainerStyle={{ paddingBottom: 40 }} role="tabpanel" aria-label={tabs.find((t) => t.id === tab)?.label} tabIndex={0}>
             {panel(tab)}
           </ScrollView>
         </BottomSheet>

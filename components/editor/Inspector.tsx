@@ -7,7 +7,7 @@ import { itemById } from '../../canvas/editor/state';
 import { colours, fonts, space } from '../../constants/theme';
 import type { Item, ItemOf } from '../../model/document';
 import { fieldLabel, rangeOf, type FieldContext, type FieldSpec, type Patch as FieldPatch, type ReadingFieldSpec } from '../../model/fields';
-import { fieldsOf, kinds } from '../../model/kinds';
+import { fieldsOf, itemNames, kinds } from '../../model/kinds';
 import type { Units } from '../../model/units';
 import { Body } from '../ui';
 import { ChoiceField, NumberField, SwitchField, TextField } from './fields';
@@ -29,6 +29,9 @@ export const Inspector = memo(function Inspector({ units }: { units: Units }) {
   const current = useSettled((s) => (s.selection.length === 1 ? itemById(s, s.selection[0]!) : undefined));
   const item = useDeferredValue(current);
   const readOnly = useEditor((s) => s.readOnly);
+  // The item's name as the meter and the crew sheet give it ("Light 2", or its label): two look-alike strips
+  // must not both be headed "Light".
+  const name = useSettled((s) => (item ? itemNames(s.doc.items).get(item.id) : undefined));
   if (!item) {
     return (
       <View style={s.wrap}>
@@ -38,14 +41,21 @@ export const Inspector = memo(function Inspector({ units }: { units: Units }) {
     );
   }
   return (
-    <View style={s.wrap} pointerEvents={readOnly ? 'none' : 'auto'} accessibilityLabel={`Settings of ${kinds[item.kind].label}`} testID={`inspector-${item.id}`}>
-      <Text style={s.heading}>{kinds[item.kind].label}</Text>
+    <View style={s.wrap} pointerEvents={readOnly ? 'none' : 'auto'} accessibilityLabel={`Settings of ${heading(name, item)}`} testID={`inspector-${item.id}`}>
+      <Text style={s.heading}>{heading(name, item)}</Text>
       {!readOnly ? <SelectionActions /> : null}
       {/* Keyed by item: a field's typed text, open list and callbacks belong to one item and never carry over. */}
       <ItemFields key={item.id} item={item} units={units} />
     </View>
   );
 });
+
+/** The inspector's heading: the item's name, with its kind when a label hides it ("Kicker · Light"). */
+function heading(name: string | undefined, item: Item): string {
+  const kind = kinds[item.kind].label;
+  if (!name) return kind;
+  return name.startsWith(kind) ? name : `${name} · ${kind}`;
+}
 
 /** Duplicate, lock and delete as buttons too: a phone has no keyboard shortcuts. */
 function SelectionActions() {

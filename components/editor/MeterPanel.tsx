@@ -142,7 +142,11 @@ function Lights({ m, names }: { m: MeterResult; names: Map<string, string> }) {
             ) : null}
             {l.enabled && l.vsKey ? (
               <Text style={s.readingDetail} testID={`meter-light-${l.id}-vskey`}>
-                {l.vsKey.stops !== null ? `${formatStops(l.vsKey.stops)} vs the key (wanted ${formatStops(l.vsKey.targetStops)})` : 'no key to compare with'}
+                {l.vsKey.stops !== null
+                  ? `${formatStops(l.vsKey.stops)} vs the key (wanted ${formatStops(l.vsKey.targetStops)})`
+                  : l.pointed.stopsVsCamera !== null
+                    ? `no key: pointed at it, ${formatStops(l.pointed.stopsVsCamera)} vs the camera`
+                    : 'no key to compare with'}
                 {l.vsKey.fraction !== null && l.vsKey.stopsChange !== null && Math.abs(l.vsKey.stopsChange) >= 0.05
                   ? l.vsKey.beyondFull
                     ? ` — over full power by ${Math.log2(l.vsKey.fraction).toFixed(1)} stops`

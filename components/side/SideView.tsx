@@ -12,7 +12,7 @@ import { colours, fonts, space } from '../../constants/theme';
 import { graphiteTheme } from '../../drawing/theme';
 import type { ItemOf } from '../../model/document';
 import type { Units } from '../../model/units';
-import { sideScene, sideTransform, tiltHandle, type SideBox, type SidePoint, type SideScene, type SideShape } from './elevation';
+import { beamEdges, sideScene, sideTransform, tiltHandle, type SideBox, type SidePoint, type SideScene, type SideShape } from './elevation';
 import { createSideDrag } from './sideDrag';
 import { SIDE_LABEL_PX, sideLabels } from './sideLabels';
 
@@ -180,10 +180,7 @@ function Shape({ sh, P, scale, selected, ceiling }: { sh: SideShape; P: (p: Side
     }
     case 'light': {
       const c = P(sh.at);
-      const reach = 2.2;
-      const ray = (deg: number) => P({ u: sh.at.u + sh.facing * Math.cos((deg * Math.PI) / 180) * reach, z: Math.max(0, sh.at.z + Math.sin((deg * Math.PI) / 180) * reach) });
-      const a = ray(sh.tiltDeg + sh.halfDeg);
-      const b = ray(sh.tiltDeg - sh.halfDeg);
+      const [a, b] = beamEdges(sh, ceiling).map(P) as [{ x: number; y: number }, { x: number; y: number }];
       const hnd = P(tiltHandle(sh.at, sh.tiltDeg, sh.facing));
       const foot = P({ u: sh.at.u, z: 0 });
       const tint = sh.tint;

@@ -16,6 +16,8 @@ export type SidePoint = { u: number; z: number };
 /** Items further than this from the line are drawn faint: they are seen from the side, not on the cut. */
 const NEAR_LINE_M = 1.5;
 const PAD_PX = 28;
+/** The drawn length of a light's beam in the view, metres (shorter where it meets the floor or the ceiling). */
+const SIDE_BEAM_REACH_M = 2.2;
 /** The drawn length of a tilt handle's arm, metres. */
 const TILT_ARM_M = 0.8;
 
@@ -154,4 +156,20 @@ export function tiltHandle(at: SidePoint, tiltDeg: number, facing: 1 | -1): Side
 /** The tilt that points a head at `at` from the view's point `p` (degrees, down is negative). */
 export function tiltToward(at: SidePoint, p: SidePoint): number {
   return (Math.atan2(p.z - at.z, Math.max(0.05, Math.abs(p.u - at.u))) * 180) / Math.PI;
+}
+
+/**
+ * The far ends of a light's drawn beam at its tilt ± its half angle: each edge runs SIDE_BEAM_REACH_M, or stops where
+ * it meets the floor or the ceiling (a speedlight turned up to bounce is drawn up to the ceiling, not through it).
+ */
+export function beamEdges(sh: { at: SidePoint; tiltDeg: number; halfDeg: number; facing: 1 | -1 }, ceiling: number | null): [SidePoint, SidePoint] {
+  const edge = (deg: number): SidePoint => {
+    const c = Math.cos((deg * Math.PI) / 180);
+    const sn = Math.sin((deg * Math.PI) / 180);
+    let r = SIDE_BEAM_REACH_M;
+    if (sn < 0) r = Math.min(r, sh.at.z / -sn);
+    if (sn > 0 && ceiling !== null && ceiling > sh.at.z) r = Math.min(r, (ceiling - sh.at.z) / sn);
+    return { u: sh.at.u + sh.facing * c * r, z: sh.at.z + sn * r };
+  };
+  return [edge(sh.tiltDeg + sh.halfDeg), edge(sh.tiltDeg - sh.halfDeg)];
 }

@@ -97,7 +97,9 @@ const panelKind = {
   group: 'shaper',
   shape: 'panel',
   radiusM: 0.2,
-  angle: { key: 'rotationDeg', label: 'Turn (°)' },
+  // The angle is the way the working face points (a flag faces the light it cuts): "Turn" read as the
+  // panel's own line, and a flag typed square to a beam stood edge-on to it.
+  angle: { key: 'rotationDeg', label: 'Facing (°)' },
   create: (at: Point) => ({ x: at.x, y: at.y, rotationDeg: -90 }),
 } as const;
 

@@ -5,7 +5,7 @@ import { Inspector } from '../../components/editor/Inspector';
 import { createEditor as createEditorStore, type Editor as EditorStore } from '../../canvas/editor/editor';
 import { EditorContext } from '../../canvas/editor/react';
 import { demoSetups } from '../../db/seed-setups';
-import type { ItemOf } from '../../model/document';
+import { parseDocument, type ItemOf } from '../../model/document';
 
 function setup(select: string, units: 'metric' | 'imperial' = 'metric') {
   const store = createEditorStore(demoSetups[0]!.document);
@@ -40,6 +40,27 @@ describe('Inspector', () => {
     } finally {
       errors.mockRestore();
     }
+  });
+
+  it('names which of two look-alike lights it is changing, and changes only that one', () => {
+    // Two identical unlabelled strips, left and right (look 2 of the everyday looks).
+    const strip = (id: string, x: number) => ({ id, kind: 'light', x, y: 1.8, aimDeg: 90, source: { type: 'strobe', energyWs: 500 }, modifier: 'strip', power: 1 / 4 });
+    const store = createEditorStore(parseDocument({ schemaVersion: 1, stage: { widthM: 8, depthM: 6 }, items: [strip('light-1', 3), strip('light-2', 5)] }));
+    store.dispatch('select', { ids: ['light-2'] });
+    render(
+      <EditorContext.Provider value={store}>
+        <Inspector units="metric" />
+      </EditorContext.Provider>,
+    );
+    expect(screen.getByText('Light 2')).toBeInTheDocument();
+    expect(screen.getByLabelText('Settings of Light 2')).toBeInTheDocument();
+    const power = screen.getByLabelText('Power');
+    fireEvent.change(power, { target: { value: '8' } });
+    fireEvent.keyDown(power, { key: 'Enter' });
+    expect(item<'light'>(store, 'light-2').power).toBeCloseTo(1 / 8);
+    expect(item<'light'>(store, 'light-1').power).toBeCloseTo(1 / 4);
+    act(() => store.dispatch('select', { ids: ['light-1'] }));
+    expect(screen.getByText('Light 1')).toBeInTheDocument();
   });
 
   it('moves a light by typing a position, and undo puts it back', () => {

@@ -24,6 +24,23 @@ describe('MeterPanel', () => {
     expect(screen.getByTestId('meter-background')).toHaveTextContent(`${formatStops(m.background!.stopsVsSubject)} stops`);
   });
 
+  it('reads a kicker in a look with no key against the camera, pointed at it, not only "no key"', () => {
+    // Look 1 of the everyday looks: a snooted kicker from behind and no key. Bare 400 Ws head at 1/4, √2 m from the
+    // face, no bounce: H = 2400 cd·s / (2 + 0.09²) m² = 1195 lx·s (inverse-square law), log2(1195/160) = +2.9 over f/8.
+    const doc = parseDocument({
+      schemaVersion: 1,
+      stage: { widthM: 8, depthM: 6 },
+      meter: { floor: { colour: '#111111', reflectance: 0 }, ceiling: { heightM: null } },
+      items: [
+        { id: 'sub', kind: 'subject', x: 4, y: 3, facingDeg: 90, faceHeightM: 1.6 },
+        { id: 'cam', kind: 'camera', x: 4, y: 5.6, heightM: 1.6, aimDeg: -90, iso: 100, aperture: 8, shutterS: 1 / 200 },
+        { id: 'kick', kind: 'light', x: 5, y: 2, heightM: 1.6, aimDeg: 135, tiltDeg: 0, source: { type: 'strobe', energyWs: 400 }, power: 1 / 4, modifier: 'bare-reflector', role: 'kicker' },
+      ],
+    });
+    show(doc);
+    expect(screen.getByTestId('meter-light-kick-vskey')).toHaveTextContent('no key: pointed at it, +2.9 vs the camera');
+  });
+
   it('shows the ambient as stops under when a room reading is given', () => {
     const r = show(demoSetups[2]!.document);
     expect(screen.getByTestId('meter-ambient')).toHaveTextContent(`${formatStops(r.meter!.ambient!.stopsVsCamera)} stops`);

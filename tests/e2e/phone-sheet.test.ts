@@ -4,6 +4,7 @@ import { describe, expect, inject, it } from 'vitest';
 import type { Locator, Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
 import { dragSheet, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
+import { washAndKicker } from '../support/frameLooks';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
@@ -50,6 +51,41 @@ describe('the phone sheet', () => {
     await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeGreaterThan(screenH - 160);
     await page.getByRole('tab', { name: 'Setup', exact: true }).tap();
     await expect.poll(() => shownInSheet(page, page.getByLabel('Indoors, under a ceiling')), { timeout: 10_000 }).toBeGreaterThan(10);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('opens each tab at its top, not at the scroll left by the last one', async () => {
+    const context = await browser().newContext({ viewport: viewports.phone, hasTouch: true, isMobile: true });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    expect((await context.request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: { origin: base } })).status()).toBe(200);
+    const created = await context.request.post(`${base}/api/setups`, { data: { title: 'Sheet scroll', document: washAndKicker }, headers: { origin: base } });
+    const { id } = (await created.json()) as { id: string };
+    await page.goto(`${base}/setups/${id}`);
+    await page.getByTestId('plan').waitFor({ timeout: 30_000 });
+    await page.getByRole('tab', { name: 'Meter', exact: true }).tap();
+    await page.getByTestId('meter-subject').first().waitFor({ timeout: 30_000 });
+    // Read down the meter, as a photographer scrolls to the background's reading.
+    const panel = page.getByRole('tabpanel');
+    const box = (await panel.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await expect
+      .poll(
+        async () => {
+          await page.mouse.wheel(0, 300);
+          return panel.evaluate((el) => el.scrollTop);
+        },
+        { timeout: 10_000 },
+      )
+      .toBeGreaterThan(150);
+    // The frame's tab opens at its top: the whole picture shows under the tabs.
+    await page.getByRole('tab', { name: 'Frame', exact: true }).tap();
+    await expect.poll(() => page.getByRole('tabpanel', { name: 'Frame' }).evaluate((el) => el.scrollTop), { timeout: 10_000 }).toBe(0);
+    const tabsBottom = (await page.getByRole('tab', { name: 'Frame', exact: true }).boundingBox())!;
+    const picture = (await page.getByLabel('The frame: what the camera will record').first().boundingBox())!;
+    expect(picture.y).toBeGreaterThanOrEqual(tabsBottom.y + tabsBottom.height - 1);
+    await shot(page, 'phone-sheet-frame-at-top');
     expect(errors).toEqual([]);
     await context.close();
   });

@@ -60,6 +60,32 @@ describe('new items', () => {
     expect(initialAim('wall', { x: 0, y: 0 }, e.getState().doc.items)).toBeNull();
   });
 
+  it('a new camera stands in front of the subject at a working distance and at its face height', () => {
+    // Look 1: a seated subject (face 1.2 m) in the middle of an 8 × 6 m stage, facing down the plan. The camera
+    // used to land 0.7 m beside the subject at 1.5 m, so the face sat at the bottom of the frame.
+    const e = phoneEditor();
+    e.dispatch('placeItem', { kind: 'subject' });
+    e.dispatch('updateItem', { id: 'subject-1', patch: { facingDeg: 90, pose: 'seated', faceHeightM: 1.2 } });
+    e.dispatch('placeItem', { kind: 'camera' });
+    const cam = at(e, 'camera-1');
+    const subj = at(e, 'subject-1');
+    expect(Math.hypot(cam.x - subj.x, cam.y - subj.y)).toBeGreaterThanOrEqual(2);
+    expect(cam.x).toBeCloseTo(subj.x, 9); // along the facing
+    expect(cam.y).toBeGreaterThan(subj.y);
+    expect(cam.y).toBeLessThanOrEqual(6 - 0.3);
+    expect(cam.heightM).toBe(1.2);
+    expect(Math.abs(cam.aimDeg - -90)).toBeLessThanOrEqual(0.6);
+  });
+
+  it('a new camera falls back to a free spot when the subject faces the stage edge', () => {
+    const e = phoneEditor();
+    e.dispatch('placeItem', { kind: 'subject' });
+    e.dispatch('updateItem', { id: 'subject-1', patch: { x: 4, y: 0.6, facingDeg: -90 } });
+    e.dispatch('placeItem', { kind: 'camera' });
+    const cam = at(e, 'camera-1');
+    expect(cam.y).toBeGreaterThanOrEqual(0.3);
+  });
+
   it('one undo takes a placed item away', () => {
     const e = phoneEditor();
     e.dispatch('placeItem', { kind: 'camera' });

@@ -3,7 +3,8 @@
 import { describe, expect, it } from 'vitest';
 import { createEditor } from '../../../canvas/editor/editor';
 import { demoSetups } from '../../../db/seed-setups';
-import { sideScene, sideTransform, tiltHandle, tiltToward } from '../../../components/side/elevation';
+import { beamEdges, sideScene, sideTransform, tiltHandle, tiltToward } from '../../../components/side/elevation';
+import { parseDocument } from '../../../model/document';
 import { createSideDrag, sideHit } from '../../../components/side/sideDrag';
 import { suggestedPower } from '../../../components/editor/suggestedPower';
 
@@ -128,3 +129,36 @@ describe('the suggested power', () => {
     expect(suggestedPower(result({ role: 'rim', vsKey: { fraction: 1 / 2, beyondFull: false, belowMinimum: false } }), 'k')).toMatchObject({ fraction: 0.5, why: 'level-over-key' });
   });
 });
+
+describe('beams stop at the ceiling and the floor', () => {
+  // Look 3 of the everyday looks: a speedlight on the camera turned straight up to bounce off a 2.6 m ceiling.
+  const bounce = parseDocument({
+    schemaVersion: 1,
+    stage: { widthM: 8, depthM: 6 },
+    meter: { ceiling: { heightM: 2.6 } },
+    items: [
+      { id: 'sub', kind: 'subject', x: 4, y: 1.8, facingDeg: 90, faceHeightM: 1.6 },
+      { id: 'cam', kind: 'camera', x: 4, y: 4.2, heightM: 1.6, aimDeg: -90 },
+      { id: 'flash', kind: 'light', x: 4.15, y: 4.2, heightM: 1.75, aimDeg: -90, tiltDeg: 90, source: { type: 'speedlight', guideNumberM: 45 }, modifier: 'bare-reflector' },
+    ],
+  });
+
+  it('draws a bounce flash up to the ceiling, not through it', () => {
+    const sc = sideScene(bounce)!;
+    const flash = sc.shapes.find((s) => s.id === 'flash')!;
+    if (flash.kind !== 'light') throw new Error('not a light');
+    const [a, b] = beamEdges(flash, sc.ceiling);
+    expect(sc.ceiling).toBe(2.6);
+    expect(a.z).toBeCloseTo(2.6, 9);
+    expect(b.z).toBeCloseTo(2.6, 9);
+  });
+
+  it('keeps a beam under the ceiling its full length, and stops one aimed down at the floor', () => {
+    const level = beamEdges({ at: { u: 0, z: 1.5 }, tiltDeg: 0, halfDeg: 10, facing: 1 }, 2.6);
+    expect(Math.hypot(level[0].u, level[0].z - 1.5)).toBeCloseTo(2.2, 9);
+    const down = beamEdges({ at: { u: 0, z: 1 }, tiltDeg: -60, halfDeg: 20, facing: 1 }, 2.6);
+    expect(down[1].z).toBeCloseTo(0, 9);
+    expect(down[1].u).toBeCloseTo(1 / Math.tan((80 * Math.PI) / 180), 9);
+  });
+});
+

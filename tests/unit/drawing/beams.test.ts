@@ -56,4 +56,12 @@ describe('a beam', () => {
     expect(beam).not.toBeNull();
     for (const p of pointsOf(beam![1]!)) expect(p.x).toBeLessThanOrEqual(5 + 1e-9);
   });
+
+  it('is the plan view of a tilted beam: shorter for a steep tilt, no fan for a flash turned straight up to bounce', () => {
+    const far = (o: object) => Math.max(...pointsOf(String(sketchBeam(light(o), { walls: [], stage })!.attrs.d)).map((p) => Math.hypot(p.x - 4, p.y - 3)));
+    expect(far({ tiltDeg: 0 })).toBeCloseTo(3, 2); // points are written to the millimetre
+    expect(far({ tiltDeg: -60 })).toBeCloseTo(1.5, 2); // 3 m × cos 60°
+    expect(sketchBeam(light({ tiltDeg: 90 }), { walls: [], stage })).toBeNull();
+    expect(sketchBeam(light({ tiltDeg: 90 }))).toBeNull();
+  });
 });

@@ -7,6 +7,7 @@ import { itemSchema, parseDocument, type Item } from '../../../model/document';
 import { sceneFromDocument } from '../../../model/documentToScene';
 import { checkNumber, rangeOf, type FieldContext, type FieldSpec } from '../../../model/fields';
 import { roleToMeter } from '../../../model/items/light';
+import { panelEnds } from '../../../model/items/shaper';
 import { angleOf, createItem, fieldsOf, kindOrder, kinds, withAngle } from '../../../model/kinds';
 
 const ctx: FieldContext = { stage: { widthM: 8, depthM: 6 } };
@@ -51,6 +52,21 @@ describe('kinds', () => {
     expect((withAngle(createItem('subject', 's', { x: 0, y: 0 }), 12) as { facingDeg: number }).facingDeg).toBe(12);
     expect((withAngle(createItem('flag', 'f', { x: 0, y: 0 }), 45) as { rotationDeg: number }).rotationDeg).toBe(45);
     expect(angleOf(createItem('wall', 'w', { x: 0, y: 0 }))).toBeNull();
+  });
+});
+
+describe('a panel\'s angle field names the way its face points', () => {
+  it('is "Facing (°)" on every panel, and the panel stands square to that direction', () => {
+    // A flag typed to face a beam aimed at −45° (facing 135°) must stand across that beam, not along it.
+    for (const kind of ['reflector', 'flag', 'vflat', 'scrim'] as const) {
+      const labels = fieldsOf(createItem(kind, 'p', { x: 1, y: 1 })).map((f) => f.label);
+      expect(labels, kind).toContain('Facing (°)');
+      expect(labels, kind).not.toContain('Turn (°)');
+    }
+    const { a, b } = panelEnds({ x: 0, y: 0, rotationDeg: 135, widthM: 1 });
+    const along = { x: b.x - a.x, y: b.y - a.y };
+    const facing = { x: Math.cos((135 * Math.PI) / 180), y: Math.sin((135 * Math.PI) / 180) };
+    expect(along.x * facing.x + along.y * facing.y).toBeCloseTo(0, 9);
   });
 });
 

@@ -74,6 +74,16 @@ describe('the crew sheet prints the new readings', () => {
     expect(s.readings[0]!.detail).toContain('dome at the face pointed at the camera');
   });
 
+  it('a kicker in a look with no key still reads: pointed at it, against the camera (never a blank)', () => {
+    // Bare 400 Ws head at 1/4, √2 m from the face, no bounce: I = 400 × 24 cd·s/Ws × ¼ = 2400 cd·s (the meter's
+    // stated efficiency), H = I/(d² + R²) = 2400/(2 + 0.09²) = 1195 lx·s by the inverse-square law, so
+    // N = √(H·S/C) = √(1195 × 100/250) = f/22 (ISO 2720 flash form) and log2(1195/160) = +2.9 stops over f/8.
+    const s = crewSheet(doc([subject, camera, kicker]), { title: 'Kicker alone', units: 'metric' });
+    const row = s.readings.find((r) => r.label === 'Kicker')!;
+    expect(row.value).toBe('f/22');
+    expect(row.detail).toBe('pointed at the light, +2.9 stops vs the camera; no key to compare with');
+  });
+
   it('a wall wash as the tone the camera records per channel, and the background range across the frame', () => {
     const s = crewSheet(doc([subject, camera, key, wall, wash]), { title: 'Wash', units: 'metric' });
     const row = s.readings.find((r) => r.label === 'Wash')!;
