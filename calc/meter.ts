@@ -423,7 +423,8 @@ export function meterParsed(scene: Scene): MeterResult {
     background = withReading(reading(bgH, bgTotal.direct, bgTotal.bounce, scene, correctH), {
       point: { x: bg.receptor.x, y: bg.receptor.y, z: bg.receptor.z },
       surfaceId: bg.surfaceId,
-      stopsVsSubject: safeLog2Ratio(bgH, subjH),
+      // As the frame records them: the room's light (uniform, see README) adds to both.
+      stopsVsSubject: safeLog2Ratio(bgH + ambientH, subjH + ambientH),
       colour: colourReading(withAmbient(bgTotal.rgb), cam.whiteBalanceK),
       recorded,
       range,
@@ -470,7 +471,7 @@ export function meterParsed(scene: Scene): MeterResult {
     probes: scene.probes.map((p, k) => {
       const t = totalOf(probeG[k]!);
       const h = t.direct + t.bounce;
-      return withReading(reading(h, t.direct, t.bounce, scene, correctH), { id: p.id, point: { x: p.x, y: p.y, z: p.z }, stopsVsSubject: safeLog2Ratio(h, subjH) });
+      return withReading(reading(h, t.direct, t.bounce, scene, correctH), { id: p.id, point: { x: p.x, y: p.y, z: p.z }, stopsVsSubject: safeLog2Ratio(h + ambientH, subjH + ambientH) });
     }),
     ambient,
     combined: {

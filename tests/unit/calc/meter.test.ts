@@ -304,6 +304,21 @@ describe('meter — background and probes', () => {
     const r = meter(scene([flash('a', front(2))], { probes: [{ id: 'p', x: -2, y: 0, z: 1.6 }] }));
     expect(r.probes[0]!.stopsVsSubject!).toBeCloseTo(2 * Math.log2(2 / 4), 8);
   });
+  it('the room light adds to both sides, as the frame records them: a dark background comes up with the room lights on', () => {
+    const dark = meter(scene([flash('a', front(2))], { surfaces: [backdrop], probes: [{ id: 'p', x: -1.9, y: 0, z: 1.6 }], options: { bounce: false } }));
+    // Room light of about the flash's level at the background (EV100 chosen from the background's own lux·s).
+    const bgH = dark.background!.luxSeconds;
+    const shutterS = 1 / 125;
+    const ev100 = Math.log2((bgH / shutterS) / 2.5); // E = 2.5·2^EV (ISO 2720 incident, C = 250 lx·s at ISO 100 → 2.5 lx)
+    const lit = meter(scene([flash('a', front(2))], { surfaces: [backdrop], probes: [{ id: 'p', x: -1.9, y: 0, z: 1.6 }], options: { bounce: false }, ambient: { ev100 } }));
+    const amb = lit.ambient!.luxSeconds;
+    expect(amb / bgH).toBeCloseTo(1, 1);
+    const subjH = dark.subject.luxSeconds;
+    expect(lit.background!.stopsVsSubject!).toBeCloseTo(Math.log2((bgH + amb) / (subjH + amb)), 6);
+    expect(lit.background!.stopsVsSubject! - dark.background!.stopsVsSubject!).toBeGreaterThan(0.6); // −2 → log2(2/5) = −1.3
+    const probeH = dark.probes[0]!.luxSeconds;
+    expect(lit.probes[0]!.stopsVsSubject!).toBeCloseTo(Math.log2((probeH + amb) / (subjH + amb)), 6);
+  });
 });
 
 describe('meter — one bounce', () => {
