@@ -306,13 +306,16 @@ function polygonSolidAngle(pts: Float64Array, n: number): number {
 /**
  * Response per unit luminance of a receptor to a polygon: flat disc — Lambert's contour integral (π × view
  * factor); dome — an ideal hemisphere responds to a direction at θ from its axis with its projected area,
- * (1 + cos θ)/2 of the frontal response, so its response to a luminous polygon is ½(flat along the axis) +
- * ½(solid angle), the second term being that of a sphere of the same cross-section.
+ * (1 + cos θ)/2 of the frontal response for θ from 0° to 180°, so its response to a luminous polygon is
+ * ½(solid angle) + ½∫cos θ dω, the cosine signed: what lies in front of the axis' plane adds, what lies behind
+ * it takes away (the flat response along the axis minus the flat response along its reverse). A light 125°
+ * behind the axis reads (1 + cos 125°)/2 = 0.21 of its frontal response, not ½.
  */
 function polygonResponse(pts: Float64Array, n: number, r: FieldReceptor): number {
   const flat = polygonFlat(pts, n, r.nx, r.ny, r.nz);
   if (r.kind !== 'dome') return flat;
-  return 0.5 * flat + 0.5 * polygonSolidAngle(pts, n);
+  const behind = polygonFlat(pts, n, -r.nx, -r.ny, -r.nz);
+  return Math.max(0, 0.5 * (flat - behind) + 0.5 * polygonSolidAngle(pts, n));
 }
 
 /**
@@ -794,9 +797,13 @@ export function patchWeights(room: Room, P: Patches, r: FieldReceptor, self: boo
   return { off: off.slice(0, n), w: w.slice(0, n), n };
 }
 
+/** The dome's axis reversed, for the part of a patch behind the dome's plane (reused: the gather calls per patch). */
+const reversed: FieldReceptor = { x: 0, y: 0, z: 0, nx: 0, ny: 0, nz: 0, kind: 'flat' };
+
 /**
- * Response per unit luminance of a receptor to patch i (flat: signed πF as patchFormFactor; dome: ½ flat along
- * its axis + ½ solid angle), signed by the patch side the receptor is on.
+ * Response per unit luminance of a receptor to patch i (flat: signed πF as patchFormFactor; dome: ½ solid angle
+ * + ½ the signed cosine integral — flat along its axis minus flat along its reverse, as polygonResponse), signed
+ * by the patch side the receptor is on.
  */
 export function patchResponse(P: Patches, i: number, r: FieldReceptor, exactWithin: number): number {
   if (r.kind !== 'dome') return patchFormFactor(P, i, r, exactWithin);
@@ -806,7 +813,13 @@ export function patchResponse(P: Patches, i: number, r: FieldReceptor, exactWith
   const nd = vx * P.nx[i]! + vy * P.ny[i]! + vz * P.nz[i]!;
   if (nd === 0) return 0;
   const side = nd > 0 ? 1 : -1;
-  const flat = Math.abs(patchFormFactor(P, i, r, exactWithin));
+  reversed.x = r.x;
+  reversed.y = r.y;
+  reversed.z = r.z;
+  reversed.nx = -r.nx;
+  reversed.ny = -r.ny;
+  reversed.nz = -r.nz;
+  const flat = Math.abs(patchFormFactor(P, i, r, exactWithin)) - Math.abs(patchFormFactor(P, i, reversed, exactWithin));
   const r2 = vx * vx + vy * vy + vz * vz;
   const hw = P.halfW[i]!;
   const hh = P.halfH[i]!;
@@ -825,7 +838,7 @@ export function patchResponse(P: Patches, i: number, r: FieldReceptor, exactWith
     const a = P.area[i]!;
     omega = (a * (Math.abs(nd) / Math.sqrt(r2))) / (r2 + a / Math.PI);
   }
-  return side * (0.5 * flat + 0.5 * omega);
+  return side * Math.max(0, 0.5 * flat + 0.5 * omega);
 }
 
 /** Per-light gather at one receptor: direct and bounce lux·s and the colour (linear sRGB × lux·s). */

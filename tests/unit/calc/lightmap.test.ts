@@ -317,7 +317,8 @@ describe('the map near walls', () => {
     expect(map.receptor).toBe('dome');
     meter(parsed);
     const r = buildRoom(parsed);
-    for (const [x, y, d] of points) {
+    // Not at the camera itself (5, 2.5): a dome pointed at the camera from where it stands has no axis.
+    for (const [x, y, d] of points.filter(([x, y]) => Math.hypot(x - 5, y - 2.5) > 0.5)) {
       const dome = { x, y, z: 1.3, ...unitVector(5 - x, 2.5 - y, 0), kind: 'dome' as const };
       const total = gather(r, dome, false).reduce((acc, g) => acc + g.direct + g.bounce, 0);
       expect(Math.abs(Math.log2(map.luxSeconds[cellAt(x, y)]! / total)), `(${x}, ${y}), ${d} m from a wall`).toBeLessThan(bound(d));

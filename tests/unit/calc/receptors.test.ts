@@ -46,6 +46,24 @@ describe('receptors', () => {
     }
   });
 
+  it('a big face behind the dome\'s plane takes away as the cosine says: a strip or softbox 125° off the axis reads near (1 + cos 125°)/2, not ½', () => {
+    // The camera along +x; lights 2.5 m away at 125° and 150°, as a rim behind the subject. A face of finite size
+    // subtends a spread of angles, so the ratio sits a little above the point value (within 15 %); a snoot is
+    // point-like and exact. It used to read about 0.52 for any area face past 90° (+1.3 stops at 125°).
+    for (const deg of [125, 150]) {
+      const t = (deg * Math.PI) / 180;
+      const expected = (1 + Math.cos(t)) / 2;
+      for (const modifier of ['strip', 'softbox', 'octa'] as const) {
+        const a = (deg * Math.PI) / 180;
+        const light = { id: 'rim', kind: 'flash', x: 2.5 * Math.cos(a), y: 2.5 * Math.sin(a), heightM: 1.6, aimDeg: deg + 180, output: { type: 'energy', ratedWs: 500 }, powerFraction: 0.5, modifier } as LightInput;
+        const r = meter(scene([light])).lights[0]!.byReceptor;
+        const ratio = r['dome-camera'] / r['flat-light'];
+        expect(ratio, `${modifier} at ${deg}°`).toBeGreaterThan(expected * 0.97);
+        expect(ratio, `${modifier} at ${deg}°`).toBeLessThan(expected * 1.15);
+      }
+    }
+  });
+
   it('a light straight beside the face reads nothing on the flat face receptor, with a plain note instead of f/0', () => {
     const m = meter(scene([around('k', 90)]));
     expect(m.lights[0]!.aperture).toBeNull();
