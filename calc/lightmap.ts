@@ -119,8 +119,6 @@ export type LightMapCache = {
 type LightEntry = {
   key: string;
   direct: Float32Array;
-  /** Bounce of this light on the coarse grid, lux·s. */
-  bounce: Float64Array;
   /** Direct light at each wall sample, linear sRGB lux·s, [3·sample + c] over the walls in order. */
   walls: Float64Array;
 };
@@ -132,8 +130,6 @@ const MAP_CEILING_STOPS = 30;
 function lightEntry(room: Room, L: RoomLight, g: Geometry, tmp: Float32Array): LightEntry {
   const direct = new Float32Array(g.n);
   directGrid(L, g, direct, tmp);
-  const bounce = new Float64Array(g.kx * g.ky);
-  bounceCoarse(room, L, g, bounce);
   let count = 0;
   for (const w of g.walls) count += w.receptors.length;
   const walls = new Float64Array(3 * count);
@@ -146,7 +142,7 @@ function lightEntry(room: Room, L: RoomLight, g: Geometry, tmp: Float32Array): L
       walls[m++] = h * L.rgb[2];
     }
   }
-  return { key: L.key, direct, bounce, walls };
+  return { key: L.key, direct, walls };
 }
 
 /** The meter's exposure reading at the subject (its receptor; the room's caches answer it after the meter ran). */
@@ -199,6 +195,9 @@ export function createLightMapCache(): LightMapCache {
   let geometry: Geometry | null = null;
   let entries = new Map<string, LightEntry>();
   let tmp = new Float32Array(0);
+  // The coarse bounce grid of all lights, and the lights (their keys) it was summed for.
+  let bounceSum = new Float64Array(0);
+  let bounceKey = '';
   const stats: LightMapStats = { geometryRebuilt: false, lightsRecomputed: 0, lightsReused: 0 };
 
   function updateParsed(scene: Scene, grid: LightMapGrid): LightMapResult {
@@ -220,6 +219,7 @@ export function createLightMapCache(): LightMapCache {
     if (!geometry || geometry.key !== gKey) {
       geometry = buildGeometry(room, grid, gKey);
       entries = new Map();
+      bounceKey = '';
       stats.geometryRebuilt = true;
     }
     const g = geometry;
@@ -248,9 +248,15 @@ export function createLightMapCache(): LightMapCache {
       const d = e.direct;
       for (let k = 0; k < n; k++) H[k]! += d[k]!;
     }
+    // Bounce: one kernel pass over the lights' summed patch luminance, redone only when a light changed.
     const nK = g.kx * g.ky;
-    const coarse = new Float64Array(nK);
-    for (const e of list) for (let k = 0; k < nK; k++) coarse[k]! += e.bounce[k]!;
+    const bKey = room.lights.map((L) => L.key).join('|');
+    if (bounceSum.length !== nK || bKey !== bounceKey) {
+      if (bounceSum.length !== nK) bounceSum = new Float64Array(nK);
+      bounceCoarse(room, room.lights, g, bounceSum);
+      bounceKey = bKey;
+    }
+    const coarse = bounceSum;
     const { nx, ny } = g.frame;
     const kx = g.kx;
     const ky = g.ky;
@@ -325,6 +331,7 @@ export function createLightMapCache(): LightMapCache {
     clear() {
       geometry = null;
       entries = new Map();
+      bounceKey = '';
     },
   };
 }

@@ -345,6 +345,11 @@ export function faceSamplePoints(L: RoomLight, face: AreaFace): [number, number,
 
 export type DirectResult = { luxSeconds: number; distanceM: number; incidenceDeg: number; offAxisDeg: number; transmission: number };
 
+/** A direct result written out (object spread, and a closure made per call, are slow in this engine). */
+function directResult(base: DirectResult, luxSeconds: number, transmission: number): DirectResult {
+  return { luxSeconds, distanceM: base.distanceM, incidenceDeg: base.incidenceDeg, offAxisDeg: base.offAxisDeg, transmission };
+}
+
 /**
  * Direct light of one light at a receptor (flat or dome), lux·s. Point sources: H = I·p(θ)·g·T/(d² + R²) with
  * g the receptor's response (flat: cos i; dome: (1 + cos i)/2). Area sources (big modifiers): the face as a
@@ -360,31 +365,23 @@ export function directLight(L: RoomLight, occ: Occluders, r: FieldReceptor): Dir
   const dz = r.z - L.pz;
   const d2 = dx * dx + dy * dy + dz * dz;
   const d = Math.sqrt(d2);
-  // Object spread is slow in this engine (tens of µs): results are written out.
-  const res = (luxSeconds: number, transmission: number): DirectResult => ({
-    luxSeconds,
-    distanceM: base.distanceM,
-    incidenceDeg: base.incidenceDeg,
-    offAxisDeg: base.offAxisDeg,
-    transmission,
-  });
-  if (L.axialCdS <= 0) return res(0, base.transmission);
-  if (L.onWalls.length > 0 && behindOwnWall(L, r.x, r.y)) return res(0, 0);
+  if (L.axialCdS <= 0) return directResult(base, 0, base.transmission);
+  if (L.onWalls.length > 0 && behindOwnWall(L, r.x, r.y)) return directResult(base, 0, 0);
   const cosOff = d > 1e-6 ? (dx * L.ax + dy * L.ay + dz * L.az) / d : 1;
   const face = L.face;
   if (!face) {
     if (r.kind !== 'dome') return base;
     const c = d > 1e-6 ? -(dx * r.nx + dy * r.ny + dz * r.nz) / d : 1;
     const g = (1 + c) / 2;
-    if (g <= COS_EPSILON) return res(0, base.transmission);
+    if (g <= COS_EPSILON) return directResult(base, 0, base.transmission);
     const t = transmissionAlong(occ, L.px, L.py, L.pz, r.x, r.y, r.z);
     const h = (L.axialCdS * lookupProfile(L.lut, cosOff) * g * t) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
-    return res(h, t);
+    return directResult(base, h, t);
   }
   // Receptor behind the face plane: nothing (the modifier's back is closed) unless it spills backwards.
-  if (cosOff <= COS_EPSILON && L.modifier.backSpill <= 0) return res(0, base.transmission);
+  if (cosOff <= COS_EPSILON && L.modifier.backSpill <= 0) return directResult(base, 0, base.transmission);
   const unshaded = areaUnshaded(L, face, r, cosOff);
-  if (unshaded <= 0) return res(0, base.transmission);
+  if (unshaded <= 0) return directResult(base, 0, base.transmission);
   // Transmission from a few points of the face.
   let t = 0;
   for (const [a, b] of SAMPLE_FRACTIONS) {
@@ -394,7 +391,7 @@ export function directLight(L: RoomLight, occ: Occluders, r: FieldReceptor): Dir
     t += transmissionAlong(occ, sx, sy, sz, r.x, r.y, r.z);
   }
   t /= SAMPLE_FRACTIONS.length;
-  return res(unshaded * t, t);
+  return directResult(base, unshaded * t, t);
 }
 
 function prepareRoomLights(scene: Scene, occ: Occluders): RoomLight[] {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { type LightInput, type SceneInput, meter, parseScene } from '../../../calc';
+import { type LightInput, type LightMapGrid, type SceneInput, createLightMapCache, meter, meterParsed, parseScene } from '../../../calc';
 import { buildPatches, buildOccluders, prepareLight } from '../../../calc/flatScene';
 import { buildRoom, resetRoomCache } from '../../../calc/room';
 import { BEAM_TAIL_HALF_ANGLES, patchIncident } from '../../../calc/transport';
@@ -79,5 +79,39 @@ describe('the room cache (speed) gives the answers of a fresh computation', () =
     // The rule did take effect on this snoot (otherwise this test checks nothing).
     expect(skipped).toBeGreaterThan(10);
     expect(BEAM_TAIL_HALF_ANGLES).toBe(3);
+  });
+
+  it('the light map through a warm cache equals a from-scratch map after a light is added, removed, or every light changes', () => {
+    // The map sums the lights' bounce before its one kernel pass (the kernel is linear), and keeps each light's
+    // direct grid: a cached frame must read what a fresh room and a fresh map read (relative 1e-9 — rounding).
+    const grid: LightMapGrid = { x0: 0.05, y0: 0.05, x1: 4.95, y1: 3.95, nx: 50, ny: 40 };
+    const s = parseScene({ ...room, subject: { ...room.subject, body: { widthM: 0.45, depthM: 0.25, topM: 1.7 } } });
+    const added = parseScene({ ...room, subject: s.subject, lights: [...lights, { id: 'fill', kind: 'flash', x: 3.8, y: 3.2, heightM: 1.7, aimDeg: -140, output: { type: 'energy', ratedWs: 200 }, modifier: 'octa', role: 'fill' }] });
+    const removed = { ...added, lights: added.lights.filter((l) => l.id !== 'kick') };
+    const allNew = { ...removed, lights: removed.lights.map((l) => ({ ...l, powerFraction: l.powerFraction * 0.7, y: l.y + 0.05 })) };
+    resetRoomCache();
+    const cache = createLightMapCache();
+    meterParsed(s);
+    cache.updateParsed(s, grid);
+    const recomputed: number[] = [];
+    for (const step of [added, removed, allNew, s]) {
+      meterParsed(step);
+      const warm = cache.updateParsed(step, grid);
+      recomputed.push(cache.stats.lightsRecomputed);
+      resetRoomCache();
+      meterParsed(step);
+      const fresh = createLightMapCache().updateParsed(step, grid);
+      let lit = false;
+      for (let k = 0; k < fresh.luxSeconds.length; k++) {
+        const f = fresh.luxSeconds[k]!;
+        expect(Math.abs(warm.luxSeconds[k]! - f)).toBeLessThanOrEqual(1e-6 * Math.max(f, 1e-12));
+        if (f > 0) lit = true;
+      }
+      expect(lit).toBe(true);
+      expect(warm.referenceLuxSeconds).toBeCloseTo(fresh.referenceLuxSeconds, 12);
+      expect(warm.walls).toEqual(fresh.walls);
+    }
+    // Only what changed was recomputed: the added light; none (one removed); every light; all of the first scene's.
+    expect(recomputed).toEqual([1, 0, 3, 3]);
   });
 });
