@@ -16,7 +16,7 @@ import { kelvinToLinearRgb, relativeLuminance, type Rgb } from './colour';
 import { type Geometry, bounceCoarse, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
 import { DARK_LUX_SECONDS, recordedTone } from './meter';
 import type { RecordedTone } from './results';
-import { type Room, type RoomLight, buildRoom, directLight, gather, subjectReceptors } from './room';
+import { type Room, type RoomLight, buildRoom, directLux, gather, subjectReceptors } from './room';
 import { type Scene, type SceneInput, parseScene } from './sceneSchema';
 
 /** Where to compute the map. Grid point (i, j) is at (x0 + i·(x1−x0)/(nx−1), y0 + j·(y1−y0)/(ny−1)). */
@@ -136,7 +136,7 @@ function lightEntry(room: Room, L: RoomLight, g: Geometry, tmp: Float32Array): L
   let m = 0;
   for (const w of g.walls) {
     for (const r of w.receptors) {
-      const h = directLight(L, room.occ, r).luxSeconds;
+      const h = directLux(L, room.occ, r);
       walls[m++] = h * L.rgb[0];
       walls[m++] = h * L.rgb[1];
       walls[m++] = h * L.rgb[2];

@@ -394,6 +394,54 @@ export function directLight(L: RoomLight, occ: Occluders, r: FieldReceptor): Dir
   return directResult(base, unshaded * t, t);
 }
 
+/**
+ * directLight's lux·s alone, for per-pixel and per-sample callers (the frame, the map's wall strips, the coarse
+ * gather): the same formulas in the same order (so the same numbers, tested), without the angles in degrees,
+ * the result object, or — for domes and big faces — the point form's own ray test, which directLight computes
+ * for its report and then replaces.
+ */
+export function directLux(L: RoomLight, occ: Occluders, r: FieldReceptor): number {
+  if (L.axialCdS <= 0) return 0;
+  if (L.onWalls.length > 0 && behindOwnWall(L, r.x, r.y)) return 0;
+  const dx = r.x - L.px;
+  const dy = r.y - L.py;
+  const dz = r.z - L.pz;
+  const d2 = dx * dx + dy * dy + dz * dz;
+  const d = Math.sqrt(d2);
+  const face = L.face;
+  if (!face) {
+    if (r.kind !== 'dome') {
+      // transport.directAt's point form.
+      const apart = d > 1e-6;
+      const inv = apart ? 1 / d : 0;
+      const cosInc = apart ? -(dx * r.nx + dy * r.ny + dz * r.nz) * inv : 1;
+      if (cosInc <= COS_EPSILON) return 0;
+      const cosOffP = apart ? (dx * L.ax + dy * L.ay + dz * L.az) * inv : 1;
+      const t = transmissionAlong(occ, L.px, L.py, L.pz, r.x, r.y, r.z);
+      return (L.axialCdS * lookupProfile(L.lut, cosOffP) * cosInc * t) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
+    }
+    const cosOffD = d > 1e-6 ? (dx * L.ax + dy * L.ay + dz * L.az) / d : 1;
+    const c = d > 1e-6 ? -(dx * r.nx + dy * r.ny + dz * r.nz) / d : 1;
+    const g = (1 + c) / 2;
+    if (g <= COS_EPSILON) return 0;
+    const t = transmissionAlong(occ, L.px, L.py, L.pz, r.x, r.y, r.z);
+    return (L.axialCdS * lookupProfile(L.lut, cosOffD) * g * t) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
+  }
+  const cosOff = d > 1e-6 ? (dx * L.ax + dy * L.ay + dz * L.az) / d : 1;
+  if (cosOff <= COS_EPSILON && L.modifier.backSpill <= 0) return 0;
+  const unshaded = areaUnshaded(L, face, r, cosOff);
+  if (unshaded <= 0) return 0;
+  let t = 0;
+  for (const [a, b] of SAMPLE_FRACTIONS) {
+    const sx = L.px + face.u[0] * a + face.v[0] * b;
+    const sy = L.py + face.u[1] * a + face.v[1] * b;
+    const sz = L.pz + face.u[2] * a + face.v[2] * b;
+    t += transmissionAlong(occ, sx, sy, sz, r.x, r.y, r.z);
+  }
+  t /= SAMPLE_FRACTIONS.length;
+  return unshaded * t;
+}
+
 function prepareRoomLights(scene: Scene, occ: Occluders): RoomLight[] {
   return scene.lights.map((l, i) => {
     const L = prepareLight(l, i, scene);
@@ -907,7 +955,7 @@ export function gatherCoarse(room: Room, r: FieldReceptor, self: boolean, cacheW
   const out: [number, number, number] = [0, 0, 0];
   for (const L of room.lights) {
     if (L.axialCdS <= 0) continue;
-    const h = (cacheWeights ? cachedDirect(room, L, r, self, rk) : directLight(L, occ, r)).luxSeconds;
+    const h = cacheWeights ? cachedDirect(room, L, r, self, rk).luxSeconds : directLux(L, occ, r);
     out[0] += h * L.rgb[0];
     out[1] += h * L.rgb[1];
     out[2] += h * L.rgb[2];

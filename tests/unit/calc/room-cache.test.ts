@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { type LightInput, type LightMapGrid, type SceneInput, createLightMapCache, meter, meterParsed, parseScene } from '../../../calc';
 import { buildPatches, buildOccluders, prepareLight } from '../../../calc/flatScene';
-import { buildRoom, resetRoomCache } from '../../../calc/room';
+import { buildRoom, directLight, directLux, resetRoomCache } from '../../../calc/room';
+import fc from 'fast-check';
 import { BEAM_TAIL_HALF_ANGLES, patchIncident } from '../../../calc/transport';
 
 // An invented small room: three walls, floor and ceiling, a softbox key, a gridded kicker, a snooted wall light.
@@ -113,5 +114,39 @@ describe('the room cache (speed) gives the answers of a fresh computation', () =
     }
     // Only what changed was recomputed: the added light; none (one removed); every light; all of the first scene's.
     expect(recomputed).toEqual([1, 0, 3, 3]);
+  });
+
+  it('directLux (the frame\'s and the map\'s per-pixel path) gives exactly directLight\'s lux·s: flat and dome, point and area sources, shadows, a light on a wall', () => {
+    const s = parseScene({
+      ...room,
+      lights: [
+        ...lights,
+        { id: 'box', kind: 'flash', x: 3.5, y: 2.6, heightM: 1.7, aimDeg: 180, output: { type: 'energy', ratedWs: 400 }, modifier: 'octa' },
+        { id: 'wall', kind: 'flash', x: 2.5, y: 4, heightM: 1.6, aimDeg: -90, output: { type: 'energy', ratedWs: 200 }, modifier: 'bare-reflector' },
+      ],
+      flags: [{ id: 'f', x1: 2.4, y1: 1.9, x2: 2.6, y2: 2.4, baseM: 0.6, topM: 2.2 }],
+      subject: { ...room.subject, body: { widthM: 0.45, depthM: 0.25, topM: 1.7 } },
+    });
+    resetRoomCache();
+    const r = buildRoom(s);
+    let lit = 0;
+    fc.assert(
+      fc.property(
+        fc.double({ min: -0.5, max: 5.5, noNaN: true }), fc.double({ min: -0.5, max: 4.5, noNaN: true }), fc.double({ min: 0.1, max: 2.7, noNaN: true }),
+        fc.double({ min: -Math.PI, max: Math.PI, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }), fc.boolean(), fc.boolean(),
+        (x, y, z, az, el, dome, self) => {
+          const c = Math.sqrt(1 - el * el);
+          const rec = { x, y, z, nx: c * Math.cos(az), ny: c * Math.sin(az), nz: el, kind: dome ? ('dome' as const) : ('flat' as const) };
+          const occ = self ? r.occFree : r.occ;
+          for (const L of r.lights) {
+            const want = directLight(L, occ, rec).luxSeconds;
+            expect(directLux(L, occ, rec)).toBe(want);
+            if (want > 0) lit++;
+          }
+        },
+      ),
+      { numRuns: 400, seed: 10 },
+    );
+    expect(lit).toBeGreaterThan(400);
   });
 });
