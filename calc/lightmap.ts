@@ -127,8 +127,9 @@ const DEFAULT_CONTOUR_MIN_STOPS = -6;
 /** Points far brighter than a barely lit subject are clamped here, which keeps the contour count bounded. */
 const MAP_CEILING_STOPS = 30;
 
-function lightEntry(room: Room, L: RoomLight, g: Geometry, tmp: Float32Array): LightEntry {
-  const direct = new Float32Array(g.n);
+/** One light's grids. `reuse`: the replaced entry's direct grid of the same size (no one else holds it). */
+function lightEntry(room: Room, L: RoomLight, g: Geometry, tmp: Float32Array, reuse?: Float32Array): LightEntry {
+  const direct = reuse && reuse.length === g.n ? reuse : new Float32Array(g.n);
   directGrid(L, g, direct, tmp);
   let count = 0;
   for (const w of g.walls) count += w.receptors.length;
@@ -198,6 +199,8 @@ export function createLightMapCache(): LightMapCache {
   // The coarse bounce grid of all lights, and the lights (their keys) it was summed for.
   let bounceSum = new Float64Array(0);
   let bounceKey = '';
+  // The lights' summed exposure (kept between frames: only read inside one update).
+  let sumBuf = new Float64Array(0);
   const stats: LightMapStats = { geometryRebuilt: false, lightsRecomputed: 0, lightsReused: 0 };
 
   function updateParsed(scene: Scene, grid: LightMapGrid): LightMapResult {
@@ -233,7 +236,8 @@ export function createLightMapCache(): LightMapCache {
         e = old;
         stats.lightsReused++;
       } else {
-        e = lightEntry(room, L, g, tmp);
+        // The light's old grid is dropped with its entry: fill it again rather than allocate (less garbage a frame).
+        e = lightEntry(room, L, g, tmp, next.has(L.light.id) ? undefined : old?.direct);
         stats.lightsRecomputed++;
       }
       next.set(L.light.id, e);
@@ -243,8 +247,12 @@ export function createLightMapCache(): LightMapCache {
 
     // Sum of the lights: direct grids, and the coarse bounce interpolated once.
     const n = g.n;
-    const H = new Float64Array(n);
-    for (const e of list) {
+    if (sumBuf.length !== n) sumBuf = new Float64Array(n);
+    const H = sumBuf;
+    if (list.length > 0) H.set(list[0]!.direct);
+    else H.fill(0);
+    for (let q = 1; q < list.length; q++) {
+      const e = list[q]!;
       const d = e.direct;
       for (let k = 0; k < n; k++) H[k]! += d[k]!;
     }
