@@ -365,19 +365,32 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
   };
 }
 
+const shadowRows = new Int32Array(2);
+
 /** Shadows of one light on the grid: walls and flags from the light (or the nine points of a big face), then the body. */
 function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
   out.fill(1);
   if (L.face) {
+    // Mean transmission over the face's points: out sums what each point's shadows take (1 − t, only over the
+    // rows its shadows touched; tmp is put back to 1 there), then becomes (count − sum)/count. Opaque shadows sum
+    // whole numbers, so a point every sample sees shaded is exactly 0, as the mean of the nine was.
     out.fill(0);
+    tmp.fill(1);
+    const nx = g.frame.nx;
     const pts = faceSamplePoints(L, L.face);
     for (const [sx, sy, sz] of pts) {
-      tmp.fill(1);
-      castShadows(g.occ, sx, sy, sz, g.z, g.frame, tmp);
-      for (let k = 0; k < g.n; k++) out[k]! += tmp[k]!;
+      castShadows(g.occ, sx, sy, sz, g.z, g.frame, tmp, -1, shadowRows);
+      const end = (shadowRows[1]! + 1) * nx;
+      for (let k = shadowRows[0]! * nx; k < end; k++) {
+        const t = tmp[k]!;
+        if (t === 1) continue;
+        out[k]! += 1 - t;
+        tmp[k] = 1;
+      }
     }
-    const inv = 1 / pts.length;
-    for (let k = 0; k < g.n; k++) out[k]! *= inv;
+    const m = pts.length;
+    const inv = 1 / m;
+    for (let k = 0; k < g.n; k++) out[k] = (m - out[k]!) * inv;
   } else castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
   if (g.body && g.inBody) {
     tmp.fill(1);
