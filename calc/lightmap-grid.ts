@@ -365,19 +365,32 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
   };
 }
 
+const shadowRows = new Int32Array(2);
+
 /** Shadows of one light on the grid: walls and flags from the light (or the nine points of a big face), then the body. */
 function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
   out.fill(1);
   if (L.face) {
+    // Mean transmission over the face's points: out sums what each point's shadows take (1 − t, only over the
+    // rows its shadows touched; tmp is put back to 1 there), then becomes (count − sum)/count. Opaque shadows sum
+    // whole numbers, so a point every sample sees shaded is exactly 0, as the mean of the nine was.
     out.fill(0);
+    tmp.fill(1);
+    const nx = g.frame.nx;
     const pts = faceSamplePoints(L, L.face);
     for (const [sx, sy, sz] of pts) {
-      tmp.fill(1);
-      castShadows(g.occ, sx, sy, sz, g.z, g.frame, tmp);
-      for (let k = 0; k < g.n; k++) out[k]! += tmp[k]!;
+      castShadows(g.occ, sx, sy, sz, g.z, g.frame, tmp, -1, shadowRows);
+      const end = (shadowRows[1]! + 1) * nx;
+      for (let k = shadowRows[0]! * nx; k < end; k++) {
+        const t = tmp[k]!;
+        if (t === 1) continue;
+        out[k]! += 1 - t;
+        tmp[k] = 1;
+      }
     }
-    const inv = 1 / pts.length;
-    for (let k = 0; k < g.n; k++) out[k]! *= inv;
+    const m = pts.length;
+    const inv = 1 / m;
+    for (let k = 0; k < g.n; k++) out[k] = (m - out[k]!) * inv;
   } else castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
   if (g.body && g.inBody) {
     tmp.fill(1);
@@ -583,24 +596,40 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
   }
 }
 
-/** Each light's bounce on the coarse grid: Σ patches kernel × that light's patch luminance (Y) on the side seen. */
-export function bounceCoarse(room: Room, L: RoomLight, g: Geometry, out: Float64Array): void {
+/**
+ * The lights' bounce on the coarse grid: Σ patches kernel × the patch luminance (Y) on the side seen, summed
+ * over the given lights first. The kernel is linear in the luminance, so one pass over the summed patches equals
+ * the sum of one pass per light (to rounding) at the cost of one.
+ */
+export function bounceCoarse(room: Room, lights: readonly RoomLight[], g: Geometry, out: Float64Array): void {
   out.fill(0);
-  const lum = room.lum[L.index];
-  if (!lum || L.axialCdS <= 0) return;
   const P = room.patches;
+  const nP = P.count;
+  const yf = new Float64Array(nP);
+  const yb = new Float64Array(nP);
+  let any = false;
+  for (const L of lights) {
+    const lum = room.lum[L.index];
+    if (!lum || L.axialCdS <= 0) continue;
+    for (let p = 0; p < nP; p++) {
+      const o = 6 * p;
+      yf[p]! += 0.2126 * lum[o]! + 0.7152 * lum[o + 1]! + 0.0722 * lum[o + 2]!;
+      yb[p]! += 0.2126 * lum[o + 3]! + 0.7152 * lum[o + 4]! + 0.0722 * lum[o + 5]!;
+    }
+    any = true;
+  }
+  if (!any) return;
   const nK = g.kx * g.ky;
   const K = g.kernel;
-  for (let p = 0; p < P.count; p++) {
-    const o = 6 * p;
-    const yf = 0.2126 * lum[o]! + 0.7152 * lum[o + 1]! + 0.0722 * lum[o + 2]!;
-    const yb = 0.2126 * lum[o + 3]! + 0.7152 * lum[o + 4]! + 0.0722 * lum[o + 5]!;
-    if (yf === 0 && yb === 0) continue;
+  for (let p = 0; p < nP; p++) {
+    const f0 = yf[p]!;
+    const b0 = yb[p]!;
+    if (f0 === 0 && b0 === 0) continue;
     const base = p * nK;
     for (let k = 0; k < nK; k++) {
       const f = K[base + k]!;
-      if (f > 0) out[k]! += f * yf;
-      else if (f < 0) out[k]! -= f * yb;
+      if (f > 0) out[k]! += f * f0;
+      else if (f < 0) out[k]! -= f * b0;
     }
   }
 }

@@ -16,7 +16,7 @@ import { kelvinToLinearRgb, relativeLuminance, type Rgb } from './colour';
 import { type Geometry, bounceCoarse, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
 import { DARK_LUX_SECONDS, recordedTone } from './meter';
 import type { RecordedTone } from './results';
-import { type Room, type RoomLight, buildRoom, directLight, gather, subjectReceptors } from './room';
+import { type Room, type RoomLight, buildRoom, directLux, gather, subjectReceptors } from './room';
 import { type Scene, type SceneInput, parseScene } from './sceneSchema';
 
 /** Where to compute the map. Grid point (i, j) is at (x0 + i·(x1−x0)/(nx−1), y0 + j·(y1−y0)/(ny−1)). */
@@ -119,8 +119,6 @@ export type LightMapCache = {
 type LightEntry = {
   key: string;
   direct: Float32Array;
-  /** Bounce of this light on the coarse grid, lux·s. */
-  bounce: Float64Array;
   /** Direct light at each wall sample, linear sRGB lux·s, [3·sample + c] over the walls in order. */
   walls: Float64Array;
 };
@@ -129,24 +127,23 @@ const DEFAULT_CONTOUR_MIN_STOPS = -6;
 /** Points far brighter than a barely lit subject are clamped here, which keeps the contour count bounded. */
 const MAP_CEILING_STOPS = 30;
 
-function lightEntry(room: Room, L: RoomLight, g: Geometry, tmp: Float32Array): LightEntry {
-  const direct = new Float32Array(g.n);
+/** One light's grids. `reuse`: the replaced entry's direct grid of the same size (no one else holds it). */
+function lightEntry(room: Room, L: RoomLight, g: Geometry, tmp: Float32Array, reuse?: Float32Array): LightEntry {
+  const direct = reuse && reuse.length === g.n ? reuse : new Float32Array(g.n);
   directGrid(L, g, direct, tmp);
-  const bounce = new Float64Array(g.kx * g.ky);
-  bounceCoarse(room, L, g, bounce);
   let count = 0;
   for (const w of g.walls) count += w.receptors.length;
   const walls = new Float64Array(3 * count);
   let m = 0;
   for (const w of g.walls) {
     for (const r of w.receptors) {
-      const h = directLight(L, room.occ, r).luxSeconds;
+      const h = directLux(L, room.occ, r);
       walls[m++] = h * L.rgb[0];
       walls[m++] = h * L.rgb[1];
       walls[m++] = h * L.rgb[2];
     }
   }
-  return { key: L.key, direct, bounce, walls };
+  return { key: L.key, direct, walls };
 }
 
 /** The meter's exposure reading at the subject (its receptor; the room's caches answer it after the meter ran). */
@@ -199,6 +196,11 @@ export function createLightMapCache(): LightMapCache {
   let geometry: Geometry | null = null;
   let entries = new Map<string, LightEntry>();
   let tmp = new Float32Array(0);
+  // The coarse bounce grid of all lights, and the lights (their keys) it was summed for.
+  let bounceSum = new Float64Array(0);
+  let bounceKey = '';
+  // The lights' summed exposure (kept between frames: only read inside one update).
+  let sumBuf = new Float64Array(0);
   const stats: LightMapStats = { geometryRebuilt: false, lightsRecomputed: 0, lightsReused: 0 };
 
   function updateParsed(scene: Scene, grid: LightMapGrid): LightMapResult {
@@ -220,6 +222,7 @@ export function createLightMapCache(): LightMapCache {
     if (!geometry || geometry.key !== gKey) {
       geometry = buildGeometry(room, grid, gKey);
       entries = new Map();
+      bounceKey = '';
       stats.geometryRebuilt = true;
     }
     const g = geometry;
@@ -233,7 +236,8 @@ export function createLightMapCache(): LightMapCache {
         e = old;
         stats.lightsReused++;
       } else {
-        e = lightEntry(room, L, g, tmp);
+        // The light's old grid is dropped with its entry: fill it again rather than allocate (less garbage a frame).
+        e = lightEntry(room, L, g, tmp, next.has(L.light.id) ? undefined : old?.direct);
         stats.lightsRecomputed++;
       }
       next.set(L.light.id, e);
@@ -243,14 +247,24 @@ export function createLightMapCache(): LightMapCache {
 
     // Sum of the lights: direct grids, and the coarse bounce interpolated once.
     const n = g.n;
-    const H = new Float64Array(n);
-    for (const e of list) {
+    if (sumBuf.length !== n) sumBuf = new Float64Array(n);
+    const H = sumBuf;
+    if (list.length > 0) H.set(list[0]!.direct);
+    else H.fill(0);
+    for (let q = 1; q < list.length; q++) {
+      const e = list[q]!;
       const d = e.direct;
       for (let k = 0; k < n; k++) H[k]! += d[k]!;
     }
+    // Bounce: one kernel pass over the lights' summed patch luminance, redone only when a light changed.
     const nK = g.kx * g.ky;
-    const coarse = new Float64Array(nK);
-    for (const e of list) for (let k = 0; k < nK; k++) coarse[k]! += e.bounce[k]!;
+    const bKey = room.lights.map((L) => L.key).join('|');
+    if (bounceSum.length !== nK || bKey !== bounceKey) {
+      if (bounceSum.length !== nK) bounceSum = new Float64Array(nK);
+      bounceCoarse(room, room.lights, g, bounceSum);
+      bounceKey = bKey;
+    }
+    const coarse = bounceSum;
     const { nx, ny } = g.frame;
     const kx = g.kx;
     const ky = g.ky;
@@ -325,6 +339,7 @@ export function createLightMapCache(): LightMapCache {
     clear() {
       geometry = null;
       entries = new Map();
+      bounceKey = '';
     },
   };
 }

@@ -348,6 +348,11 @@ export function faceSamplePoints(L: RoomLight, face: AreaFace): [number, number,
 
 export type DirectResult = { luxSeconds: number; distanceM: number; incidenceDeg: number; offAxisDeg: number; transmission: number };
 
+/** A direct result written out (object spread, and a closure made per call, are slow in this engine). */
+function directResult(base: DirectResult, luxSeconds: number, transmission: number): DirectResult {
+  return { luxSeconds, distanceM: base.distanceM, incidenceDeg: base.incidenceDeg, offAxisDeg: base.offAxisDeg, transmission };
+}
+
 /**
  * Direct light of one light at a receptor (flat or dome), lux·s. Point sources: H = I·p(θ)·g·T/(d² + R²) with
  * g the receptor's response (flat: cos i; dome: (1 + cos i)/2). Area sources (big modifiers): the face as a
@@ -363,31 +368,23 @@ export function directLight(L: RoomLight, occ: Occluders, r: FieldReceptor): Dir
   const dz = r.z - L.pz;
   const d2 = dx * dx + dy * dy + dz * dz;
   const d = Math.sqrt(d2);
-  // Object spread is slow in this engine (tens of µs): results are written out.
-  const res = (luxSeconds: number, transmission: number): DirectResult => ({
-    luxSeconds,
-    distanceM: base.distanceM,
-    incidenceDeg: base.incidenceDeg,
-    offAxisDeg: base.offAxisDeg,
-    transmission,
-  });
-  if (L.axialCdS <= 0) return res(0, base.transmission);
-  if (L.onWalls.length > 0 && behindOwnWall(L, r.x, r.y)) return res(0, 0);
+  if (L.axialCdS <= 0) return directResult(base, 0, base.transmission);
+  if (L.onWalls.length > 0 && behindOwnWall(L, r.x, r.y)) return directResult(base, 0, 0);
   const cosOff = d > 1e-6 ? (dx * L.ax + dy * L.ay + dz * L.az) / d : 1;
   const face = L.face;
   if (!face) {
     if (r.kind !== 'dome') return base;
     const c = d > 1e-6 ? -(dx * r.nx + dy * r.ny + dz * r.nz) / d : 1;
     const g = (1 + c) / 2;
-    if (g <= COS_EPSILON) return res(0, base.transmission);
+    if (g <= COS_EPSILON) return directResult(base, 0, base.transmission);
     const t = transmissionAlong(occ, L.px, L.py, L.pz, r.x, r.y, r.z);
     const h = (L.axialCdS * lookupProfile(L.lut, cosOff) * g * t) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
-    return res(h, t);
+    return directResult(base, h, t);
   }
   // Receptor behind the face plane: nothing (the modifier's back is closed) unless it spills backwards.
-  if (cosOff <= COS_EPSILON && L.modifier.backSpill <= 0) return res(0, base.transmission);
+  if (cosOff <= COS_EPSILON && L.modifier.backSpill <= 0) return directResult(base, 0, base.transmission);
   const unshaded = areaUnshaded(L, face, r, cosOff);
-  if (unshaded <= 0) return res(0, base.transmission);
+  if (unshaded <= 0) return directResult(base, 0, base.transmission);
   // Transmission from a few points of the face.
   let t = 0;
   for (const [a, b] of SAMPLE_FRACTIONS) {
@@ -397,7 +394,55 @@ export function directLight(L: RoomLight, occ: Occluders, r: FieldReceptor): Dir
     t += transmissionAlong(occ, sx, sy, sz, r.x, r.y, r.z);
   }
   t /= SAMPLE_FRACTIONS.length;
-  return res(unshaded * t, t);
+  return directResult(base, unshaded * t, t);
+}
+
+/**
+ * directLight's lux·s alone, for per-pixel and per-sample callers (the frame, the map's wall strips, the coarse
+ * gather): the same formulas in the same order (so the same numbers, tested), without the angles in degrees,
+ * the result object, or — for domes and big faces — the point form's own ray test, which directLight computes
+ * for its report and then replaces.
+ */
+export function directLux(L: RoomLight, occ: Occluders, r: FieldReceptor): number {
+  if (L.axialCdS <= 0) return 0;
+  if (L.onWalls.length > 0 && behindOwnWall(L, r.x, r.y)) return 0;
+  const dx = r.x - L.px;
+  const dy = r.y - L.py;
+  const dz = r.z - L.pz;
+  const d2 = dx * dx + dy * dy + dz * dz;
+  const d = Math.sqrt(d2);
+  const face = L.face;
+  if (!face) {
+    if (r.kind !== 'dome') {
+      // transport.directAt's point form.
+      const apart = d > 1e-6;
+      const inv = apart ? 1 / d : 0;
+      const cosInc = apart ? -(dx * r.nx + dy * r.ny + dz * r.nz) * inv : 1;
+      if (cosInc <= COS_EPSILON) return 0;
+      const cosOffP = apart ? (dx * L.ax + dy * L.ay + dz * L.az) * inv : 1;
+      const t = transmissionAlong(occ, L.px, L.py, L.pz, r.x, r.y, r.z);
+      return (L.axialCdS * lookupProfile(L.lut, cosOffP) * cosInc * t) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
+    }
+    const cosOffD = d > 1e-6 ? (dx * L.ax + dy * L.ay + dz * L.az) / d : 1;
+    const c = d > 1e-6 ? -(dx * r.nx + dy * r.ny + dz * r.nz) / d : 1;
+    const g = (1 + c) / 2;
+    if (g <= COS_EPSILON) return 0;
+    const t = transmissionAlong(occ, L.px, L.py, L.pz, r.x, r.y, r.z);
+    return (L.axialCdS * lookupProfile(L.lut, cosOffD) * g * t) / Math.max(MIN_DISTANCE_SQ_M2, d2 + L.faceR2);
+  }
+  const cosOff = d > 1e-6 ? (dx * L.ax + dy * L.ay + dz * L.az) / d : 1;
+  if (cosOff <= COS_EPSILON && L.modifier.backSpill <= 0) return 0;
+  const unshaded = areaUnshaded(L, face, r, cosOff);
+  if (unshaded <= 0) return 0;
+  let t = 0;
+  for (const [a, b] of SAMPLE_FRACTIONS) {
+    const sx = L.px + face.u[0] * a + face.v[0] * b;
+    const sy = L.py + face.u[1] * a + face.v[1] * b;
+    const sz = L.pz + face.u[2] * a + face.v[2] * b;
+    t += transmissionAlong(occ, sx, sy, sz, r.x, r.y, r.z);
+  }
+  t /= SAMPLE_FRACTIONS.length;
+  return unshaded * t;
 }
 
 function prepareRoomLights(scene: Scene, occ: Occluders): RoomLight[] {
@@ -923,7 +968,7 @@ export function gatherCoarse(room: Room, r: FieldReceptor, self: boolean, cacheW
   const out: [number, number, number] = [0, 0, 0];
   for (const L of room.lights) {
     if (L.axialCdS <= 0) continue;
-    const h = (cacheWeights ? cachedDirect(room, L, r, self, rk) : directLight(L, occ, r)).luxSeconds;
+    const h = cacheWeights ? cachedDirect(room, L, r, self, rk).luxSeconds : directLux(L, occ, r);
     out[0] += h * L.rgb[0];
     out[1] += h * L.rgb[1];
     out[2] += h * L.rgb[2];

@@ -13,11 +13,15 @@ import type { Occluders } from './flatScene';
 
 const qu = new Float64Array(4);
 const qv = new Float64Array(4);
+/** Rows in which the last castShadows changed any cell (rowLo > rowHi: none). */
+let rowLo = 0;
+let rowHi = -1;
 
 /**
  * Multiply into `trans` (row-major, frame.nx × frame.ny) the transmission of every occluder's shadow cast
  * from source (sx, sy, sz) onto the grid plane at height zQ. skipSurface: a surface index that casts nothing
- * (the surface a bounce patch sits on).
+ * (the surface a bounce patch sits on). `rows`, if given, gets the first and last row in which any cell changed
+ * (first > last: none), so a caller can undo or sum just those rows.
  */
 export function castShadows(
   occ: Occluders,
@@ -28,8 +32,11 @@ export function castShadows(
   frame: GridFrame,
   trans: Float32Array,
   skipSurface = -1,
+  rows?: Int32Array,
 ): void {
   const { nx, ny, x0, y0, dx, dy } = frame;
+  rowLo = ny;
+  rowHi = -1;
   const gridSpan = Math.hypot((nx - 1) * dx, (ny - 1) * dy);
   const toGrid = Math.hypot(x0 + ((nx - 1) * dx) / 2 - sx, y0 + ((ny - 1) * dy) / 2 - sy);
   const dzQ = zQ - sz;
@@ -76,6 +83,10 @@ export function castShadows(
     qv[3] = (sy + ay * kFar - y0) / dy;
     fillConvexQuad(trans, nx, ny, T);
   }
+  if (rows) {
+    rows[0] = rowLo;
+    rows[1] = rowHi;
+  }
 }
 
 /** Multiply cells (i, j) inside the quad (qu, qv) by T, edges included. */
@@ -113,6 +124,9 @@ function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number):
     if (!(uMax >= uMin)) continue;
     const i0 = Math.max(0, Math.ceil(uMin - 1e-9));
     const i1 = Math.min(nx - 1, Math.floor(uMax + 1e-9));
+    if (i0 > i1) continue;
+    if (j < rowLo) rowLo = j;
+    if (j > rowHi) rowHi = j;
     const row = j * nx;
     for (let i = i0; i <= i1; i++) trans[row + i]! *= T;
   }

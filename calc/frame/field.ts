@@ -9,7 +9,7 @@
 import { type Rgb, kelvinToLinearRgb } from '../colour';
 import { luxFromEv100, luxSecondsForAperture } from '../exposure';
 import { type Field as MeterField, exposureAt as meterExposureAt, prepareField as prepareMeterField } from '../field';
-import { type Room, type RoomLight, directLight, patchResponse } from '../room';
+import { type Room, type RoomLight, directLux, patchResponse } from '../room';
 import type { Scene, SceneInput } from '../sceneSchema';
 import { type Receptor, transmissionAlong } from '../transport';
 
@@ -62,7 +62,7 @@ export function directInto(f: Field, r: Receptor, out: Float64Array, atSubject: 
   for (const L of f.lights) {
     if (L.axialCdS <= 0) continue;
     if (which !== 'all' && (L.face !== null) !== (which === 'area')) continue;
-    let h = directLight(L, occ, r).luxSeconds;
+    let h = directLux(L, occ, r);
     if (h <= 0) continue;
     if (shadow) h *= shadow(L, r);
     out[0] = out[0]! + h * L.rgb[0];

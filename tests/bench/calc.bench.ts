@@ -148,7 +148,7 @@ const allNew = () => {
   return { ...mapScene, lights: mapScene.lights.map((l) => ({ ...l, powerFraction: l.powerFraction * (gen % 2 ? 0.999 : 1) })) };
 };
 const tFull = time(40, () => warm.updateParsed(allNew(), grid), 'map, every light new');
-console.log(`  every light new (grid kept), with contours and wall tones: ${fmt(tFull)}   [target ≤ 16 ms; before issue 10's map: 5.2–9.2 ms, 27–49 ms under load, with one bounce and no area faces; before the wall-tone and face-ratio work: CPU 47.8 ms]  (CPU ${fmt(cpu(20, () => warm.updateParsed(allNew(), grid)))})`);
+console.log(`  every light new (grid kept), with contours and wall tones: ${fmt(tFull)}   [target ≤ 16 ms; before issue 10's map: 5.2–9.2 ms, 27–49 ms under load, with one bounce and no area faces; before the wall-tone and face-ratio work: CPU 47.8 ms; before this round's summed bounce: CPU 35.0 ms]  (CPU ${fmt(cpu(20, () => warm.updateParsed(allNew(), grid)))})`);
 
 // 3. one light moves: only that light's direct grid (coarse, then refined near a big face), its coarse bounce
 // and its wall samples are recomputed.
@@ -172,6 +172,37 @@ console.log(`  meter + map for one drag frame (what the worker does): ${fmt(time
 const noContours = { ...grid, skipContours: true };
 cache.updateParsed(mapScene, noContours);
 console.log(`  of which contours (and their paths): ${fmt(tMove - time(100, () => cache.updateParsed(moved(), noContours)))}`);
+
+// 4. A light added (issue 10's "new light" case): a warm meter and map, then a ninth light never seen before (a
+// softbox, so its area face, nine shadow casts and bounce are all new) — what the worker does for that frame.
+// Before this round the map summed one bounce kernel pass per light; it now sums the lights' patch luminance
+// and makes one pass.
+{
+  const added = createLightMapCache();
+  meterParsed(mapScene);
+  added.updateParsed(mapScene, grid);
+  let a = 0;
+  const base = mapScene.lights[0]!;
+  const withNew = () => {
+    a++;
+    return { ...mapScene, lights: [...mapScene.lights, { ...base, id: 'added', x: 1.2 + 1e-5 * a, y: 3.4, modifier: 'softbox' as const }] };
+  };
+  const frame = () => {
+    const sc = withNew();
+    meterParsed(sc);
+    added.updateParsed(sc, grid);
+  };
+  const tAdd = time(60, frame, 'meter + map, a light added');
+  console.log(`meter + map, a new light added to 8 (never seen before): ${fmt(tAdd)}   [target ≤ 16 ms; before this round (one bounce pass per light, a result object per direct sample): CPU 11.2 ms, median 8.5 ms]  (CPU ${fmt(cpu(30, frame))})`);
+  let b = 0;
+  const everyNew = () => {
+    b++;
+    const sc = { ...mapScene, lights: mapScene.lights.map((l) => ({ ...l, powerFraction: l.powerFraction * (1 - 1e-6 * b) })) };
+    meterParsed(sc);
+    added.updateParsed(sc, grid);
+  };
+  console.log(`  meter + map, every light never seen before: ${fmt(time(30, everyNew, 'meter + map, every light new'))}   [before this round: CPU 52.9 ms, median 79 ms]  (CPU ${fmt(cpu(20, everyNew))})`);
+}
 
 // Cost per (point × light) of the direct-light loop alone: a single-light map without bounce or contours.
 const oneLight = parseScene({ ...demoScene(1, 4), options: { bounce: false } });

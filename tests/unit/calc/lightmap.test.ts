@@ -5,7 +5,7 @@ import { createLightMapCache, lightMap, meter, parseScene, type LightInput, type
 import { contourLines } from '../../../calc/contours';
 import { buildOccluders } from '../../../calc/flatScene';
 import { castShadows } from '../../../calc/shadows';
-import { buildRoom, gather, unitVector } from '../../../calc/room';
+import { buildRoom, directLight, gather, unitVector } from '../../../calc/room';
 import { transmissionAlong } from '../../../calc/transport';
 
 const flash = (id: string, x: number, y: number, aimDeg: number, over: Partial<LightInput> = {}): LightInput =>
@@ -49,6 +49,35 @@ describe('lightMap', () => {
       const m = meter({ ...parsed, probes: [{ id: 'p', x, y, z: 1.6 }] });
       expect(map.luxSeconds[j * grid.nx + i]!).toBeCloseTo(m.probes[0]!.luxSeconds, 3);
     }
+  });
+
+  it('a flag across part of a softbox: the map\'s soft shadow reads the meter\'s nine-point transmission (within 0.1 stop)', () => {
+    const s = parseScene(
+      room([flash('box', 5, 2.5, 180, { modifier: 'softbox', modifierOverride: {} })], {
+        flags: [{ id: 'half', x1: 4.2, y1: 2.5, x2: 4.2, y2: 3.4, baseM: 0, topM: 3 }],
+        options: { bounce: false },
+      }),
+    );
+    const map = lightMap(s, grid);
+    const r = buildRoom(s);
+    const L = r.lights[0]!;
+    let penumbra = 0;
+    let compared = 0;
+    for (let j = 0; j < grid.ny; j++) {
+      for (let i = 0; i < grid.nx; i++) {
+        const x = grid.x0 + (i * (grid.x1 - grid.x0)) / (grid.nx - 1);
+        const y = grid.y0 + (j * (grid.y1 - grid.y0)) / (grid.ny - 1);
+        if (x < 1.5 || x > 3.5) continue;
+        const rec = { x, y, z: 1.6, nx: 1, ny: 0, nz: 0, kind: 'flat' as const };
+        const want = directLight(L, r.occ, rec);
+        if (!(want.luxSeconds > 0)) continue;
+        if (want.transmission > 0.05 && want.transmission < 0.95) penumbra++;
+        compared++;
+        expect(Math.abs(Math.log2(map.luxSeconds[j * grid.nx + i]! / want.luxSeconds)), `${x.toFixed(2)}, ${y.toFixed(2)}`).toBeLessThan(0.1);
+      }
+    }
+    expect(penumbra).toBeGreaterThan(10);
+    expect(compared).toBeGreaterThan(200);
   });
 
   it('common practice: doubling the distance costs two stops, on the map too', () => {
@@ -108,7 +137,13 @@ describe('lightMap', () => {
         const o = buildOccluders(s);
         const frame = { nx: 25, ny: 21, x0: 0, y0: 0, dx: 0.25, dy: 0.25 };
         const t = new Float32Array(frame.nx * frame.ny).fill(1);
-        castShadows(o, lx, ly, lz, 1.6, frame, t);
+        const rows = new Int32Array(2);
+        castShadows(o, lx, ly, lz, 1.6, frame, t, -1, rows);
+        // The rows it reports changed hold every changed cell, and each reported end row has one (face shadows
+        // sum and undo only those rows).
+        const changedRows = [...Array(frame.ny).keys()].filter((j) => t.subarray(j * frame.nx, (j + 1) * frame.nx).some((v) => v !== 1));
+        if (changedRows.length === 0) expect(rows[0]!).toBeGreaterThan(rows[1]!);
+        else expect([rows[0], rows[1]]).toEqual([changedRows[0], changedRows[changedRows.length - 1]]);
         let mismatches = 0;
         const e = 1e-6;
         for (let j = 0; j < frame.ny; j++) {

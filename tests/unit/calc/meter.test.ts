@@ -199,6 +199,8 @@ describe('meter — advice and ratios', () => {
     expect(far.lights[0]!.forTarget.stopsChange).toBeCloseTo(2, 8);
     expect(far.lights[0]!.forTarget.beyondFull).toBe(true);
     expect(far.warnings.map((w) => w.code)).toContain('beyond-full-power');
+    // Never nonsense: a power beyond full reads as how far over, in stops (a quarter of the light: 2 stops over).
+    expect(far.warnings.find((w) => w.code === 'beyond-full-power')!.message).toBe('a: over full power by 2.0 stops for f/8');
 
     const close = meter(scene([flash('a', front(0.1), { powerFraction: 1 / 256 })]));
     // GN 32 at 1/256 (GN × 1/16) and 0.1 m reads f/20: f/8 needs 2.6 stops less than the lowest setting

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { type LightInput, type SceneInput, meter, parseScene } from '../../../calc';
+import { type LightInput, type LightMapGrid, type SceneInput, createLightMapCache, meter, meterParsed, parseScene } from '../../../calc';
 import { buildPatches, buildOccluders, prepareLight } from '../../../calc/flatScene';
-import { buildRoom, resetRoomCache } from '../../../calc/room';
+import { buildRoom, directLight, directLux, resetRoomCache } from '../../../calc/room';
+import fc from 'fast-check';
 import { BEAM_TAIL_HALF_ANGLES, patchIncident } from '../../../calc/transport';
 
 // An invented small room: three walls, floor and ceiling, a softbox key, a gridded kicker, a snooted wall light.
@@ -79,5 +80,73 @@ describe('the room cache (speed) gives the answers of a fresh computation', () =
     // The rule did take effect on this snoot (otherwise this test checks nothing).
     expect(skipped).toBeGreaterThan(10);
     expect(BEAM_TAIL_HALF_ANGLES).toBe(3);
+  });
+
+  it('the light map through a warm cache equals a from-scratch map after a light is added, removed, or every light changes', () => {
+    // The map sums the lights' bounce before its one kernel pass (the kernel is linear), and keeps each light's
+    // direct grid: a cached frame must read what a fresh room and a fresh map read (relative 1e-9 — rounding).
+    const grid: LightMapGrid = { x0: 0.05, y0: 0.05, x1: 4.95, y1: 3.95, nx: 50, ny: 40 };
+    const s = parseScene({ ...room, subject: { ...room.subject, body: { widthM: 0.45, depthM: 0.25, topM: 1.7 } } });
+    const added = parseScene({ ...room, subject: s.subject, lights: [...lights, { id: 'fill', kind: 'flash', x: 3.8, y: 3.2, heightM: 1.7, aimDeg: -140, output: { type: 'energy', ratedWs: 200 }, modifier: 'octa', role: 'fill' }] });
+    const removed = { ...added, lights: added.lights.filter((l) => l.id !== 'kick') };
+    const allNew = { ...removed, lights: removed.lights.map((l) => ({ ...l, powerFraction: l.powerFraction * 0.7, y: l.y + 0.05 })) };
+    resetRoomCache();
+    const cache = createLightMapCache();
+    meterParsed(s);
+    cache.updateParsed(s, grid);
+    const recomputed: number[] = [];
+    for (const step of [added, removed, allNew, s]) {
+      meterParsed(step);
+      const warm = cache.updateParsed(step, grid);
+      recomputed.push(cache.stats.lightsRecomputed);
+      resetRoomCache();
+      meterParsed(step);
+      const fresh = createLightMapCache().updateParsed(step, grid);
+      let lit = false;
+      for (let k = 0; k < fresh.luxSeconds.length; k++) {
+        const f = fresh.luxSeconds[k]!;
+        expect(Math.abs(warm.luxSeconds[k]! - f)).toBeLessThanOrEqual(1e-6 * Math.max(f, 1e-12));
+        if (f > 0) lit = true;
+      }
+      expect(lit).toBe(true);
+      expect(warm.referenceLuxSeconds).toBeCloseTo(fresh.referenceLuxSeconds, 12);
+      expect(warm.walls).toEqual(fresh.walls);
+    }
+    // Only what changed was recomputed: the added light; none (one removed); every light; all of the first scene's.
+    expect(recomputed).toEqual([1, 0, 3, 3]);
+  });
+
+  it('directLux (the frame\'s and the map\'s per-pixel path) gives exactly directLight\'s lux·s: flat and dome, point and area sources, shadows, a light on a wall', () => {
+    const s = parseScene({
+      ...room,
+      lights: [
+        ...lights,
+        { id: 'box', kind: 'flash', x: 3.5, y: 2.6, heightM: 1.7, aimDeg: 180, output: { type: 'energy', ratedWs: 400 }, modifier: 'octa' },
+        { id: 'wall', kind: 'flash', x: 2.5, y: 4, heightM: 1.6, aimDeg: -90, output: { type: 'energy', ratedWs: 200 }, modifier: 'bare-reflector' },
+      ],
+      flags: [{ id: 'f', x1: 2.4, y1: 1.9, x2: 2.6, y2: 2.4, baseM: 0.6, topM: 2.2 }],
+      subject: { ...room.subject, body: { widthM: 0.45, depthM: 0.25, topM: 1.7 } },
+    });
+    resetRoomCache();
+    const r = buildRoom(s);
+    let lit = 0;
+    fc.assert(
+      fc.property(
+        fc.double({ min: -0.5, max: 5.5, noNaN: true }), fc.double({ min: -0.5, max: 4.5, noNaN: true }), fc.double({ min: 0.1, max: 2.7, noNaN: true }),
+        fc.double({ min: -Math.PI, max: Math.PI, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }), fc.boolean(), fc.boolean(),
+        (x, y, z, az, el, dome, self) => {
+          const c = Math.sqrt(1 - el * el);
+          const rec = { x, y, z, nx: c * Math.cos(az), ny: c * Math.sin(az), nz: el, kind: dome ? ('dome' as const) : ('flat' as const) };
+          const occ = self ? r.occFree : r.occ;
+          for (const L of r.lights) {
+            const want = directLight(L, occ, rec).luxSeconds;
+            expect(directLux(L, occ, rec)).toBe(want);
+            if (want > 0) lit++;
+          }
+        },
+      ),
+      { numRuns: 400, seed: 10 },
+    );
+    expect(lit).toBeGreaterThan(400);
   });
 });

@@ -79,6 +79,19 @@ describe('evaluateCheck', () => {
     expect(only(check({ measure: 'subject', min: r + 0.2 }), d).pass).toBe(false);
   });
 
+  it('a subject target may name its receptor: a light beside the face reads 1 stop more pointed at it than on the dome, and nothing flat along the face', () => {
+    // Projected area of a hemisphere: a light 90° off the dome's axis gives (1 + cos 90°)/2 = ½ of its frontal reading.
+    const side = { ...light('side', 0), x: 6, y: 3, aimDeg: 180 };
+    const d = doc([subject, camera, side], DARK_STAGE);
+    const dome = only(check({ measure: 'subject', min: -20 }), d).measured!;
+    const pointed = only(check({ measure: 'subject', min: -20, receptor: 'flat-light' }), d).measured!;
+    expect(pointed - dome).toBeCloseTo(1, 1);
+    const face = only(check({ measure: 'subject', min: -20, receptor: 'flat-face' }), d);
+    expect(face.measured).toBeNull();
+    expect(face.pass).toBe(false);
+    expect(face.note).toMatch(/^no light on /);
+  });
+
   it('compares at the precision the meter shows (one decimal): a target equal to the shown value passes', () => {
     const d = doc([subject, camera, backdrop(1), light('key', 1)]);
     const v = only(check({ measure: 'background', max: 20 }), d).measured!;

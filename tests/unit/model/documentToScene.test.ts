@@ -25,6 +25,16 @@ describe('sceneFromDocument', () => {
     expect(r.lights.length).toBeGreaterThan(0);
   });
 
+  it('more lights than the meter takes is an error to show, not a silent cut (64 metered, 65 refused)', () => {
+    const lights = (n: number) => Array.from({ length: n }, (_, i) => keyAt(0.5 + (i % 8) * 0.3, { id: `l${i}`, x: 1 + Math.floor(i / 8) * 0.8 }));
+    const ok = sceneFromDocument(doc([subject, camera, ...lights(64)]));
+    expect(ok.error).toBeUndefined();
+    expect(meter(ok.scene!).lights).toHaveLength(64);
+    const over = sceneFromDocument(doc([subject, camera, ...lights(65)]));
+    expect(over.scene).toBeNull();
+    expect(over.error).toBe('The meter takes at most 64 lights; this plan has 65. Remove or merge some to read the light.');
+  });
+
   it('says what is missing before a plan can be metered', () => {
     expect(sceneFromDocument(doc([])).missing).toEqual(['a subject', 'a light']);
     expect(sceneFromDocument(doc([subject])).missing).toEqual(['a light']);
