@@ -1,6 +1,7 @@
 // Four test projects, run in this order by scripts/test.mjs (npm test):
 //   unit        pure TypeScript: calc/, model/, server and db helpers (no React Native)
-//   components  React Native components under @testing-library/react-native (see tests/setup/)
+//   components  the app's components as the web build renders them (react-native-web in jsdom), queried with
+//               @testing-library/react by role, label, text and data-testid (see tests/setup/README.md)
 //   api         the Express app over real HTTP against the real PostgreSQL test database
 //   e2e         the built web app in Debian's Chromium, driven by playwright-core
 //   faults      servers in their own processes while PostgreSQL or the mail server stops (one file at a time,

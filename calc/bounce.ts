@@ -147,7 +147,7 @@ export type RectangleBounceArgs = {
 };
 
 /** Corners of a rectangle as vectors relative to `origin`. */
-export function rectangleCorners(
+function rectangleCorners(
   center: Vec3,
   normal: Vec3,
   up: Vec3,

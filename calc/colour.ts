@@ -56,7 +56,7 @@ const colourCache = new Map<string, Rgb>();
  * reflectance taken from a colour is clamped to that range: "#ffffff" paper does not reflect 100 %.
  * An explicit reflectance in the scene is used as given.
  */
-export const PAINT_REFLECTANCE_MIN = 0.05;
+const PAINT_REFLECTANCE_MIN = 0.05;
 export const PAINT_REFLECTANCE_MAX = 0.85;
 
 /**
@@ -98,7 +98,7 @@ export function planckianXy(kelvin: number): { x: number; y: number } {
 }
 
 /** Linear sRGB of chromaticity (x, y) at luminance Y = 1, negative channels clipped to 0 (out of gamut). */
-export function linearRgbFromXy(x: number, y: number): Rgb {
+function linearRgbFromXy(x: number, y: number): Rgb {
   const c = toLrgb({ mode: 'xyz65', x: x / y, y: 1, z: (1 - x - y) / y });
   return normaliseLuminance([Math.max(0, c.r), Math.max(0, c.g), Math.max(0, c.b)]);
 }
@@ -118,7 +118,7 @@ export function mcCamyCct(x: number, y: number): number {
 }
 
 /** CIE 1960 UCS (u, v) of chromaticity (x, y). */
-export function uvOfXy(x: number, y: number): { u: number; v: number } {
+function uvOfXy(x: number, y: number): { u: number; v: number } {
   const d = -2 * x + 12 * y + 3;
   return { u: (4 * x) / d, v: (6 * y) / d };
 }
@@ -128,7 +128,7 @@ export function uvOfXy(x: number, y: number): { u: number; v: number } {
  * a distance Δuv ≤ 0.05 in the 1960 UCS diagram (from memory). Beyond that (a red or deep-blue gel) the
  * meter reports no colour temperature. McCamy's cubic is also only fitted for roughly 2000–12 500 K.
  */
-export const CCT_MAX_DUV = 0.05;
+const CCT_MAX_DUV = 0.05;
 
 /** CCT (K) of a linear RGB mix, or null when the colour is black or too far from the Planckian locus. */
 export function cctOfLinearRgb(rgb: Rgb): number | null {

@@ -11,7 +11,7 @@ import { type Rgb, kelvinToLinearRgb } from './colour';
 import { type FieldReceptor, type Room, buildRoom, gatherCoarse } from './room';
 import { type Scene, type SceneInput, parseScene } from './sceneSchema';
 
-export type { FieldReceptor, ReceptorKind } from './room';
+export type { FieldReceptor } from './room';
 
 export type Field = {
   scene: Scene;

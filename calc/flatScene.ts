@@ -250,10 +250,6 @@ export type Patches = {
   layout: { start: number; nu: number; nv: number }[];
 };
 
-/** Index of the floor and the ceiling in per-surface arrays (after scene.surfaces). */
-export const floorIndex = (scene: Scene): number => scene.surfaces.length;
-export const ceilingIndex = (scene: Scene): number => scene.surfaces.length + 1;
-
 /** Per-surface reflectance, per side: linear RGB and its luminance. */
 export type SurfaceOptics = { front: { rgb: Rgb; y: number }; back: { rgb: Rgb; y: number } }[];
 

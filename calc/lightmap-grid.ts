@@ -9,7 +9,7 @@ import type { GridFrame } from './contours';
 import { type Occluders, MIN_DISTANCE_SQ_M2 } from './flatScene';
 import type { LightMapGrid } from './lightmap';
 import { PROFILE_LUT_SIZE } from './modifiers';
-import { type FieldReceptor, type Room, type RoomLight, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse } from './room';
+import { type FieldReceptor, type Room, type RoomLight, type Weights, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse, patchWeights } from './room';
 import type { Scene } from './sceneSchema';
 import { castShadows } from './shadows';
 import { DEG } from './vec';
@@ -33,11 +33,13 @@ const AREA_RATIO_STEP = 2;
 export type MapReceptorKind = 'dome' | 'flat' | 'pointed';
 
 /** Points along one wall where its tone is shown, on the side the camera is on. */
-export type WallStrip = {
+type WallStrip = {
   surfaceIndex: number;
   surfaceId: string;
   /** The strip's receptors (1 mm off the wall, facing the camera's side), at the map's height. */
   receptors: FieldReceptor[];
+  /** Each receptor's weights on the room's coarse patches (its later-bounce gather), kept with the fixed part. */
+  bounce: Weights[];
   /** The wall's ends on the plan (the drawn strip). */
   x1: number;
   y1: number;
@@ -71,10 +73,17 @@ export type Geometry = {
   ky: number;
   coarseFrame: GridFrame;
   kernel: Float32Array;
+  /**
+   * Interpolation of the coarse bounce at each point: the coarse cell's first corner (b·kx + a) and the four
+   * corner weights [4k … 4k+3] for (a, b), (a+1, b), (a, b+1), (a+1, b+1). Bilinear, except that corners lying on
+   * a surface, or across one from the point, are left out and the rest renormalised (see interpolationWeights).
+   */
+  cell: Int32Array;
+  weights: Float32Array;
   walls: WallStrip[];
 };
 
-/** Occluders of the body's four panels. */
+/** Occluders of the body's panels (torso, then head). */
 function bodyOccluders(scene: Scene): Occluders | null {
   const panels = bodyPanels(scene);
   if (panels.length === 0) return null;
@@ -85,17 +94,17 @@ function bodyOccluders(scene: Scene): Occluders | null {
     ay: Float64Array.from(panels, (p) => p.ay),
     ex: Float64Array.from(panels, (p) => p.ex),
     ey: Float64Array.from(panels, (p) => p.ey),
-    zLo: new Float64Array(n),
+    zLo: Float64Array.from(panels, (p) => p.zLo),
     zHi: Float64Array.from(panels, (p) => p.zHi),
     transmission: new Float64Array(n),
     surface: new Int32Array(n).fill(-2),
   };
 }
 
-/** Inside the body's footprint (a convex quad, corners in order)? */
+/** Inside the body's footprint (the torso's convex quad, its first four panels; it holds the head's)? */
 function insideBody(body: Occluders, x: number, y: number): boolean {
   let sign = 0;
-  for (let i = 0; i < body.count; i++) {
+  for (let i = 0; i < Math.min(4, body.count); i++) {
     const c = (x - body.ax[i]!) * body.ey[i]! - (y - body.ay[i]!) * body.ex[i]!;
     const s = c > 0 ? 1 : c < 0 ? -1 : 0;
     if (s === 0) continue;
@@ -131,7 +140,8 @@ export function mapReceptorKind(scene: Scene, grid: LightMapGrid): MapReceptorKi
   return r === 'dome-camera' ? 'dome' : r === 'flat-light' ? 'pointed' : 'flat';
 }
 
-function wallStrips(scene: Scene, z: number): WallStrip[] {
+function wallStrips(room: Room, z: number): WallStrip[] {
+  const scene = room.scene;
   const out: WallStrip[] = [];
   const cam = scene.camera;
   scene.surfaces.forEach((s, i) => {
@@ -152,9 +162,105 @@ function wallStrips(scene: Scene, z: number): WallStrip[] {
       const t = (k + 0.5) / count;
       receptors.push({ x: s.x1 + ex * t + nx * 1e-3, y: s.y1 + ey * t + ny * 1e-3, z: h, nx, ny, nz: 0, kind: 'flat' });
     }
-    out.push({ surfaceIndex: i, surfaceId: s.id, receptors, x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, nx, ny });
+    const bounce = receptors.map((r) => patchWeights(room, room.coarse, r, false, 2));
+    out.push({ surfaceIndex: i, surfaceId: s.id, receptors, bounce, x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, nx, ny });
   });
   return out;
+}
+
+/** Corners nearer a surface's line than this (m) count as on it. */
+const ON_SURFACE_M = 1e-3;
+
+/** Do the open segments p→q and a→a+e cross (strictly)? */
+function crosses(px: number, py: number, qx: number, qy: number, ax: number, ay: number, ex: number, ey: number): boolean {
+  const dx = qx - px;
+  const dy = qy - py;
+  const den = dx * ey - dy * ex;
+  if (den === 0) return false;
+  const t = ((ax - px) * ey - (ay - py) * ex) / den;
+  const u = ((ax - px) * dy - (ay - py) * dx) / den;
+  return t > 1e-9 && t < 1 - 1e-9 && u > 1e-9 && u < 1 - 1e-9;
+}
+
+/** Distance from (x, y) to the segment a→a+e. */
+function segmentDistance(x: number, y: number, ax: number, ay: number, ex: number, ey: number): number {
+  const l2 = ex * ex + ey * ey;
+  const t = l2 > 0 ? Math.max(0, Math.min(1, ((x - ax) * ex + (y - ay) * ey) / l2)) : 0;
+  const dx = ax + ex * t - x;
+  const dy = ay + ey * t - y;
+  return Math.sqrt(dx * dx + dy * dy);
+}
+
+/**
+ * The coarse bounce is interpolated between coarse points every `step` points. Near a wall that is wrong two
+ * ways: a coarse point on the wall's line sees the wall edge-on (no bounce from it), and one across the wall
+ * sees the other room. Such corners are left out of the point's interpolation and the others renormalised; a
+ * point whose corners are all left out keeps plain bilinear weights.
+ */
+function interpolationWeights(scene: Scene, frame: GridFrame, coarse: GridFrame, step: number, z: number, cell: Int32Array, weights: Float32Array): void {
+  const segs = scene.surfaces.filter((s) => s.baseM <= z && z <= s.topM).map((s) => [s.x1, s.y1, s.x2 - s.x1, s.y2 - s.y1] as const);
+  const { nx, ny } = frame;
+  const kx = coarse.nx;
+  const ky = coarse.ny;
+  const cb = ky > 1 ? ky - 2 : 0;
+  const ca = kx > 1 ? kx - 2 : 0;
+  const onWall = new Uint8Array(kx * ky);
+  for (let b = 0; b < ky; b++) {
+    for (let a = 0; a < kx; a++) {
+      const x = coarse.x0 + a * coarse.dx;
+      const y = coarse.y0 + b * coarse.dy;
+      if (segs.some(([ax, ay, ex, ey]) => segmentDistance(x, y, ax, ay, ex, ey) < ON_SURFACE_M)) onWall[b * kx + a] = 1;
+    }
+  }
+  const w = [0, 0, 0, 0];
+  for (let j = 0; j < ny; j++) {
+    const b = Math.min(Math.floor(j / step), cb);
+    const j1 = Math.min(ny - 1, (b + 1) * step);
+    const fy = j1 > b * step ? (j - b * step) / (j1 - b * step) : 0;
+    for (let i = 0; i < nx; i++) {
+      const k = j * nx + i;
+      const a = Math.min(Math.floor(i / step), ca);
+      const i1 = Math.min(nx - 1, (a + 1) * step);
+      const fx = i1 > a * step ? (i - a * step) / (i1 - a * step) : 0;
+      w[0] = (1 - fx) * (1 - fy);
+      w[1] = fx * (1 - fy);
+      w[2] = (1 - fx) * fy;
+      w[3] = fx * fy;
+      cell[k] = b * kx + a;
+      if (segs.length > 0) {
+        const x = frame.x0 + i * frame.dx;
+        const y = frame.y0 + j * frame.dy;
+        let kept = 0;
+        let dropped = false;
+        for (let c = 0; c < 4; c++) {
+          if (w[c] === 0) continue;
+          const ca2 = Math.min(kx - 1, a + (c & 1));
+          const cb2 = Math.min(ky - 1, b + (c >> 1));
+          const cx = coarse.x0 + ca2 * coarse.dx;
+          const cy = coarse.y0 + cb2 * coarse.dy;
+          if (onWall[cb2 * kx + ca2] === 1 || segs.some(([ax, ay, ex, ey]) => crosses(x, y, cx, cy, ax, ay, ex, ey))) {
+            dropped = true;
+            continue;
+          }
+          kept += w[c]!;
+        }
+        if (dropped && kept > 0) {
+          for (let c = 0; c < 4; c++) {
+            const ca2 = Math.min(kx - 1, a + (c & 1));
+            const cb2 = Math.min(ky - 1, b + (c >> 1));
+            const cx = coarse.x0 + ca2 * coarse.dx;
+            const cy = coarse.y0 + cb2 * coarse.dy;
+            const out = w[c] === 0 || onWall[cb2 * kx + ca2] === 1 || segs.some(([ax, ay, ex, ey]) => crosses(x, y, cx, cy, ax, ay, ex, ey));
+            w[c] = out ? 0 : w[c]! / kept;
+          }
+        }
+      }
+      weights[4 * k] = w[0]!;
+      weights[4 * k + 1] = w[1]!;
+      weights[4 * k + 2] = w[2]!;
+      weights[4 * k + 3] = w[3]!;
+    }
+  }
 }
 
 export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geometry {
@@ -230,9 +336,13 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
       if (f !== 0) kernel[base + k] = f * t;
     }
   }
+  const frame: GridFrame = { nx, ny, x0: grid.x0, y0: grid.y0, dx, dy };
+  const cell = new Int32Array(n);
+  const weights = new Float32Array(4 * n);
+  interpolationWeights(scene, frame, coarseFrame, step, z, cell, weights);
   return {
     key,
-    frame: { nx, ny, x0: grid.x0, y0: grid.y0, dx, dy },
+    frame,
     n,
     z,
     kind,
@@ -249,7 +359,9 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
     ky,
     coarseFrame,
     kernel,
-    walls: wallStrips(scene, z),
+    cell,
+    weights,
+    walls: wallStrips(room, z),
   };
 }
 
@@ -336,7 +448,8 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
   for (let k = 0; k < n; k++) {
     const t = out[k]!;
     if (pf) pf[k] = 0;
-    if (t === 0) continue;
+    // Shaded points of a big face keep their point form (pf): the exact/point ratio stays defined through shadows.
+    if (t === 0 && !pf) continue;
     const dx = px[k]! - lpx;
     const dy = py[k]! - lpy;
     const d2 = dx * dx + dy * dy + dz2;
@@ -362,35 +475,54 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
   if (face && pf) areaCorrection(L, g, out, pf);
 }
 
+/** Area sources: near the light and where the coarse ratio changes fast, the ratio is found every this many points. */
+const AREA_FINE_STRIDE = 2;
+/** Area sources: a fine cell whose corner ratios differ by more than this factor (or a face's horizon) is computed exactly. */
+const AREA_FINE_SPREAD = 1.2;
+
+let ratioBuf = new Float64Array(0);
+let ratioDone = new Uint8Array(0);
+
 /**
  * Big faces: out holds point form × shadows, pf the point form alone. The exact value's ratio to the point
- * form is found on the coarse grid and interpolated; points near the light, and coarse cells whose corners
- * disagree by over a factor of two (a face's horizon crossing the cell), are computed exactly.
+ * form varies smoothly except where the face crosses a point's horizon; it is found on a coarse grid and
+ * interpolated. Coarse cells near the light, or whose corners disagree by over a factor of two, get the ratio
+ * every AREA_FINE_STRIDE points; within them, a fine cell whose corners still disagree (by over
+ * AREA_FINE_SPREAD, or an undefined ratio) is computed exactly point by point.
  */
 function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float32Array): void {
   const { nx, ny } = g.frame;
+  const n = g.n;
+  if (ratioBuf.length !== n) {
+    ratioBuf = new Float64Array(n);
+    ratioDone = new Uint8Array(n);
+  } else ratioDone.fill(0);
+  const rb = ratioBuf;
+  const done = ratioDone;
+  const ratioAt = (k: number): number => {
+    if (done[k] === 1) return rb[k]!;
+    const p = pf[k]!;
+    const e = areaAt(L, g, k);
+    const r = p > 0 ? e / p : e > 0 ? NaN : 1;
+    rb[k] = r;
+    done[k] = 1;
+    return r;
+  };
   // The ratio varies slowly away from the face: found every AREA_RATIO_STEP bounce cells.
   const st = g.step * AREA_RATIO_STEP;
   const kx = Math.ceil((nx - 1) / st) + 1;
   const ky = Math.ceil((ny - 1) / st) + 1;
   const ratio = new Float64Array(kx * ky);
   const idx = (a: number, b: number) => Math.min(ny - 1, b * st) * nx + Math.min(nx - 1, a * st);
-  for (let b = 0; b < ky; b++) {
-    for (let a = 0; a < kx; a++) {
-      const k = idx(a, b);
-      const p = pf[k]!;
-      const e = areaAt(L, g, k);
-      ratio[b * kx + a] = p > 0 ? e / p : e > 0 ? NaN : 1;
-    }
-  }
+  for (let b = 0; b < ky; b++) for (let a = 0; a < kx; a++) ratio[b * kx + a] = ratioAt(idx(a, b));
   const near = AREA_REFINE_RADII * Math.sqrt(L.faceR2);
-  const near2 = near * near;
   const dz2 = (g.z - L.pz) * (g.z - L.pz);
   const cb = ky > 1 ? ky - 2 : 0;
   const ca = kx > 1 ? kx - 2 : 0;
   const at = (a: number, b: number) => ratio[Math.min(b, ky - 1) * kx + Math.min(a, kx - 1)]!;
-  // Cells whose corner ratios disagree by over a factor AREA_RATIO_SPREAD (or are undefined) are computed exactly throughout.
-  const exact = new Uint8Array(kx * ky);
+  // Coarse cells near the light, or whose corner ratios disagree by over AREA_RATIO_SPREAD (or are undefined), are refined.
+  const fine = new Uint8Array(kx * ky);
+  const cellHalf = 0.5 * Math.hypot(st * g.frame.dx, st * g.frame.dy);
   for (let b = 0; b <= cb; b++) {
     for (let a = 0; a <= ca; a++) {
       const r00 = at(a, b);
@@ -399,28 +531,51 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
       const r11 = at(a + 1, b + 1);
       const lo = Math.min(r00, r10, r01, r11);
       const hi = Math.max(r00, r10, r01, r11);
-      if (Number.isNaN(lo + hi) || hi > lo * AREA_RATIO_SPREAD) exact[b * kx + a] = 1;
+      const cx = g.frame.x0 + (a + 0.5) * st * g.frame.dx - L.px;
+      const cy = g.frame.y0 + (b + 0.5) * st * g.frame.dy - L.py;
+      const reach = near + cellHalf;
+      if (Number.isNaN(lo + hi) || hi > lo * AREA_RATIO_SPREAD || cx * cx + cy * cy + dz2 < reach * reach) fine[b * kx + a] = 1;
     }
   }
+  const fs = AREA_FINE_STRIDE;
+  // Points this close to the face's plane (the face at their horizon) are computed exactly.
+  const band = 1.5 * fs * Math.max(g.frame.dx, g.frame.dy);
+  const planeZ = (g.z - L.pz) * L.az;
   for (let j = 0; j < ny; j++) {
     const b = Math.min(Math.floor(j / st), cb);
     const j0 = b * st;
     const j1 = Math.min(ny - 1, (b + 1) * st);
     const fy = j1 > j0 ? (j - j0) / (j1 - j0) : 0;
+    const ja = Math.min(j0 + fs * Math.floor((j - j0) / fs), j1);
+    const jb = Math.min(ja + fs, j1);
+    const gy = jb > ja ? (j - ja) / (jb - ja) : 0;
     for (let i = 0; i < nx; i++) {
       const k = j * nx + i;
       const p = pf[k]!;
-      if (!(p > 0)) continue;
+      // Fully shaded points stay dark (their ratio is still defined, as a corner for their neighbours).
+      if (!(p > 0) || out[k] === 0) continue;
       const t = out[k]! / p;
       const a = Math.min(Math.floor(i / st), ca);
-      const ddx = g.px[k]! - L.px;
-      const ddy = g.py[k]! - L.py;
-      if (exact[b * kx + a] === 1 || ddx * ddx + ddy * ddy + dz2 < near2) {
-        out[k] = areaAt(L, g, k) * t;
-        continue;
-      }
       const i0 = a * st;
       const i1 = Math.min(nx - 1, (a + 1) * st);
+      if (fine[b * kx + a] === 1) {
+        const ia = Math.min(i0 + fs * Math.floor((i - i0) / fs), i1);
+        const ib = Math.min(ia + fs, i1);
+        const gx = ib > ia ? (i - ia) / (ib - ia) : 0;
+        const r00 = ratioAt(ja * nx + ia);
+        const r10 = ratioAt(ja * nx + ib);
+        const r01 = ratioAt(jb * nx + ia);
+        const r11 = ratioAt(jb * nx + ib);
+        const lo = Math.min(r00, r10, r01, r11);
+        const hi = Math.max(r00, r10, r01, r11);
+        const plane = (g.px[k]! - L.px) * L.ax + (g.py[k]! - L.py) * L.ay + planeZ;
+        if (Number.isNaN(lo + hi) || hi > lo * AREA_FINE_SPREAD || (lo <= 0 && hi > 0) || Math.abs(plane) < band) {
+          out[k] = ratioAt(k) * p * t;
+          continue;
+        }
+        out[k] = p * t * ((r00 * (1 - gx) + r10 * gx) * (1 - gy) + (r01 * (1 - gx) + r11 * gx) * gy);
+        continue;
+      }
       const fx = i1 > i0 ? (i - i0) / (i1 - i0) : 0;
       const r = (at(a, b) * (1 - fx) + at(a + 1, b) * fx) * (1 - fy) + (at(a, b + 1) * (1 - fx) + at(a + 1, b + 1) * fx) * fy;
       out[k] = p * r * t;

@@ -16,7 +16,7 @@ import { kelvinToLinearRgb, relativeLuminance, type Rgb } from './colour';
 import { type Geometry, bounceCoarse, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
 import { DARK_LUX_SECONDS, recordedTone } from './meter';
 import type { RecordedTone } from './results';
-import { type Room, type RoomLight, buildRoom, coarseBounceInto, directLight, gather, subjectReceptors } from './room';
+import { type Room, type RoomLight, buildRoom, directLight, gather, subjectReceptors } from './room';
 import { type Scene, type SceneInput, parseScene } from './sceneSchema';
 
 /** Where to compute the map. Grid point (i, j) is at (x0 + i·(x1−x0)/(nx−1), y0 + j·(y1−y0)/(ny−1)). */
@@ -54,7 +54,7 @@ export type LightMapGrid = {
 };
 
 /** One contour level as SVG path data in plan metres (traced where the map is computed; the UI only draws it). */
-export type ContourPath = {
+type ContourPath = {
   stops: number;
   /** "M x,y L x,y …" for every line of the level, coordinates rounded to the millimetre. */
   d: string;
@@ -63,7 +63,7 @@ export type ContourPath = {
 };
 
 /** The tone the camera records along one wall, on the side the camera is on (the meter's recorded tone). */
-export type WallTone = {
+type WallTone = {
   surfaceId: string;
   x1: number;
   y1: number;
@@ -105,7 +105,7 @@ export type LightMapResult = {
 };
 
 /** What the last update recomputed, for tests and the benchmark. */
-export type LightMapStats = { geometryRebuilt: boolean; lightsRecomputed: number; lightsReused: number };
+type LightMapStats = { geometryRebuilt: boolean; lightsRecomputed: number; lightsReused: number };
 
 export type LightMapCache = {
   /** Compute the map for this scene, reusing everything that did not change since the last call. */
@@ -165,7 +165,7 @@ function subjectReading(room: Room): number {
 }
 
 /** SVG path data of each contour level, with a label point on its longest line. */
-export function contourPaths(levels: ContourLevel[]): ContourPath[] {
+function contourPaths(levels: ContourLevel[]): ContourPath[] {
   const r = (v: number) => Math.round(v * 1000) / 1000;
   return levels.map((level) => {
     let d = '';
@@ -252,22 +252,16 @@ export function createLightMapCache(): LightMapCache {
     const coarse = new Float64Array(nK);
     for (const e of list) for (let k = 0; k < nK; k++) coarse[k]! += e.bounce[k]!;
     const { nx, ny } = g.frame;
-    const st = g.step;
     const kx = g.kx;
-    for (let j = 0; j < ny; j++) {
-      const b = Math.min(Math.floor(j / st), g.ky - 2 < 0 ? 0 : g.ky - 2);
-      const j1 = Math.min(ny - 1, (b + 1) * st);
-      const fy = g.ky > 1 ? (j - b * st) / (j1 - b * st) : 0;
-      for (let i = 0; i < nx; i++) {
-        const a = Math.min(Math.floor(i / st), kx - 2 < 0 ? 0 : kx - 2);
-        const i1 = Math.min(nx - 1, (a + 1) * st);
-        const fx = kx > 1 ? (i - a * st) / (i1 - a * st) : 0;
-        const c00 = coarse[b * kx + a]!;
-        const c10 = coarse[b * kx + a + 1] ?? c00;
-        const c01 = coarse[(b + 1) * kx + a] ?? c00;
-        const c11 = coarse[(b + 1) * kx + a + 1] ?? c00;
-        H[j * nx + i]! += (c00 * (1 - fx) + c10 * fx) * (1 - fy) + (c01 * (1 - fx) + c11 * fx) * fy;
-      }
+    const ky = g.ky;
+    const cell = g.cell;
+    const W = g.weights;
+    const dx1 = kx > 1 ? 1 : 0;
+    const dy1 = ky > 1 ? kx : 0;
+    for (let k = 0; k < n; k++) {
+      const c = cell[k]!;
+      const q = 4 * k;
+      H[k]! += W[q]! * coarse[c]! + W[q + 1]! * coarse[c + dx1]! + W[q + 2]! * coarse[c + dy1]! + W[q + 3]! * coarse[c + dx1 + dy1]!;
     }
 
     let ref = subjectReading(room);
@@ -349,7 +343,8 @@ function wallTones(room: Room, g: Geometry, list: LightEntry[]): WallTone[] {
     const front = -(s.y2 - s.y1) * w.nx + (s.x2 - s.x1) * w.ny > 0;
     const o = room.optics[w.surfaceIndex]!;
     const rho = front ? o.front.rgb : o.back.rgb;
-    const samples = w.receptors.map((r) => {
+    const C = room.coarseLum;
+    const samples = w.bounce.map((W) => {
       const rgb: [number, number, number] = [0, 0, 0];
       for (const e of list) {
         rgb[0] += e.walls[m]!;
@@ -357,7 +352,13 @@ function wallTones(room: Room, g: Geometry, list: LightEntry[]): WallTone[] {
         rgb[2] += e.walls[m + 2]!;
       }
       m += 3;
-      coarseBounceInto(room, r, false, false, rgb);
+      for (let q = 0; q < W.n; q++) {
+        const b = W.off[q]!;
+        const x = W.w[q]!;
+        rgb[0] += C[b]! * x;
+        rgb[1] += C[b + 1]! * x;
+        rgb[2] += C[b + 2]! * x;
+      }
       if (amb) for (let c = 0; c < 3; c++) rgb[c] = rgb[c]! + ambH * amb[c]!;
       return recordedTone(rgb, rho, gains, correctH);
     });

@@ -16,18 +16,17 @@ import { type LightRole, type ReceptorId, type Scene, type SceneInput, parseScen
 import type { Receptor } from './transport';
 import { DEG } from './vec';
 
-export { METER_MAX_PATCHES_PER_SURFACE } from './room';
 
 /** A reading more than this many stops under the camera is shown as "—" (common practice: black in the frame). */
-export const FAR_UNDER_STOPS = 12;
+const FAR_UNDER_STOPS = 12;
 /** Mid-grey the recorded tones are relative to: an 18 % card (common practice; L* 50 is 18.4 %). */
-export const MID_GREY_REFLECTANCE = 0.18;
+const MID_GREY_REFLECTANCE = 0.18;
 /** A channel over this many stops above a correctly exposed mid-grey clips (common practice: about +2.5). */
 export const CLIP_STOPS = 2.5;
 /** Every channel under this many stops below mid-grey reads as blocked-up black (common practice: about −5). */
-export const BLOCKED_STOPS = -5;
+const BLOCKED_STOPS = -5;
 /** Points across the lens's field the background range is sampled at. */
-export const BACKGROUND_RANGE_SAMPLES = 15;
+const BACKGROUND_RANGE_SAMPLES = 15;
 
 /**
  * Exposures at or below this (lux·s) count as no light: it is some 70 stops below f/1 at ISO 100, and keeps
@@ -109,7 +108,10 @@ function silhouetteRays(scene: Scene): [number, number] | null {
   const dist = Math.hypot(sub.x - cam.x, sub.y - cam.y);
   let lo = 0;
   let hi = 0;
-  for (const p of bodyPanels(scene)) {
+  // The silhouette at the line's height (the head at the face, the shoulders lower down).
+  const panels = bodyPanels(scene);
+  const atHeight = panels.filter((p) => p.zLo <= sub.heightM && sub.heightM <= p.zHi);
+  for (const p of atHeight.length > 0 ? atHeight : panels) {
     let a = Math.atan2(p.ay - cam.y, p.ax - cam.x) - centre;
     a = Math.atan2(Math.sin(a), Math.cos(a));
     lo = Math.min(lo, a);
@@ -135,7 +137,7 @@ function hiddenBySubject(scene: Scene, a: number): boolean {
  * hidden from the lens: the background is read just beside the silhouette on both sides (`receptors`, averaged
  * by the meter). Null when no surface is behind the subject and none is given.
  */
-export function findBackground(scene: Scene): { receptor: Receptor; receptors: Receptor[]; surfaceId: string | null } | null {
+function findBackground(scene: Scene): { receptor: Receptor; receptors: Receptor[]; surfaceId: string | null } | null {
   const cam = scene.camera;
   const sub = scene.subject;
   if (scene.background) {
@@ -179,7 +181,7 @@ export function findBackground(scene: Scene): { receptor: Receptor; receptors: R
  * light. Rim, hair, kicker, background and other lights are never key or fill. The exposures compared are the
  * ratio readings (meterParsed: flat along the face with that receptor, else flat pointed at each light).
  */
-export function chooseKeyFill(
+function chooseKeyFill(
   lights: { id: string; role: LightRole; luxSeconds: number; enabled: boolean }[],
 ): { keyId: string | null; fillIds: string[]; rule: 'roles' | 'brightest' } {
   const on = lights.filter((l) => l.enabled);

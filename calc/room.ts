@@ -22,16 +22,16 @@ import type { Scene } from './sceneSchema';
 import { COS_EPSILON, type Receptor, directAt, patchFormFactor, patchIncident, transmissionAlong } from './transport';
 
 /** Most patches one surface is split into by the meter (first bounce). */
-export const METER_MAX_PATCHES_PER_SURFACE = 400;
+const METER_MAX_PATCHES_PER_SURFACE = 400;
 /** Edge of the coarse patches the later bounces are solved on, m, and their most per surface. */
-export const RADIOSITY_PATCH_M = 1.5;
-export const RADIOSITY_MAX_PATCHES_PER_SURFACE = 16;
+const RADIOSITY_PATCH_M = 1.5;
+const RADIOSITY_MAX_PATCHES_PER_SURFACE = 16;
 /** Most coarse patches in all: a bigger room gets bigger coarse patches (the coupling costs n²). */
-export const RADIOSITY_MAX_PATCHES = 160;
+const RADIOSITY_MAX_PATCHES = 160;
 /** Occluder surface index of the subject's body. */
-export const BODY_SURFACE = -2;
+const BODY_SURFACE = -2;
 /** Modifiers evaluated as area sources (their face as a Lambertian polygon), with the face's half sizes, m. */
-export const AREA_FACES: Record<string, { halfW: number; halfH: number; round: boolean }> = {
+const AREA_FACES: Record<string, { halfW: number; halfH: number; round: boolean }> = {
   'softbox': { halfW: 0.45, halfH: 0.45, round: false },
   'octa': { halfW: 0.6, halfH: 0.6, round: true },
   'strip': { halfW: 0.15, halfH: 0.6, round: false },
@@ -40,9 +40,9 @@ export const AREA_FACES: Record<string, { halfW: number; halfH: number; round: b
   'beauty-dish': { halfW: 0.28, halfH: 0.28, round: true },
 };
 /** A face radius at or above this (m) makes any light an area source. */
-export const AREA_SOURCE_MIN_RADIUS_M = 0.25;
+const AREA_SOURCE_MIN_RADIUS_M = 0.25;
 
-export type ReceptorKind = 'flat' | 'dome';
+type ReceptorKind = 'flat' | 'dome';
 export type FieldReceptor = Receptor & { kind?: ReceptorKind };
 
 export type AreaFace = {
@@ -95,8 +95,23 @@ export type Room = {
   ids: Map<string, number>;
 };
 
-/** The subject's body as four vertical panels (an upright box), or none. */
-export function bodyPanels(scene: Scene): { ax: number; ay: number; ex: number; ey: number; zHi: number }[] {
+/**
+ * The head's size in the subject's body (common practice, from memory: an adult head is about 0.16 m wide and
+ * 0.2 m front to back, and the shoulder line about 0.3 m below the top of the head).
+ */
+const HEAD_WIDTH_M = 0.16;
+const HEAD_DEPTH_M = 0.2;
+const HEAD_AND_NECK_M = 0.3;
+
+type BodyPanel = { ax: number; ay: number; ex: number; ey: number; zLo: number; zHi: number };
+
+/**
+ * The subject's body as vertical panels, or none: a torso (the body's width across the shoulders and its
+ * depth) from the floor to the shoulder line, and a narrower head on it up to the body's top — two upright
+ * boxes, turned with the subject's facing. The torso's four panels come first (its footprint holds the head's).
+ * A body too short for a head and shoulders is one box.
+ */
+export function bodyPanels(scene: Scene): BodyPanel[] {
   const b = scene.subject.body;
   if (!b) return [];
   const f = (scene.subject.facingDeg * Math.PI) / 180;
@@ -104,18 +119,23 @@ export function bodyPanels(scene: Scene): { ax: number; ay: number; ex: number; 
   const fy = Math.sin(f);
   const sx = -fy;
   const sy = fx;
-  const hw = b.widthM / 2;
-  const hd = b.depthM / 2;
-  const c = [
-    [hd, hw],
-    [hd, -hw],
-    [-hd, -hw],
-    [-hd, hw],
-  ].map(([a, s]) => [scene.subject.x + fx * a! + sx * s!, scene.subject.y + fy * a! + sy * s!] as const);
-  return c.map((p, i) => {
-    const q = c[(i + 1) % 4]!;
-    return { ax: p[0], ay: p[1], ex: q[0] - p[0], ey: q[1] - p[1], zHi: b.topM };
-  });
+  const box = (w: number, d: number, zLo: number, zHi: number): BodyPanel[] => {
+    const hw = w / 2;
+    const hd = d / 2;
+    const c = [
+      [hd, hw],
+      [hd, -hw],
+      [-hd, -hw],
+      [-hd, hw],
+    ].map(([a, s]) => [scene.subject.x + fx * a! + sx * s!, scene.subject.y + fy * a! + sy * s!] as const);
+    return c.map((p, i) => {
+      const q = c[(i + 1) % 4]!;
+      return { ax: p[0], ay: p[1], ex: q[0] - p[0], ey: q[1] - p[1], zLo, zHi };
+    });
+  };
+  const shoulders = b.topM - HEAD_AND_NECK_M;
+  if (shoulders < HEAD_AND_NECK_M) return box(b.widthM, b.depthM, 0, b.topM);
+  return [...box(b.widthM, b.depthM, 0, shoulders), ...box(Math.min(HEAD_WIDTH_M, b.widthM), Math.min(HEAD_DEPTH_M, b.depthM), shoulders, b.topM)];
 }
 
 function withBody(o: Occluders, scene: Scene): Occluders {
@@ -137,7 +157,7 @@ function withBody(o: Occluders, scene: Scene): Occluders {
     ay: grow(o.ay, (i) => body[i]!.ay),
     ex: grow(o.ex, (i) => body[i]!.ex),
     ey: grow(o.ey, (i) => body[i]!.ey),
-    zLo: grow(o.zLo, () => 0),
+    zLo: grow(o.zLo, (i) => body[i]!.zLo),
     zHi: grow(o.zHi, (i) => body[i]!.zHi),
     transmission: grow(o.transmission, () => 0),
     surface,
@@ -248,27 +268,37 @@ function polygonFlat(pts: Float64Array, n: number, nx: number, ny: number, nz: n
   return sum;
 }
 
-/** Solid angle of a triangle seen from the origin (Van Oosterom & Strackee, 1983). */
-function triangleSolidAngle(
-  ax: number, ay: number, az: number, bx: number, by: number, bz: number, cx: number, cy: number, cz: number,
-): number {
-  const la = Math.hypot(ax, ay, az);
-  const lb = Math.hypot(bx, by, bz);
-  const lc = Math.hypot(cx, cy, cz);
-  const triple = ax * (by * cz - bz * cy) - ay * (bx * cz - bz * cx) + az * (bx * cy - by * cx);
-  const den = la * lb * lc + (ax * bx + ay * by + az * bz) * lc + (ax * cx + ay * cy + az * cz) * lb + (bx * cx + by * cy + bz * cz) * la;
-  return Math.abs(2 * Math.atan2(triple, den));
-}
+const lenBuf = new Float64Array(8);
 
-/** Solid angle of a convex polygon (corners relative to the point). */
-export function polygonSolidAngle(pts: Float64Array, n: number): number {
+/**
+ * Solid angle of a convex polygon (corners relative to the point, at most 8): a fan of triangles, each by Van
+ * Oosterom & Strackee (1983), tan(Ω/2) = a·(b × c) / (abc + (a·b)c + (a·c)b + (b·c)a). Corner lengths are found
+ * once (Math.sqrt, not Math.hypot, which is several times slower in V8).
+ */
+function polygonSolidAngle(pts: Float64Array, n: number): number {
+  for (let i = 0; i < n; i++) {
+    const x = pts[3 * i]!;
+    const y = pts[3 * i + 1]!;
+    const z = pts[3 * i + 2]!;
+    lenBuf[i] = Math.sqrt(x * x + y * y + z * z);
+  }
+  const ax = pts[0]!;
+  const ay = pts[1]!;
+  const az = pts[2]!;
+  const la = lenBuf[0]!;
   let s = 0;
   for (let i = 1; i + 1 < n; i++) {
-    s += triangleSolidAngle(
-      pts[0]!, pts[1]!, pts[2]!,
-      pts[3 * i]!, pts[3 * i + 1]!, pts[3 * i + 2]!,
-      pts[3 * (i + 1)]!, pts[3 * (i + 1) + 1]!, pts[3 * (i + 1) + 2]!,
-    );
+    const bx = pts[3 * i]!;
+    const by = pts[3 * i + 1]!;
+    const bz = pts[3 * i + 2]!;
+    const cx = pts[3 * i + 3]!;
+    const cy = pts[3 * i + 4]!;
+    const cz = pts[3 * i + 5]!;
+    const lb = lenBuf[i]!;
+    const lc = lenBuf[i + 1]!;
+    const triple = ax * (by * cz - bz * cy) - ay * (bx * cz - bz * cx) + az * (bx * cy - by * cx);
+    const den = la * lb * lc + (ax * bx + ay * by + az * bz) * lc + (ax * cx + ay * cy + az * cz) * lb + (bx * cx + by * cy + bz * cz) * la;
+    s += Math.abs(2 * Math.atan2(triple, den));
   }
   return s;
 }
@@ -367,7 +397,7 @@ export function directLight(L: RoomLight, occ: Occluders, r: FieldReceptor): Dir
   return res(unshaded * t, t);
 }
 
-export function prepareRoomLights(scene: Scene, occ: Occluders): RoomLight[] {
+function prepareRoomLights(scene: Scene, occ: Occluders): RoomLight[] {
   return scene.lights.map((l, i) => {
     const L = prepareLight(l, i, scene);
     const face = areaFace(L);
@@ -515,7 +545,7 @@ function solveTransfer(coarse: Patches, coupling: Coupling, optics: SurfaceOptic
 }
 
 /** Receptor weights on a patch set: for each patch seen, the luminance offset (6·i + 3·side) and response × transmission. */
-type Weights = { off: Int32Array; w: Float64Array; n: number };
+export type Weights = { off: Int32Array; w: Float64Array; n: number };
 
 /** One light's bounce: fine-patch luminance of the first bounce, and with every later bounce added. */
 type LightBounce = { first: Float64Array; total: Float64Array };
@@ -740,6 +770,14 @@ function receptorWeights(room: Room, P: Patches, set: 'fine' | 'coarse', r: Fiel
   const key = `${set}|${receptorKey(r, self)}`;
   const hit = room.weightsCache.get(key);
   if (hit) return hit;
+  return remember(room.weightsCache, key, patchWeights(room, P, r, self, exactWithin), WEIGHTS_CACHE_MAX);
+}
+
+/**
+ * A receptor's weights on a patch set (response × patch → receptor transmission), not cached: for callers that
+ * keep them themselves (the light map's wall samples, kept with the map's fixed part).
+ */
+export function patchWeights(room: Room, P: Patches, r: FieldReceptor, self: boolean, exactWithin: number): Weights {
   const occ = self ? room.occFree : room.occ;
   const off = new Int32Array(P.count);
   const w = new Float64Array(P.count);
@@ -753,7 +791,7 @@ function receptorWeights(room: Room, P: Patches, set: 'fine' | 'coarse', r: Fiel
     w[n] = Math.abs(f) * t;
     n++;
   }
-  return remember(room.weightsCache, key, { off: off.slice(0, n), w: w.slice(0, n), n }, WEIGHTS_CACHE_MAX);
+  return { off: off.slice(0, n), w: w.slice(0, n), n };
 }
 
 /**
@@ -833,7 +871,7 @@ export function gather(room: Room, r: FieldReceptor, self: boolean, only?: numbe
  * Bounce at a receptor from the coarse patches' totals over all lights, added into `out` (linear sRGB lux·s).
  * `cacheWeights`: keep the receptor's patch weights for the room (points asked again while lights move).
  */
-export function coarseBounceInto(room: Room, r: FieldReceptor, self: boolean, cacheWeights: boolean, out: [number, number, number]): void {
+function coarseBounceInto(room: Room, r: FieldReceptor, self: boolean, cacheWeights: boolean, out: [number, number, number]): void {
   const C = room.coarse;
   const L = room.coarseLum;
   if (cacheWeights) {

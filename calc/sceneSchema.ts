@@ -32,7 +32,7 @@ const angleDeg = z.number().min(-3600).max(3600);
 const colour = z.string().refine(isColour, { message: 'not a readable colour (use a CSS colour such as #d8c8b0)' });
 
 /** A reading from a real incident meter, used to anchor one light's predictions. */
-export const calibrationSchema = z.object({
+const calibrationSchema = z.object({
   /** f-number the meter showed. */
   aperture: z.number().min(0.5).max(512),
   /** Distance from the light (its face) to the meter's receptor, m; the meter on the beam axis, facing the light. */
@@ -46,7 +46,7 @@ export const calibrationSchema = z.object({
 });
 
 /** Per-light override of any modifier field (see modifiers.ts ModifierSpec). */
-export const modifierOverrideSchema = z.object({
+const modifierOverrideSchema = z.object({
   halfAngleDeg: z.number().min(0.5).max(180).optional(),
   edgeSoftness: z.number().min(0).max(1).optional(),
   lossStops: z.number().min(-4).max(20).optional(),
@@ -55,7 +55,7 @@ export const modifierOverrideSchema = z.object({
 });
 
 /** Per-light override of any gel field (see modifiers.ts GelSpec). */
-export const gelOverrideSchema = z.object({
+const gelOverrideSchema = z.object({
   lossStops: z.number().min(0).max(20).optional(),
   miredShift: z.number().min(-500).max(500).optional(),
   tint: colour.optional(),
@@ -87,7 +87,7 @@ const lightBase = {
 };
 
 /** Flash output: rated energy (Ws) at full power, or a guide number (m, ISO 100, full power, as rated). */
-export const flashOutputSchema = z.discriminatedUnion('type', [
+const flashOutputSchema = z.discriminatedUnion('type', [
   z.object({
     type: z.literal('energy'),
     ratedWs: z.number().positive().max(1e5),
@@ -98,18 +98,18 @@ export const flashOutputSchema = z.discriminatedUnion('type', [
 ]);
 
 /** Continuous output: luminous flux (lm, into the bare-reflector beam) or illuminance at 1 m on axis (lux). */
-export const continuousOutputSchema = z.discriminatedUnion('type', [
+const continuousOutputSchema = z.discriminatedUnion('type', [
   z.object({ type: z.literal('lumens'), lumens: z.number().positive().max(1e7) }),
   z.object({ type: z.literal('luxAt1m'), lux: z.number().positive().max(1e7) }),
 ]);
 
-export const flashLightSchema = z.object({ ...lightBase, kind: z.literal('flash'), output: flashOutputSchema });
-export const continuousLightSchema = z.object({
+const flashLightSchema = z.object({ ...lightBase, kind: z.literal('flash'), output: flashOutputSchema });
+const continuousLightSchema = z.object({
   ...lightBase,
   kind: z.literal('continuous'),
   output: continuousOutputSchema,
 });
-export const lightSchema = z.discriminatedUnion('kind', [flashLightSchema, continuousLightSchema]);
+const lightSchema = z.discriminatedUnion('kind', [flashLightSchema, continuousLightSchema]);
 
 /**
  * A vertical surface standing on the plan segment (x1, y1)–(x2, y2), from baseM to topM: wall, backdrop,
@@ -117,7 +117,7 @@ export const lightSchema = z.discriminatedUnion('kind', [flashLightSchema, conti
  * right as you walk from (x1, y1) to (x2, y2) on screen; backColour/backReflectance apply to the other side
  * (default: same as the front).
  */
-export const surfaceSchema = z
+const surfaceSchema = z
   .object({
     id: z.string().min(1),
     kind: z.enum(['wall', 'backdrop', 'reflector', 'v-flat']).default('wall'),
@@ -146,7 +146,7 @@ export const surfaceSchema = z
  * transmission: fraction passed (0 = opaque flag; 0.5 = a one-stop scrim). Height range optional: absent
  * bounds mean it blocks at every height (plain plan occlusion).
  */
-export const flagSchema = z
+const flagSchema = z
   .object({
     id: z.string().min(1),
     x1: coordM,
@@ -163,7 +163,7 @@ export const flagSchema = z
   });
 
 /** The metered subject: face position and the direction the face (and the meter's flat receptor) points. */
-export const subjectSchema = z.object({
+const subjectSchema = z.object({
   x: coordM,
   y: coordM,
   heightM,
@@ -172,7 +172,7 @@ export const subjectSchema = z.object({
   body: z.object({ widthM: z.number().min(0.05).max(5), depthM: z.number().min(0.05).max(5), topM: heightM }).optional(),
 });
 
-export const cameraSchema = z.object({
+const cameraSchema = z.object({
   x: coordM,
   y: coordM,
   heightM: heightM.default(1.5),
@@ -191,7 +191,7 @@ export const cameraSchema = z.object({
 });
 
 /** A point to meter: position and receptor facing (plan angle; horizontal receptor). */
-export const probeSchema = z.object({
+const probeSchema = z.object({
   id: z.string().min(1),
   x: coordM,
   y: coordM,
@@ -201,14 +201,14 @@ export const probeSchema = z.object({
 });
 
 /** The meter's receptors (see calc/README.md, "Receptors"). */
-export const RECEPTORS = ['dome-camera', 'flat-light', 'flat-face'] as const;
+const RECEPTORS = ['dome-camera', 'flat-light', 'flat-face'] as const;
 export type ReceptorId = (typeof RECEPTORS)[number];
 
 /**
  * Floor and ceiling: horizontal surfaces over the rectangle (x1, y1)–(x2, y2); they bounce light like walls.
  * A ceiling with no heightM is absent (outdoors, a big stage).
  */
-export const floorSchema = z.object({
+const floorSchema = z.object({
   x1: coordM,
   y1: coordM,
   x2: coordM,
@@ -216,16 +216,16 @@ export const floorSchema = z.object({
   colour: colour.default('#8a8580'),
   reflectance: z.number().min(0).max(1).optional(),
 });
-export const ceilingSchema = z.object({
+const ceilingSchema = z.object({
   heightM: z.number().min(0.5).max(100),
   colour: colour.default('#f0efea'),
   reflectance: z.number().min(0).max(1).optional(),
 });
 
 /** Wanted level of rim, hair and kicker lights over the key, each read pointed at its light: +1 stop (common practice: +½ to +1½). */
-export const DEFAULT_RIM_TARGET_STOPS = 1;
+const DEFAULT_RIM_TARGET_STOPS = 1;
 
-export const sceneOptionsSchema = z.object({
+const sceneOptionsSchema = z.object({
   /**
    * The exposure receptor: 'flat-face' (a flat disc along the subject's facing; the default here, as before),
    * 'dome-camera' (a hemisphere at the subject pointed at the camera) or 'flat-light' (a flat disc pointed at
@@ -283,19 +283,8 @@ export type Scene = z.output<typeof sceneSchema>;
 export type SceneInput = z.input<typeof sceneSchema>;
 export type Light = z.output<typeof lightSchema>;
 export type LightInput = z.input<typeof lightSchema>;
-export type FlashLight = z.output<typeof flashLightSchema>;
-export type ContinuousLight = z.output<typeof continuousLightSchema>;
-export type Surface = z.output<typeof surfaceSchema>;
 export type SurfaceInput = z.input<typeof surfaceSchema>;
-export type Flag = z.output<typeof flagSchema>;
 export type FlagInput = z.input<typeof flagSchema>;
-export type Subject = z.output<typeof subjectSchema>;
-export type Camera = z.output<typeof cameraSchema>;
-export type Probe = z.output<typeof probeSchema>;
-export type Floor = z.output<typeof floorSchema>;
-export type Ceiling = z.output<typeof ceilingSchema>;
-export type SceneOptions = z.output<typeof sceneOptionsSchema>;
-export type Calibration = z.output<typeof calibrationSchema>;
 export type LightRole = Light['role'];
 
 /** Validate a scene and fill its defaults; throws an Error whose message names each bad field (zod's path). */

@@ -3,7 +3,6 @@
  * patches and the patch → receptor form factor. Shared by the meter and the light map.
  */
 import { quadIrradiancePerLuminance } from './bounce';
-import { type Rgb, relativeLuminance } from './colour';
 import { lookupProfile } from './modifiers';
 import { type Occluders, type Patches, type PreparedLight, MIN_DISTANCE_SQ_M2 } from './flatScene';
 
@@ -113,10 +112,7 @@ export function directAt(
   return { luxSeconds, distanceM: d, incidenceDeg, offAxisDeg, transmission };
 }
 
-/** Luminance factor of light colour c reflected by a surface side of rgb reflectance ρ: Y(c ⊙ ρ). */
-export function reflectedLuminance(c: Rgb, rho: Rgb): number {
-  return relativeLuminance([c[0] * rho[0], c[1] * rho[1], c[2] * rho[2]]);
-}
+
 /**
  * Bounce form factor from patch i to receptor q: irradiance per unit patch luminance (π × view factor),
  * signed: positive when q is on the patch's front side, negative on its back, 0 when not seen.

@@ -7,17 +7,15 @@
  */
 export type Vec3 = { x: number; y: number; z: number };
 
-export const vec3 = (x: number, y: number, z: number): Vec3 => ({ x, y, z });
-export const add = (a: Vec3, b: Vec3): Vec3 => ({ x: a.x + b.x, y: a.y + b.y, z: a.z + b.z });
 export const sub = (a: Vec3, b: Vec3): Vec3 => ({ x: a.x - b.x, y: a.y - b.y, z: a.z - b.z });
-export const scale = (a: Vec3, s: number): Vec3 => ({ x: a.x * s, y: a.y * s, z: a.z * s });
+const scale = (a: Vec3, s: number): Vec3 => ({ x: a.x * s, y: a.y * s, z: a.z * s });
 export const dot = (a: Vec3, b: Vec3): number => a.x * b.x + a.y * b.y + a.z * b.z;
 export const cross = (a: Vec3, b: Vec3): Vec3 => ({
   x: a.y * b.z - a.z * b.y,
   y: a.z * b.x - a.x * b.z,
   z: a.x * b.y - a.y * b.x,
 });
-export const length = (a: Vec3): number => Math.sqrt(dot(a, a));
+const length = (a: Vec3): number => Math.sqrt(dot(a, a));
 
 /** Unit vector; the zero vector stays zero rather than becoming NaN. */
 export const normalize = (a: Vec3): Vec3 => {

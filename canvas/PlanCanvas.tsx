@@ -3,7 +3,7 @@
 // actions. It owns no state of its own. Each item, beam and marker subscribes to its own item, so a drag
 // re-renders the dragged item's view, its beam and the handles — not the plan. Overlays (comment pins) are
 // children drawn in screen space with the same camera (`usePlanCamera`).
-import { createContext, memo, useContext, useEffect, useMemo, useRef, useSyncExternalStore } from 'react';
+import { createContext, memo, useCallback, useContext, useEffect, useMemo, useRef, useSyncExternalStore } from 'react';
 import { Platform, Pressable, StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
 import Svg, { G } from 'react-native-svg';
 import { useShallow } from 'zustand/react/shallow';
@@ -14,12 +14,15 @@ import { accessibleName, anchorOf } from '../model/kinds';
 import { M_PER_FT, type Units } from '../model/units';
 import { pinchCamera, scaleBarLength, toScreen, type Camera } from './editor/camera';
 import { itemAt, planAt } from './editor/hit';
-import { useEditor, useEditorApi, useItem } from './editor/react';
+import { useEditor, useEditorApi } from './editor/react';
 import { itemById, type PointerKind } from './editor/state';
 import { Beam } from './layers/Beams';
 import { attachWebPinch } from './webPinch';
 import { PlanGestures, type PlanGestureHandlers } from './planGestures';
-import { beamClipOf } from '../drawing/plan';
+import { beamClipOf, sketchBeam } from '../drawing/plan';
+import { sketchItem } from '../drawing/glyphs';
+import { createDragLayer } from './dragLayer';
+import { DragLayerContext, useItemDrag } from './dragViews';
 import { Grid } from './layers/Grid';
 import { Handles } from './layers/Handles';
 import { HeatCanvas } from './layers/HeatCanvas';
@@ -102,6 +105,9 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
   const size = useEditor(useShallow((s) => s.viewport));
   const onTapRef = useRef(onTap);
   onTapRef.current = onTap;
+  // The drag layer of this plan: the moved items' views follow the hand without React.
+  const dragLayer = useMemo(() => createDragLayer(editor), [editor]);
+  useEffect(() => () => dragLayer.dispose(), [dragLayer]);
 
   useEffect(() => {
     if (size.insetBottom !== insetBottom) editor.dispatch('setViewport', { w: size.w, h: size.h, insetBottom });
@@ -202,6 +208,7 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
       {camera ? <View pointerEvents="none" style={[styles.stage, { backgroundColor: theme.background, left: camera.tx, top: camera.ty, width: stage.widthM * camera.scale, height: stage.depthM * camera.scale }]} /> : null}
       {camera ? <MapTint source={lightMap} camera={camera} /> : null}
       {camera ? (
+        <DragLayerContext.Provider value={dragLayer}>
         <PlanGestures handlers={gestures}>
           <View style={StyleSheet.absoluteFill} collapsable={false}>
             <Svg width={size.w} height={size.h}>
@@ -223,6 +230,7 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
             </Svg>
           </View>
         </PlanGestures>
+        </DragLayerContext.Provider>
       ) : null}
       {camera ? <A11yLayer ids={shownIds} /> : null}
       {camera ? children : null}
@@ -245,16 +253,38 @@ const MapLines = memo(function MapLines({ source, ink, units }: { source: PlanCa
 
 /** One item's glyph: subscribes to that item only. */
 const PlanItem = memo(function PlanItem({ id, theme, units }: { id: string; theme: PlanTheme; units: Units }) {
-  const item = useItem(id);
-  return item ? <ItemView item={item} theme={theme} units={units} /> : null;
+  const settled = useEditor((s) => itemById(s, id));
+  const draw = useCallback((i: Item) => sketchItem(i, { theme, units }), [theme, units]);
+  // A drag moves the glyph through the drag layer, not through React (see dragViews.ts).
+  const { shell, preview, live } = useItemDrag(id, draw);
+  const testIdPrefix = useContext(ItemTestIds);
+  const item = live ?? settled;
+  if (!item) return null;
+  return (
+    <>
+      <G ref={shell as never} testID={`${testIdPrefix}glyph-${id}`}>
+        <ItemView item={item} theme={theme} units={units} />
+      </G>
+      <G ref={preview as never} />
+    </>
+  );
 });
 
 const PlanBeam = memo(function PlanBeam({ id }: { id: string }) {
-  const item = useItem(id);
+  const settled = useEditor((s) => itemById(s, id));
   const walls = useEditor((s) => wallsOf(s.doc.items, null));
   const stage = useEditor((s) => s.doc.stage);
   const clip = useMemo(() => beamClipOf({ items: walls, stage }), [walls, stage]);
-  return item?.kind === 'light' ? <Beam light={item as ItemOf<'light'>} clip={clip} /> : null;
+  const draw = useCallback((i: Item) => (i.kind === 'light' ? sketchBeam(i, clip) : null), [clip]);
+  // The walls clip a beam differently wherever it stands: a moved beam is drawn afresh, never shifted.
+  const { shell, preview, live } = useItemDrag(id, draw, false);
+  const item = live ?? settled;
+  return (
+    <>
+      <G ref={shell as never}>{item?.kind === 'light' ? <Beam light={item as ItemOf<'light'>} clip={clip} /> : null}</G>
+      <G ref={preview as never} />
+    </>
+  );
 });
 
 /** Every item is also a focusable element with its name, over its glyph: keyboard and screen-reader users

@@ -42,6 +42,8 @@ export function Segmented<T extends string>({ options, value, onChange, label }:
             accessibilityRole="tab"
             accessibilityLabel={o.label}
             accessibilityState={{ selected: on }}
+            // react-native-web reads aria-* props, not accessibilityState: the web announces the chosen tab by this.
+            aria-selected={on}
             onPress={() => onChange(o.value)}
             style={[s.segment, on && s.segmentOn]}
           >

@@ -7,8 +7,6 @@ import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { flushAll } from '../canvas/editor/persist';
 import { colours, fonts, space } from '../constants/theme';
 
-export type Fallback = { error: Error; retry: () => void; saving: boolean };
-
 type Props = {
   /** What failed, in the user's words ("the plan", "this page"). */
   what: string;

@@ -18,7 +18,7 @@ function shapes(list: GlyphShape[], colour: string) {
 /** The app mark: a point source with its falloff rings, one ring per stop. */
 export function Mark({ size = 28, colour = '#f0b24a' }: { size?: number; colour?: string }) {
   return (
-    <Svg width={size} height={size} viewBox={`0 0 ${markShapes.viewBox} ${markShapes.viewBox}`} accessibilityElementsHidden>
+    <Svg width={size} height={size} viewBox={`0 0 ${markShapes.viewBox} ${markShapes.viewBox}`} accessibilityElementsHidden aria-hidden>
       {shapes(markShapes.shapes, colour)}
     </Svg>
   );
@@ -26,7 +26,7 @@ export function Mark({ size = 28, colour = '#f0b24a' }: { size?: number; colour?
 
 export function NavGlyph({ name, colour, size = 22 }: { name: NavGlyphName; colour: string; size?: number }) {
   return (
-    <Svg width={size} height={size} viewBox="0 0 24 24" accessibilityElementsHidden>
+    <Svg width={size} height={size} viewBox="0 0 24 24" accessibilityElementsHidden aria-hidden>
       <>{shapes(navShapes[name], colour)}</>
     </Svg>
   );

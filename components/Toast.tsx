@@ -3,10 +3,10 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { colours, fonts, radius, space } from '../constants/theme';
 
-export type ToastAction = { label: string; onPress: () => void };
+type ToastAction = { label: string; onPress: () => void };
 export type ToastMessage = { text: string; actions?: ToastAction[] };
 
-export const TOAST_MS = 7000;
+const TOAST_MS = 7000;
 
 /** State for one toast at a time: show(message) replaces the current one. */
 export function useToast() {

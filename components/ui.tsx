@@ -18,21 +18,8 @@ export function Title({ children, page }: { children: ReactNode; page?: string }
 }
 
 /** A section's heading (h2) under the page's Title. */
-export function SectionHeading({ children, style }: { children: ReactNode; style?: TextProps['style'] }) {
-  return (
-    <Text role="heading" aria-level={2} style={[s.section, style]}>
-      {children}
-    </Text>
-  );
-}
-
 export function Body(props: TextProps & { dim?: boolean }) {
   return <Text {...props} style={[s.body, props.dim && { color: colours.textDim }, props.style]} />;
-}
-
-/** Numbers (f-numbers, stops, distances) are set in the monospace face. */
-export function Num(props: TextProps) {
-  return <Text {...props} style={[s.num, props.style]} />;
 }
 
 export function Button({
@@ -56,6 +43,9 @@ export function Button({
       accessibilityRole="button"
       accessibilityLabel={label}
       accessibilityState={{ disabled: off, busy }}
+      // react-native-web reads aria-* props, not accessibilityState: without these the web build never says busy.
+      aria-busy={busy}
+      aria-disabled={off}
       disabled={off}
       onPress={onPress}
       testID={testID}
@@ -81,9 +71,7 @@ export function ErrorText({ children }: { children: ReactNode }) {
 
 const s = StyleSheet.create({
   title: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 26, marginBottom: space.md },
-  section: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 18, marginBottom: space.sm },
   body: { color: colours.text, fontFamily: fonts.sans, fontSize: 15, lineHeight: 22 },
-  num: { color: colours.text, fontFamily: fonts.mono, fontSize: 14 },
   button: {
     flexDirection: 'row',
     gap: space.sm,

@@ -8,8 +8,8 @@ import { classInvitations, classMembers, classes, lessons, user } from './schema
 
 /** Join codes avoid letters that read alike (0/O, 1/I/L) so one read aloud in class is typed right. */
 const CODE_ALPHABET = 'ABCDEFGHJKMNPQRSTUVWXYZ23456789';
-export const JOIN_CODE_LENGTH = 6;
-export function newJoinCode(): string {
+const JOIN_CODE_LENGTH = 6;
+function newJoinCode(): string {
   return Array.from({ length: JOIN_CODE_LENGTH }, () => CODE_ALPHABET[randomInt(CODE_ALPHABET.length)]).join('');
 }
 

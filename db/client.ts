@@ -16,7 +16,7 @@ export type Db = ReturnType<typeof createDb>['db'];
  * this too, so it must outlast a burst on a loaded machine (a 3 s limit turned a burst of 200 reads into 503s);
  * a stopped database still fails at once (connection refused).
  */
-export const CONNECT_TIMEOUT_MS = 10_000;
+const CONNECT_TIMEOUT_MS = 10_000;
 
 export function createDb(url = process.env.DATABASE_URL, opts: { onError?: (err: Error) => void } = {}) {
   if (!url) throw new Error('DATABASE_URL is not set (the scripts in scripts/ set it; see README).');
@@ -36,4 +36,18 @@ export async function databaseAnswers(db: Db): Promise<boolean> {
   } catch {
     return false;
   }
+}
+
+/** What a library that writes its own SQL (pg-boss) needs to run it on a given connection. */
+export type SqlExecutor = { executeSql: (text: string, values?: unknown[]) => Promise<{ rows: unknown[] }> };
+
+/**
+ * Run raw SQL on the connection of a Drizzle transaction (made by `db.transaction` on the pool), so that, say, a
+ * queued job commits or rolls back with the rows written beside it. Drizzle keeps that connection as the
+ * transaction session's `client`; anything else is refused rather than silently run outside the transaction.
+ */
+export function txExecutor(tx: unknown): SqlExecutor {
+  const client = (tx as { session?: { client?: unknown } } | null)?.session?.client;
+  if (!(client instanceof pg.Client)) throw new Error('txExecutor: not a transaction on its own connection');
+  return { executeSql: (text, values) => client.query(text, values) };
 }

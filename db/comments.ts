@@ -6,6 +6,9 @@ import type { SetupComment } from '../model/api';
 import type { Db } from './client';
 import { setupComments, setupReads, studioMembers, setups, user } from './schema';
 
+/** The pool or a transaction on it. */
+type DbOrTx = Db | Parameters<Parameters<Db['transaction']>[0]>[0];
+
 type Row = {
   id: string;
   body: string;
@@ -73,7 +76,7 @@ export async function getComment(db: Db, setupId: string, commentId: string): Pr
 }
 
 export async function addComment(
-  db: Db,
+  db: DbOrTx,
   v: { setupId: string; author: { id: string; name: string }; body: string; itemId?: string; point?: { x: number; y: number }; parentId?: string },
 ): Promise<SetupComment> {
   const [row] = await db
@@ -103,7 +106,7 @@ export async function lastReadAt(db: Db, userId: string, setupId: string): Promi
 }
 
 /** Note that `userId` has read the setup's comments up to `at` (now by default); never moves backwards. */
-export async function markRead(db: Db, userId: string, setupId: string, at?: Date): Promise<void> {
+export async function markRead(db: DbOrTx, userId: string, setupId: string, at?: Date): Promise<void> {
   const when = at ? sql`${at.toISOString()}::timestamptz` : sql`now()`;
   await db
     .insert(setupReads)
@@ -150,12 +153,22 @@ export async function digestRecipients(db: Db, setupId: string, gapMs: number): 
   return out;
 }
 
-/** Record that `userId` was e-mailed about the setup's comments now. */
-export async function markNotified(db: Db, userId: string, setupId: string): Promise<void> {
-  await db
+/**
+ * Claim the right to e-mail `userId` about the setup's comments now: notes the time and answers true only when
+ * they were not e-mailed about it within `gapMs` (so two processes, or a retried job, never both send). Run in
+ * the transaction that queues the e-mail, so the claim and the message stand or fall together.
+ */
+export async function claimNotice(db: DbOrTx, userId: string, setupId: string, gapMs: number): Promise<boolean> {
+  const rows = await db
     .insert(setupReads)
     .values({ userId, setupId, notifiedAt: sql`now()` })
-    .onConflictDoUpdate({ target: [setupReads.userId, setupReads.setupId], set: { notifiedAt: sql`now()` } });
+    .onConflictDoUpdate({
+      target: [setupReads.userId, setupReads.setupId],
+      set: { notifiedAt: sql`now()` },
+      setWhere: sql`${setupReads.notifiedAt} is null or ${setupReads.notifiedAt} <= now() - ${gapMs}::double precision * interval '1 millisecond'`,
+    })
+    .returning({ userId: setupReads.userId });
+  return rows.length === 1;
 }
 
 /** A live setup's title, or null. */

@@ -169,7 +169,7 @@ export async function updateLessonSetup(db: Db, entry: EntryRow, c: { note?: str
 }
 
 /** Step notes sent are merged into the stored ones; an empty text removes that step's note. */
-export function mergeNotes(stored: Record<string, string>, sent: Record<string, string>): Record<string, string> {
+function mergeNotes(stored: Record<string, string>, sent: Record<string, string>): Record<string, string> {
   const out = new Map(Object.entries(stored));
   for (const [k, v] of Object.entries(sent)) {
     if (v.trim()) out.set(k, v);

@@ -67,7 +67,7 @@ async function seedDemoPeople(db: Db): Promise<boolean> {
 }
 
 /** The demo class's lesson, built from the instructor's own copies of two demo setups, and one assignment. */
-export async function seedDemoLesson(db: Db): Promise<boolean> {
+async function seedDemoLesson(db: Db): Promise<boolean> {
   const [dana] = await db.select({ id: user.id }).from(user).where(eq(user.email, demoUsers.instructor.email));
   const [klass] = await db.select({ id: classes.id }).from(classes).where(and(eq(classes.name, DEMO_CLASS), eq(classes.joinCode, DEMO_JOIN_CODE)));
   if (!dana || !klass) return false;

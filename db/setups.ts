@@ -11,7 +11,7 @@ type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 type Conn = Db | Tx;
 
 /** A deleted setup can be restored for this many days; after that only an explicit purge removes it. */
-export const RESTORE_DAYS = 30;
+const RESTORE_DAYS = 30;
 const restoreWindow = sql`now() - make_interval(days => ${RESTORE_DAYS})`;
 
 /**
@@ -29,7 +29,7 @@ function prepared<T>(db: Db, name: string, build: () => T): T {
 // ---------------------------------------------------------------------------------------------
 // Lists
 
-export type ListMode = 'library' | 'templates' | 'deleted';
+type ListMode = 'library' | 'templates' | 'deleted';
 export type ListOptions = { mode: ListMode; sort: SetupSort; studio?: string; q?: string; tag?: string; cursor?: string; limit: number };
 
 /** A page boundary: the last row's sort key (as PostgreSQL text, so timestamps keep their microseconds) and id. */
@@ -401,12 +401,6 @@ export async function restoreDeletedSetup(db: Db, id: string): Promise<boolean> 
     .where(and(eq(setups.id, id), isNotNull(setups.deletedAt), gt(setups.deletedAt, restoreWindow)))
     .returning({ id: setups.id });
   return r.length > 0;
-}
-
-/** Explicit clean-up (not run by any request): remove setups deleted longer ago than the restore window. */
-export async function purgeExpiredDeletions(db: Db): Promise<number> {
-  const r = await db.delete(setups).where(sql`${setups.deletedAt} < ${restoreWindow}`).returning({ id: setups.id });
-  return r.length;
 }
 
 /** Copy a setup (its current state, never its history or comments) into a studio, owned by the caller. */

@@ -7,7 +7,7 @@ import type { Db } from './client';
 import { setupShares, setups, studios, user } from './schema';
 
 /** 32 random bytes as base64url (43 characters): 256 bits, far beyond guessing. */
-export const newShareToken = () => randomBytes(32).toString('base64url');
+const newShareToken = () => randomBytes(32).toString('base64url');
 export const hashShareToken = (token: string) => createHash('sha256').update(token).digest('hex');
 export const SHARE_TOKEN = /^[A-Za-z0-9_-]{43}$/;
 

@@ -6,7 +6,7 @@ import type { Db } from './client';
 import { classMembers, classes, studioInvitations, studioMembers, studios, user } from './schema';
 
 /** An invitation link works this long. */
-export const INVITATION_DAYS = 14;
+const INVITATION_DAYS = 14;
 
 export async function createPersonalStudio(db: Db, u: { id: string; name: string }) {
   return db.transaction(async (tx) => {

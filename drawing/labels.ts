@@ -7,6 +7,7 @@ import type { Item, ItemOf } from '../model/document';
 import { panelEnds } from '../model/items/shaper';
 import { formatLength, type Units } from '../model/units';
 import { g, text, type SvgNode } from './nodes';
+import { textWidthEm } from './textWidth';
 import type { PlanTheme } from './theme';
 
 /** A plan label's size on screen, px (at least 11 px reads on a phone held at arm's length: common practice). */
@@ -108,10 +109,10 @@ function labelSpec(i: Item, units: Units, order: number): LabelSpec | null {
   }
 }
 
-/** A text's box at `fontM` metres: an average glyph is about 0.58 em wide in a sans, 0.6 em in a mono
- *  (common practice for estimates without measuring), the line 1.2 em tall. */
+/** A text's box at `fontM` metres: as wide as the face's own advances add up to (drawing/textWidth.ts), the
+ *  line 1.2 em tall. */
 export function textBox(words: string, fontM: number, mono: boolean): { hw: number; hh: number } {
-  return { hw: (words.length * fontM * (mono ? 0.6 : 0.58)) / 2, hh: (fontM * 1.2) / 2 };
+  return { hw: (textWidthEm(words, mono) * fontM) / 2, hh: (fontM * 1.2) / 2 };
 }
 
 export const overlaps = (a: Box, b: Box) => Math.abs(a.cx - b.cx) < a.hw + b.hw && Math.abs(a.cy - b.cy) < a.hh + b.hh;

@@ -16,7 +16,6 @@ export const rect = (attrs: Attrs): SvgNode => ({ tag: 'rect', attrs });
 export const path = (attrs: Attrs): SvgNode => ({ tag: 'path', attrs });
 export const polygon = (attrs: Attrs): SvgNode => ({ tag: 'polygon', attrs });
 export const polyline = (attrs: Attrs): SvgNode => ({ tag: 'polyline', attrs });
-export const image = (attrs: Attrs): SvgNode => ({ tag: 'image', attrs });
 export const text = (attrs: Attrs, content: string): SvgNode => ({ tag: 'text', attrs, text: content });
 
 /** transform="translate(x y) rotate(deg)" */

@@ -112,7 +112,7 @@ export function contourLabelNodes(map: LightMapResult, ink: string, o: ContourLa
 }
 
 /** A scale bar with a round length, drawn in plan metres at (x, y). */
-export function sketchScaleBar(x: number, y: number, pxPerM: number, units: Units, ink: string): SvgNode {
+function sketchScaleBar(x: number, y: number, pxPerM: number, units: Units, ink: string): SvgNode {
   const unitM = units === 'metric' ? 1 : M_PER_FT;
   const n = scaleBarLength(pxPerM, unitM, 120);
   const len = n * unitM;

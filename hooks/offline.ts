@@ -113,28 +113,94 @@ export function useOfflineQueue(): { entries: QueuedEntry[]; waiting: number; co
   return { entries, waiting: entries.reduce((n, e) => n + e.count, 0), conflicts: entries.filter((e) => e.conflict) };
 }
 
+/** How the last send of queued changes went, for the banner: under way, or what stopped it (the queue then keeps
+ *  trying on its own, and sooner when the connection comes back or its owner signs in). */
+export type SendState = { sending: boolean; failed: string | null };
+let sendState: SendState = { sending: false, failed: null };
+const sendListeners = new Set<() => void>();
+function setSendState(next: Partial<SendState>) {
+  sendState = { ...sendState, ...next };
+  sendListeners.forEach((fn) => fn());
+}
+/** Whether queued changes are being sent, and why the last try left some unsent. */
+export function useSendState(): SendState {
+  return useSyncExternalStore(
+    (fn) => {
+      sendListeners.add(fn);
+      return () => sendListeners.delete(fn);
+    },
+    () => sendState,
+    () => sendState,
+  );
+}
+/** Why a send failed, in words for the banner. */
+function whyNotSent(err: unknown): string {
+  if (err instanceof ApiRequestError) {
+    if (err.status === 401) return 'you are signed out here; sign in again to send them';
+    if (err.status === 503) return 'the server is busy or restarting';
+    return `the server answered ${err.status}`;
+  }
+  return 'the server could not be reached';
+}
+
+/** Seconds between tries while changes stay unsent: doubling from 5 s to at most a minute. */
+export const RETRY_FIRST_MS = 5_000;
+export const RETRY_MAX_MS = 60_000;
+let retryTimer: ReturnType<typeof setTimeout> | null = null;
+let retryDelay = RETRY_FIRST_MS;
+
+/** How long one queued send may take before it counts as failed (and is tried again). */
+const SEND_TIMEOUT_MS = 15_000;
 let sending: Promise<void> | null = null;
-/** Send the signed-in person's queued changes of setups no editor has open, once (a send under way is joined).
+/** Asked again while a send was under way (e.g. the owner became known after it had read an empty queue). */
+let sendAgain = false;
+/** Send the signed-in person's queued changes of setups no editor has open. A call while a send is under way
+ *  joins it, and one more send follows it (it may have read the queue before the call's reason came about).
  *  A 409 leaves the entry marked for a choice (opening the setup offers the usual choices); an answer that says
- *  the setup is gone or no longer theirs drops it; no connection, a 5xx or a lost session (401) keeps it. */
+ *  the setup is gone or no longer theirs drops it; no connection, a 5xx or a lost session (401) keeps it, and
+ *  another try is scheduled (5 s, doubling to a minute) for as long as some are left. */
 export function sendQueuedNow(qc: QueryClient): Promise<void> {
   if (!isOnlineNow()) return Promise.resolve();
-  sending ??= (async () => {
+  if (retryTimer) clearTimeout(retryTimer);
+  retryTimer = null;
+  if (sending) {
+    sendAgain = true;
+    return sending;
+  }
+  sending = (async () => {
+    let failed: string | null = null;
+    setSendState({ sending: true });
     try {
       for (const e of await offlineQueue.all()) {
         if (e.conflict || isOpenInEditor(e.setupId)) continue;
         try {
-          await persistClient.save(e.setupId, { version: e.baseVersion, ...e.changes });
+          // A send that never answers is given up after a while and tried again; the idempotency key makes a
+          // retry of a save that did commit return its result, not a 409.
+          await persistClient.save(e.setupId, { version: e.baseVersion, ...e.changes }, { signal: AbortSignal.timeout(SEND_TIMEOUT_MS), idempotencyKey: `queued-${e.setupId}-${e.baseVersion}-${Date.parse(e.at) || 0}` });
           await offlineQueue.remove(e.setupId);
           void qc.invalidateQueries({ queryKey: setupKeys.detail(e.setupId) });
           void qc.invalidateQueries({ queryKey: setupKeys.lists() });
         } catch (err) {
           if (err instanceof ApiRequestError && err.status === 409) await offlineQueue.markConflict(e.setupId);
           else if (err instanceof ApiRequestError && err.status < 500 && err.status !== 401) await offlineQueue.remove(e.setupId);
+          else failed ??= whyNotSent(err);
         }
       }
     } finally {
       sending = null;
+    }
+    if (sendAgain) {
+      sendAgain = false;
+      return sendQueuedNow(qc);
+    }
+    if (failed && isWeb) {
+      const delay = retryDelay;
+      retryDelay = Math.min(RETRY_MAX_MS, retryDelay * 2);
+      retryTimer = setTimeout(() => void sendQueuedNow(qc), delay);
+      setSendState({ sending: false, failed });
+    } else {
+      retryDelay = RETRY_FIRST_MS;
+      setSendState({ sending: false, failed: null });
     }
   })();
   return sending;
@@ -145,7 +211,10 @@ export function useQueueSender() {
   const qc = useQueryClient();
   useEffect(() => {
     if (!isWeb) return;
-    const send = () => void sendQueuedNow(qc);
+    const send = () => {
+      retryDelay = RETRY_FIRST_MS;
+      void sendQueuedNow(qc);
+    };
     send();
     window.addEventListener('online', send);
     const offOwner = onQueueOwnerChange(send);

@@ -8,7 +8,7 @@ import { call } from './api';
 import { documentParser, setupKeys } from './setups';
 
 export const persistClient: PersistClient = {
-  save: (id, body, opts) => call('updateSetup', { params: { id }, body, keepalive: opts?.keepalive, headers: opts?.idempotencyKey ? { 'idempotency-key': opts.idempotencyKey } : undefined }),
+  save: (id, body, opts) => call('updateSetup', { params: { id }, body, keepalive: opts?.keepalive, signal: opts?.signal, headers: opts?.idempotencyKey ? { 'idempotency-key': opts.idempotencyKey } : undefined }),
   createCopy: (body) => call('createSetup', { body }),
 };
 

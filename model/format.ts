@@ -16,22 +16,48 @@ function dtf(locale: string | undefined, opts: Intl.DateTimeFormatOptions): Intl
 }
 
 const DAY: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short', year: 'numeric' };
-const TIME: Intl.DateTimeFormatOptions = { hour: '2-digit', minute: '2-digit' };
+
+const twelveHour = new Map<string, boolean>();
+/**
+ * The hour as the locale writes a clock: "4:18 PM" where the day has two halves (no padded "04:18 PM"),
+ * "09:05" on a 24-hour clock.
+ */
+function time(locale: string | undefined): Intl.DateTimeFormatOptions {
+  let h12 = twelveHour.get(locale ?? '');
+  if (h12 === undefined) {
+    const cycle = new Intl.DateTimeFormat(locale, { hour: 'numeric' }).resolvedOptions().hourCycle;
+    h12 = cycle === 'h11' || cycle === 'h12';
+    twelveHour.set(locale ?? '', h12);
+  }
+  return { hour: h12 ? 'numeric' : '2-digit', minute: '2-digit' };
+}
 
 /** "3 Dec 2026" (en-GB), "Dec 3, 2026" (en-US): the month as a word, so no reader mistakes day for month. */
 export function formatDate(d: DateInput, locale?: string, timeZone?: string): string {
   return dtf(locale, { ...DAY, ...(timeZone ? { timeZone } : {}) }).format(new Date(d));
 }
 
-/** "3 Dec 2026, 14:05" in the reader's locale. */
+/** "3 Dec 2026, 14:05" (en-GB), "Dec 3, 2026, 2:05 PM" (en-US) in the reader's locale. */
 export function formatDateTime(d: DateInput, locale?: string, timeZone?: string): string {
-  return dtf(locale, { ...DAY, ...TIME, ...(timeZone ? { timeZone } : {}) }).format(new Date(d));
+  return dtf(locale, { ...DAY, ...time(locale), ...(timeZone ? { timeZone } : {}) }).format(new Date(d));
 }
 
-/** "14:05" in the reader's locale. */
+/** "14:05" (en-GB), "2:05 PM" (en-US) in the reader's locale. */
 export function formatTime(d: DateInput, locale?: string, timeZone?: string): string {
-  return dtf(locale, { ...TIME, ...(timeZone ? { timeZone } : {}) }).format(new Date(d));
+  return dtf(locale, { ...time(locale), ...(timeZone ? { timeZone } : {}) }).format(new Date(d));
 }
+
+/**
+ * When something happened, for a list of events (comments, replies): "today, 14:05" for today in the reader's
+ * calendar, else the full date and time. `now` is for tests.
+ */
+export function formatWhen(d: DateInput, o: { now?: DateInput; locale?: string; timeZone?: string } = {}): string {
+  const day = (x: DateInput) => formatDate(x, o.locale, o.timeZone);
+  return day(d) === day(o.now ?? Date.now()) ? `today, ${formatTime(d, o.locale, o.timeZone)}` : formatDateTime(d, o.locale, o.timeZone);
+}
+
+/** A file's size while it downloads or once saved: "1 KB" at the least, whole kilobytes (1024 bytes). */
+export const kb = (bytes: number) => `${Math.max(1, Math.round(bytes / 1024))} KB`;
 
 const rulesCache = new Map<string, Intl.PluralRules>();
 /**

@@ -11,7 +11,7 @@ import { apiNotFound, errorHandler } from './errors';
 import { redactUrl } from './logging';
 import { requireSameOrigin, trustedOrigins } from './origin';
 import type { Inbox } from './fakes';
-import { commentNotices } from './mail/commentNotices';
+import type { CommentNotices } from './mail/commentNotices';
 import type { Mailer } from './mail/mailer';
 import { assignmentRoutes } from './routes/assignments';
 import { classRoutes } from './routes/classes';
@@ -36,8 +36,9 @@ import type { ObjectStore } from './storage/objects';
 import { helmetOptionsFor, securityHeaders, webFiles } from './web';
 
 /** mailer and store are optional: without them the routes that need them answer 503 (the route list stays the same).
- *  inbox: the local fake SMTP server's captured mail, served at /dev/inbox on a local machine. */
-export type AppDeps = { db: Db; auth: Auth; logger: Logger; limits?: Limits; webDir?: string; mailer?: Mailer; store?: ObjectStore; inbox?: Inbox; publicUrl?: string };
+ *  inbox: the local fake SMTP server's captured mail, served at /dev/inbox on a local machine.
+ *  notices: e-mail digests of new comments (server/mail/commentNotices.ts; none without a mail queue). */
+export type AppDeps = { db: Db; auth: Auth; logger: Logger; limits?: Limits; webDir?: string; mailer?: Mailer; notices?: CommentNotices; store?: ObjectStore; inbox?: Inbox; publicUrl?: string };
 
 /** The fake SMTP server's inbox is shown only on a local machine: it is handed over only when the fake runs
  *  (no SMTP_URL: a local `npm start`, which runs the compiled server in production mode, or the tests); never when
@@ -56,10 +57,10 @@ const devOnlyLoopback: express.RequestHandler = (req, res, next) => {
   res.status(404).type('text').send('not found');
 };
 
-export const BODY_LIMIT = '1mb';
+const BODY_LIMIT = '1mb';
 export const COMPRESS_MIN_BYTES = 4096;
 
-export function createApp({ db, auth, logger, limits = createLimits(db), webDir, mailer, store, inbox, publicUrl = process.env.PUBLIC_URL }: AppDeps) {
+export function createApp({ db, auth, logger, limits = createLimits(db), webDir, mailer, notices, store, inbox, publicUrl = process.env.PUBLIC_URL }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   // No ETag on API answers: clients revalidate by setup version, not by hashing ~50 KB bodies per request.
@@ -113,7 +114,7 @@ export function createApp({ db, auth, logger, limits = createLimits(db), webDir,
   app.use('/api', meRoutes(db));
   app.use('/api', setupRoutes(db));
   app.use('/api', historyRoutes(db));
-  app.use('/api', commentRoutes(db, commentNotices(db, mailer, logger)));
+  app.use('/api', commentRoutes(db, notices));
   app.use('/api', meterRoutes(db));
   app.use('/api', studioRoutes(db, mailer));
   app.use('/api', invitationRoutes(db));

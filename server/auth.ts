@@ -8,7 +8,7 @@ import { schema } from '../db/client';
 import { createPersonalStudio } from '../db/studios';
 import type { Mailer } from './mail/mailer';
 import { trustedOrigins } from './origin';
-import { resetOutcome } from './mail/resetOutcome';
+import { noteMailOutcome } from './mail/mailOutcome';
 import { existingAccountMessage, resetPasswordMessage, verifyEmailMessage } from './mail/messages';
 import { MAX_PASSWORD_LENGTH, MIN_PASSWORD_LENGTH, personName, weakPasswordReason } from '../model/api';
 
@@ -58,25 +58,24 @@ export function createAuth(db: Db, opts: { baseURL: string; secret: string; mail
       // account (better-auth returns a look-alike user for an existing one), so sign-up does not reveal who has
       // an account. The owner of an existing account gets a mail instead (onExistingUserSignUp).
       autoSignIn: false,
+      // Its mail not queued makes the sign-up a 503, as for a new account (server/session.ts), so the answer
+      // still does not tell the two apart.
       onExistingUserSignUp: async ({ user }) => {
-        if (!opts.mailer) return;
-        await opts.mailer.send(existingAccountMessage({ to: user.email, name: user.name, signInUrl: appUrl('/sign-in') }));
+        const mailer = opts.mailer;
+        if (!mailer) return;
+        await noteMailOutcome(() => mailer.send(existingAccountMessage({ to: user.email, name: user.name, signInUrl: appUrl('/sign-in') })));
       },
       // A reset ends every session of the account (a change does too: server/session.ts asks for it).
       revokeSessionsOnPasswordReset: true,
       // POST /api/auth/request-password-reset e-mails the link (better-auth answers the same whether or not
       // the address has an account, so it does not reveal who has one).
       // The request's answer waits for the message to be stored in the durable queue; a failure is reported
-      // through resetOutcome (server/session.ts answers 503 rather than better-auth's 200).
+      // through mailOutcome (server/session.ts answers 503 rather than better-auth's 200).
       sendResetPassword: async ({ user, url }) => {
-        const outcome = resetOutcome.getStore();
-        try {
+        await noteMailOutcome(async () => {
           if (!opts.mailer) throw new Error('no mail service is set up, so a password reset cannot be sent');
           await opts.mailer.send(resetPasswordMessage({ to: user.email, name: user.name, url }));
-        } catch (err) {
-          if (outcome) outcome.failed = err instanceof Error ? err.message : String(err);
-          throw err;
-        }
+        });
       },
     },
     // better-auth's own e-mail verification: a link mailed on sign-up; opening it confirms the address and
@@ -86,10 +85,13 @@ export function createAuth(db: Db, opts: { baseURL: string; secret: string; mail
       sendOnSignUp: true,
       autoSignInAfterVerification: true,
       expiresIn: 60 * 60 * 24 * 3,
+      // A confirmation mail the queue refuses (database or queue down) turns the sign-up into a 503 and the account
+      // it made is removed (server/session.ts), so no account is left that could never be confirmed.
       sendVerificationEmail: async ({ user, url }) => {
         // Without a mail service (the demo seed) nothing is sent and the address stays unconfirmed.
-        if (!opts.mailer) return;
-        await opts.mailer.send(verifyEmailMessage({ to: user.email, name: user.name, url }));
+        const mailer = opts.mailer;
+        if (!mailer) return;
+        await noteMailOutcome(() => mailer.send(verifyEmailMessage({ to: user.email, name: user.name, url })), user.id);
       },
     },
     hooks: { before: textAndPasswordRules },

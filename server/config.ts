@@ -2,7 +2,7 @@
 // production) it may run on a built-in secret; anywhere else a built-in secret would let anyone who read this
 // file forge sessions, and links in e-mails would point at the wrong host: AUTH_SECRET and PUBLIC_URL are then required.
 export const LOCAL_SECRET = 'falloff-local-development-secret-0123456789';
-export const MIN_SECRET_LENGTH = 32;
+const MIN_SECRET_LENGTH = 32;
 
 export type AuthConfig = { secret: string; publicUrl: string | undefined; local: boolean };
 

@@ -62,7 +62,7 @@ export function isDatabaseUnavailable(err: unknown): boolean {
   return false;
 }
 
-export function sendDatabaseUnavailable(res: Response) {
+function sendDatabaseUnavailable(res: Response) {
   res.setHeader('Retry-After', String(DB_RETRY_AFTER_S));
   res.status(503).json({ error: { code: 'database_unavailable', message: `the database cannot be reached just now; try again in ${DB_RETRY_AFTER_S} s`, retryAfterS: DB_RETRY_AFTER_S } });
 }

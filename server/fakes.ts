@@ -7,7 +7,7 @@ import { mkdirSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { SMTPServer } from 'smtp-server';
 
-export type CapturedMail = {
+type CapturedMail = {
   id: number;
   receivedAt: string;
   from: string;

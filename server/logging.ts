@@ -3,7 +3,7 @@
 // links, invitations, password resets, e-mail confirmations) are cut out of the logged URL.
 import type { LoggerOptions } from 'pino';
 
-export const REDACT_PATHS = [
+const REDACT_PATHS = [
   'req.headers.cookie',
   'req.headers.authorization',
   'req.headers["x-api-key"]',

@@ -11,6 +11,7 @@ import { loggerOptions } from './logging';
 import type { Inbox } from './fakes';
 import { createLimits, type LimitName, type LimitRule } from './limits';
 import { createMailer, type MailConfig } from './mail/mailer';
+import { startCommentNotices } from './mail/commentNotices';
 import { startMailQueue } from './mail/queue';
 import { createObjectStore, storageConfigFromEnv, type StorageConfig } from './storage/objects';
 
@@ -54,12 +55,14 @@ export async function startServer(o: StartOptions) {
   const smtp = mailConfig ? createMailer(mailConfig) : undefined;
   // The app sends through the durable queue in PostgreSQL; its worker delivers over SMTP with retries.
   const mailer = smtp ? await startMailQueue({ databaseUrl: o.databaseUrl, smtp, logger, domain: new URL(url).hostname }) : undefined;
+  // Comment digests wait in the same queue's tables (a restart loses none).
+  const notices = mailer ? await startCommentNotices({ db, queue: mailer, logger }) : undefined;
   const storageConfig = o.storage ?? (process.env.S3_ENDPOINT || process.env.S3_BUCKET ? storageConfigFromEnv() : undefined);
   const store = storageConfig ? createObjectStore(storageConfig) : undefined;
   const auth = createAuth(db, { baseURL: url, secret: config.secret, mailer });
   const webDir = o.webDir === null ? undefined : (o.webDir ?? join(__dirname, '..', 'dist'));
   const limits = createLimits(db, o.limits);
-  server.on('request', createApp({ db, auth, logger, limits, webDir, mailer, store, inbox: o.inbox, publicUrl: url }));
+  server.on('request', createApp({ db, auth, logger, limits, webDir, mailer, notices, store, inbox: o.inbox, publicUrl: url }));
   logger.info({ url }, 'falloff is listening');
   return {
     url,

@@ -10,7 +10,7 @@
 import type { RequestHandler } from 'express';
 import { HttpError } from './errors';
 
-export function originOf(url: string): string | null {
+function originOf(url: string): string | null {
   try {
     const u = new URL(url);
     return u.protocol === 'http:' || u.protocol === 'https:' ? u.origin : null;

@@ -16,12 +16,12 @@ import { Piscina } from 'piscina';
 import { HttpError } from './errors';
 
 /** Seconds a client is told to wait when the pool's queue is full. */
-export const POOL_RETRY_AFTER_S = 5;
+const POOL_RETRY_AFTER_S = 5;
 
-export type PoolSettings = { threads: number; queue: number };
+type PoolSettings = { threads: number; queue: number };
 
 /** From POOL_THREADS (default: the cores but one, 1 to 4, so the request thread keeps a core) and POOL_QUEUE (tasks waiting beyond the running ones, default 16). */
-export function poolSettings(env: Record<string, string | undefined> = process.env): PoolSettings {
+function poolSettings(env: Record<string, string | undefined> = process.env): PoolSettings {
   const n = (v: string | undefined, d: number, min: number) => {
     const x = Number(v);
     return v !== undefined && v !== '' && Number.isInteger(x) && x >= min ? x : d;
@@ -101,7 +101,7 @@ function thePool(): Piscina {
   return pool;
 }
 
-export class PoolBusyError extends HttpError {
+class PoolBusyError extends HttpError {
   constructor(what: string) {
     super(503, 'busy', `the server is busy with other exports and photos just now (its queue is full); ${what} was not started: try again in ${POOL_RETRY_AFTER_S} s`, { retryAfterS: POOL_RETRY_AFTER_S, reason: 'work_queue_full' });
   }
@@ -122,14 +122,7 @@ export async function runTask<T>(modulePath: string, fn: string, arg: unknown, w
   }
 }
 
-/** Threads started and tasks waiting now, with the limits (for tests and logs). */
-export function poolLoad(): { threads: number; queued: number; limits: PoolSettings } {
-  const s = settings ?? poolSettings();
-  if (!pool) return { threads: 0, queued: 0, limits: s };
-  return { threads: pool.threads.length, queued: pool.queueSize, limits: s };
-}
-
-/** Stop the threads (a server closing); the next task starts a fresh pool. */
+/** Stop the pool's threads (tests that run tasks in process end with this, so vitest can exit). */
 export async function closePool() {
   const p = pool;
   pool = null;

@@ -7,13 +7,13 @@
 // better-auth answers "no session" (and, on its own routes, a bare 500 or a 401) when the database cannot be reached;
 // both are told apart from a real "signed out" here by asking PostgreSQL once, and become a 503 with
 // Retry-After, so a client keeps its session and retries instead of signing its user out.
-import { RESET_PATHS, resetOutcome, type ResetOutcome } from './mail/resetOutcome';
+import { mailOutcome, RESET_PATHS, SIGN_UP_PATH, type MailOutcome } from './mail/mailOutcome';
 import { toNodeHandler } from 'better-auth/node';
 import { createHmac, timingSafeEqual } from 'node:crypto';
 import type { IncomingMessage } from 'node:http';
 import type { RequestHandler } from 'express';
 import { databaseAnswers, type Db } from '../db/client';
-import { sessionUser } from '../db/sessions';
+import { removeUnconfirmedSignUp, sessionUser } from '../db/sessions';
 import type { Auth } from './auth';
 import { DB_RETRY_AFTER_S, HttpError, isDatabaseUnavailable } from './errors';
 import { addressKey, type Limits } from './limits';
@@ -44,7 +44,7 @@ const unavailable = () => new HttpError(503, 'database_unavailable', `the databa
  * The session token inside a signed session cookie (better-auth signs `token.signature` with HMAC-SHA-256 of the
  * auth secret, base64, URL-encoded), or null when it is not one this server signed.
  */
-export function verifiedSessionToken(cookieValue: string, secret: string): string | null {
+function verifiedSessionToken(cookieValue: string, secret: string): string | null {
   let value: string;
   try {
     value = decodeURIComponent(cookieValue);
@@ -131,25 +131,39 @@ async function limitAuth(limits: Limits, request: Request, address: string): Pro
 /** better-auth's own routes (/api/auth/*): rate-limited, and with a lost database answered 503 + Retry-After
  *  instead of a 500, a 401 or "no session". */
 export function authHandler(auth: Auth, db: Db, limits: Limits, o: { mail: boolean }): RequestHandler {
-  return (req, res) => toNodeHandler({ handler: (request: Request) => handleReset(o.mail, request, () => handleAuth(auth, db, limits, request, addressKey(req))) })(req, res);
+  return (req, res) =>
+    toNodeHandler({ handler: (request: Request) => handleMailing(db, o.mail, request, () => handleAuth(auth, db, limits, request, addressKey(req))) })(req, res);
 }
 
 const MAIL_RETRY_AFTER_S = 60;
-const mailUnavailable = (why: string) =>
-  json(503, { error: { code: 'mail_unavailable', message: `a password reset e-mail cannot be sent just now (${why}); nothing was sent, try again later`, retryAfterS: MAIL_RETRY_AFTER_S } }, { 'retry-after': String(MAIL_RETRY_AFTER_S) });
+const mailUnavailable = (what: string, why: string) =>
+  json(503, { error: { code: 'mail_unavailable', message: `${what} cannot be sent just now (${why}); nothing was sent, try again later`, retryAfterS: MAIL_RETRY_AFTER_S } }, { 'retry-after': String(MAIL_RETRY_AFTER_S) });
 
 /**
  * A reset answers 200 only once its e-mail is stored in the durable mail queue. Without a mail service every
  * reset gets the same 503 (so the answer never says whether the account exists); a message the queue did not
  * take turns better-auth's 200 into a 503.
+ * A sign-up likewise: when its confirmation e-mail (or, for an address that has an account, the notice to its
+ * owner) is not queued, the account just made is removed and the answer is a 503 (the same words either way), so
+ * the person signs up again later instead of holding an account no mail can confirm. (Without any mail service,
+ * the local demo, a sign-up stays unconfirmed as before: nothing could be queued.)
  */
-async function handleReset(mail: boolean, request: Request, next: () => Promise<Response>): Promise<Response> {
-  if (request.method !== 'POST' || !RESET_PATHS.has(new URL(request.url).pathname.replace(/^\/api\/auth/, ''))) return next();
-  if (!mail) return mailUnavailable('this server has no mail service set up');
-  const outcome: ResetOutcome = { failed: null };
-  const response = await resetOutcome.run(outcome, next);
-  if (response.status === 200 && outcome.failed) return mailUnavailable('the mail queue did not take the message');
-  return response;
+async function handleMailing(db: Db, mail: boolean, request: Request, next: () => Promise<Response>): Promise<Response> {
+  if (request.method !== 'POST') return next();
+  const path = new URL(request.url).pathname.replace(/^\/api\/auth/, '');
+  const reset = RESET_PATHS.has(path);
+  if (!reset && path !== SIGN_UP_PATH) return next();
+  if (reset && !mail) return mailUnavailable('a password reset e-mail', 'this server has no mail service set up');
+  const outcome: MailOutcome = { failed: null };
+  const response = await mailOutcome.run(outcome, next);
+  if (response.status !== 200 || !outcome.failed) return response;
+  if (reset) return mailUnavailable('a password reset e-mail', 'the mail queue did not take the message');
+  if (outcome.createdUserId) {
+    // Better the account gone than one that can never be confirmed; should the database refuse this too, the
+    // person can still sign in and ask for a new confirmation mail once the queue is back.
+    await removeUnconfirmedSignUp(db, outcome.createdUserId).catch(() => undefined);
+  }
+  return mailUnavailable('the e-mail that confirms a new account', 'the mail queue did not take the message');
 }
 
 /** A password change always ends the account's other sessions (better-auth does so only when asked). */

@@ -21,26 +21,26 @@ export const FRAME_LIMITS =
 
 /** Reflectance of clothing on the neutral form (our own mid-dark grey) and of the eye (mostly the dark iris and pupil that show between the lids). */
 const CLOTH_REFLECTANCE = 0.1;
-const EYE_REFLECTANCE = 0.08;
+const EYE_REFLECTANCE = 0.05;
 /** Reflectance of the cornea at normal incidence, about 2.5 % (n ≈ 1.376; Fresnel). */
 const CORNEA_REFLECTANCE = 0.025;
 /**
  * Smallest angular radius (of the reflected ray about the light) a catchlight is drawn with, radians: a small
  * or distant light's true mirror image is under a pixel at any useful frame size, so it is drawn this large.
  */
-const MIN_CATCHLIGHT_RAD = 0.6;
+const MIN_CATCHLIGHT_RAD = 0.45;
 /** Flags and scrims seen by the lens: near-black fabric (from memory). */
 const FLAG_REFLECTANCE = 0.04;
 const PROP_COLOUR = '#7d6c5a';
 
 /** Object ids in `FrameResult.ids`. */
-export const ID_VOID = -1;
-export const ID_FLOOR = 0;
-export const ID_CEILING = 1;
+const ID_VOID = -1;
+const ID_FLOOR = 0;
+const ID_CEILING = 1;
 export const ID_SURFACE = 100; // + surface index
-export const ID_FLAG = 200; // + flag index
+const ID_FLAG = 200; // + flag index
 export const ID_SUBJECT = 300;
-export const ID_PROP = 400; // + prop index
+const ID_PROP = 400; // + prop index
 
 export type FrameCamera = {
   ox: number;
@@ -78,7 +78,7 @@ export type RenderOptions = {
   latticeStep?: number;
 };
 
-export function frameCamera(fs: FrameScene): FrameCamera {
+function frameCamera(fs: FrameScene): FrameCamera {
   const c = fs.scene.camera;
   const a = (c.aimDeg * Math.PI) / 180;
   const t = (fs.extras.cameraTiltDeg * Math.PI) / 180;
@@ -92,7 +92,7 @@ export function frameCamera(fs: FrameScene): FrameCamera {
 }
 
 /** Image height for a width, from the sensor's aspect ratio. */
-export function frameHeight(fs: FrameScene, width: number): number {
+function frameHeight(fs: FrameScene, width: number): number {
   const c = fs.scene.camera;
   return Math.max(1, Math.round((width * c.sensorHeightMm) / c.sensorWidthMm));
 }
@@ -136,15 +136,40 @@ type LatticeLevel = {
   cellId: Int32Array;
 };
 /** Lattices of `step`, `step`/2, … down to 2 pixels (none for step 1: every pixel is computed). */
-function latticeLevels(W: number, H: number, step: number): LatticeLevel[] {
+function latticeLevels(W: number, H: number, step: number, cache = true): LatticeLevel[] {
   const out: LatticeLevel[] = [];
   if (W < 2 || H < 2) return out;
   for (let s = step; s >= 2; s = Math.floor(s / 2)) {
     const LX = Math.ceil((W - 1) / s) + 1;
     const LY = Math.ceil((H - 1) / s) + 1;
-    out.push({ s, LX, LY, D: new Float64Array(LX * LY * 3), done: new Uint8Array(LX * LY), state: new Uint8Array(LX * LY), cellId: new Int32Array(LX * LY) });
+    const key = `${s}:${LX}:${LY}`;
+    let v = cache ? levelCache.get(key) : undefined;
+    if (!v) {
+      v = { s, LX, LY, D: new Float64Array(LX * LY * 3), done: new Uint8Array(LX * LY), state: new Uint8Array(LX * LY), cellId: new Int32Array(LX * LY) };
+      if (levelCache.size > 16) levelCache.clear();
+      if (cache) levelCache.set(key, v);
+    } else {
+      v.done.fill(0);
+      v.state.fill(0);
+    }
+    out.push(v);
   }
   return out;
+}
+
+/**
+ * Working arrays kept between renders (a drag renders many frames of one size; fresh arrays of a few MB each
+ * time cost more in garbage collection than the light itself). Renders run one at a time on a thread.
+ */
+const levelCache = new Map<string, LatticeLevel>();
+type Scratch = { n: number; hitP: Float32Array; hitN: Float32Array; alb: Float32Array; see: Float32Array; mats: Uint8Array };
+let scratch: Scratch | null = null;
+function scratchFor(N: number): Scratch {
+  if (scratch && scratch.n >= N) return scratch;
+  const fresh = { n: N, hitP: new Float32Array(N * 3), hitN: new Float32Array(N * 3), alb: new Float32Array(N * 3), see: new Float32Array(N), mats: new Uint8Array(N) };
+  // Kept up to about a 1200 × 800 frame; a larger one (a print export) gets its own.
+  if (N <= 1_000_000) scratch = fresh;
+  return fresh;
 }
 
 /** Imported constants as local ones: the inner loops read them per pixel. */
@@ -195,11 +220,12 @@ function hitPanel(P: Float64Array, i: number, ox: number, oy: number, oz: number
 
 /**
  * For each 8 × 8 tile, a bit per part of the form whose bounding sphere can project into it (conservative: the
- * box around the sphere in camera space, projected; a sphere reaching behind the lens covers every tile).
+ * box around the sphere in camera space, projected; a sphere reaching behind the lens covers every tile). Two
+ * words per tile: parts 0–31, then 32–63.
  */
 function partTileMasks(S: Solids, cam: FrameCamera, W: number, H: number, tilesX: number): Uint32Array {
   const tilesY = (H + TILE - 1) >> TILE_SHIFT;
-  const masks = new Uint32Array(tilesX * tilesY);
+  const masks = new Uint32Array(tilesX * tilesY * 2);
   for (let i = 0; i < S.count; i++) {
     const vx = S.c[i * 3]! - cam.ox;
     const vy = S.c[i * 3 + 1]! - cam.oy;
@@ -232,14 +258,14 @@ function partTileMasks(S: Solids, cam: FrameCamera, W: number, H: number, tilesX
       y0 = Math.max(0, Math.floor(pyLo) >> TILE_SHIFT);
       y1 = Math.min(tilesY - 1, Math.floor(pyHi) >> TILE_SHIFT);
     } else if (zf + r <= 0) continue;
-    if (i >= 32) break; // tested by every ray (hitSolids)
-    const bit = (1 << i) >>> 0;
-    for (let ty = y0; ty <= y1; ty++) for (let tx = x0; tx <= x1; tx++) masks[ty * tilesX + tx] = (masks[ty * tilesX + tx]! | bit) >>> 0;
+    const bit = (1 << (i & 31)) >>> 0;
+    const w = i >> 5;
+    for (let ty = y0; ty <= y1; ty++) for (let tx = x0; tx <= x1; tx++) masks[(ty * tilesX + tx) * 2 + w] = (masks[(ty * tilesX + tx) * 2 + w]! | bit) >>> 0;
   }
   return masks;
 }
 
-export type PreparedFrame = {
+type PreparedFrame = {
   fs: FrameScene;
   field: Field;
   solids: Solids | null;
@@ -248,7 +274,7 @@ export type PreparedFrame = {
 };
 
 /** Everything that does not depend on the picture's size; reuse it for a coarse and a refined pass. */
-export function prepareFrame(input: FrameInput): PreparedFrame {
+function prepareFrame(input: FrameInput): PreparedFrame {
   const fs: FrameScene = parseFrameInput(input);
   const field = prepareField(fs.scene);
   const solids = fs.extras.subjectVisible ? buildSubjectSolids(fs.scene.subject, fs.extras.pose) : null;
@@ -282,11 +308,7 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
   const stops = new Float32Array(N);
   const ids = new Int32Array(N);
   // What each pixel's ray hits: point, normal, albedo, what a scrim in the view lets through, material.
-  const hitP = new Float32Array(N * 3);
-  const hitN = new Float32Array(N * 3);
-  const alb = new Float32Array(N * 3);
-  const see = new Float32Array(N);
-  const mats = new Uint8Array(N);
+  const { hitP, hitN, alb, see, mats } = scratchFor(N);
 
   const n = new Float64Array(3);
   const acc = new Float64Array(3);
@@ -391,8 +413,10 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
           ab = propRgb[2];
         }
       }
-      const tileMask = tileMasks ? tileMasks[(py >> TILE_SHIFT) * tilesX + (px >> TILE_SHIFT)]! : 0;
-      if (S && tileMask !== 0 && hitSolids(S, ox, oy, oz, dx, dy, dz, 1e-6, best, hit, tileMask)) {
+      const ti = ((py >> TILE_SHIFT) * tilesX + (px >> TILE_SHIFT)) * 2;
+      const tileMask = tileMasks ? tileMasks[ti]! : 0;
+      const tileMaskHi = tileMasks ? tileMasks[ti + 1]! : 0;
+      if (S && (tileMask !== 0 || tileMaskHi !== 0) && hitSolids(S, ox, oy, oz, dx, dy, dz, 1e-6, best, hit, tileMask, tileMaskHi)) {
         best = hit.t;
         id = ID_SUBJECT;
         mat = S.mat[hit.part]!;
@@ -470,7 +494,7 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
 
   // Pass 2: the bounce on a lattice of every 2·`step`-th pixel (and the last row and column), eagerly; the
   // direct light on lattices of `step`, `step`/2, … 2 pixels, each point computed when a pixel first asks.
-  const levels = latticeLevels(W, H, step);
+  const levels = N <= 1_000_000 ? latticeLevels(W, H, step) : latticeLevels(W, H, step, false);
   const top = levels[0];
   // The bounce is smooth within an object: its lattice is twice the direct light's top one.
   const bstep = step * 2;
@@ -548,8 +572,9 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
           blend(v, k, j, fx, fy, 15, out);
           return;
         }
-        if (li !== levels.length - 1) continue;
-        // The finest lattice beside an edge: the corners that see this pixel's object.
+        // The finest lattice beside an edge: the corners that see this pixel's object (not on the form's
+        // outline, where a light from behind grazes it in a rim thinner than a cell).
+        if (li !== levels.length - 1 || id === ID_SUBJECT) continue;
         const m = (ids[y0 * W + x0] === id ? 1 : 0) | (ids[y0 * W + x1] === id ? 2 : 0) | (ids[y1 * W + x0] === id ? 4 : 0) | (ids[y1 * W + x1] === id ? 8 : 0);
         if (m === 0 || m === 15) break;
         if (blend(v, k, j, fx, fy, m, out)) return;
@@ -649,7 +674,7 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
       const h1 = d[1]! + sm[1]!;
       const h2 = d[2]! + sm[2]!;
       const y = 0.2126 * h0 + 0.7152 * h1 + 0.0722 * h2;
-      stops[pi] = y > 0 ? Math.log2(y * inv) : -30;
+      stops[pi] = y > 0 ? fastLog2(y * inv) : -30;
       let lr = alb[pi * 3]! * h0 * wb[0] * inv;
       let lg = alb[pi * 3 + 1]! * h1 * wb[1] * inv;
       let lb = alb[pi * 3 + 2]! * h2 * wb[2] * inv;
@@ -675,6 +700,25 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
   const subjectH = exposureAt(field, { x: sub.x, y: sub.y, z: sub.heightM, nx: Math.cos((sub.facingDeg * Math.PI) / 180), ny: Math.sin((sub.facingDeg * Math.PI) / 180), nz: 0 }, true);
   const subjH = subjectH.luxSeconds + 0.2126 * amb[0] + 0.7152 * amb[1] + 0.0722 * amb[2];
   return { width: W, height: H, linear, stops, ids, subjectStops: subjH > 0 ? Math.log2(subjH * inv) : null, camera: cam };
+}
+
+/** log2 by exponent and a 1024-step table of the mantissa, linearly interpolated (error under 1e-6). */
+const LOG2_STEPS = 1024;
+const LOG2_TABLE = Float64Array.from({ length: LOG2_STEPS + 1 }, (_, i) => Math.log2(1 + i / LOG2_STEPS));
+const f64 = new Float64Array(1);
+const u32 = new Uint32Array(f64.buffer);
+/** Which 32-bit half of a float64 holds the sign, exponent and the mantissa's top (1 on little-endian machines). */
+const HI = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0;
+function fastLog2(x: number): number {
+  if (!(x >= 1e-300) || x === Infinity) return Math.log2(x);
+  f64[0] = x;
+  const hi = u32[HI]!;
+  const e = (hi >>> 20) - 1023;
+  if (e === -1023) return Math.log2(x); // subnormal
+  const frac = ((hi & 0xfffff) + u32[1 - HI]! / 4294967296) / 1048576; // mantissa − 1, in [0, 1)
+  const t = frac * LOG2_STEPS;
+  const i = t | 0;
+  return e + LOG2_TABLE[i]! + (t - i) * (LOG2_TABLE[i + 1]! - LOG2_TABLE[i]!);
 }
 
 const specOut: [number, number, number] = [0, 0, 0];

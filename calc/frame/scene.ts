@@ -34,14 +34,14 @@ export const PROP_BOXES = {
 
 const colour = z.string().refine(isColour, { message: 'not a readable colour' });
 
-export const framePropSchema = z.object({
+const framePropSchema = z.object({
   x: z.number().min(-1000).max(1000),
   y: z.number().min(-1000).max(1000),
   rotationDeg: z.number().min(-3600).max(3600).default(0),
   shape: z.enum(['chair', 'stool', 'apple-box', 'table']),
 });
 
-export const frameExtrasSchema = z.object({
+const frameExtrasSchema = z.object({
   /** Camera tilt, degrees: 0 level, negative aimed down. */
   cameraTiltDeg: z.number().min(-90).max(90).default(0),
   skinTone: z.enum(SKIN_TONE_IDS).default('mid'),
@@ -53,7 +53,7 @@ export const frameExtrasSchema = z.object({
   ceiling: z.object({ heightM: z.number().min(1).max(100), colour: colour.default('#e8e6e0') }).optional(),
 });
 
-export type FrameExtras = z.output<typeof frameExtrasSchema>;
+type FrameExtras = z.output<typeof frameExtrasSchema>;
 export type FrameExtrasInput = z.input<typeof frameExtrasSchema>;
 export type FrameProp = z.output<typeof framePropSchema>;
 

@@ -68,11 +68,14 @@ export const actions = {
   }),
 
   /** A light's or camera's height (the plan's height handle, the side view), kept under the ceiling. */
-  setHeight: define<{ id: string; heightM: number; gestureKey?: string }>({
+  setHeight: define<{ id: string; heightM: number; gestureKey?: string; live?: boolean }>({
     id: 'set-height',
     label: 'Raise or lower',
     enabled: writable,
-    perform: (s, { id, heightM, gestureKey }) => commit(s, mapItems(s.doc, new Set([id]), (i) => setHeight(i, heightM, s.doc, s.snap)), gestureKey ?? null),
+    perform: (s, { id, heightM, gestureKey, live }) => {
+      const doc = mapItems(s.doc, new Set([id]), (i) => setHeight(i, heightM, s.doc, s.snap));
+      return gestureKey && live ? holdOrCommit(s, doc, gestureKey, true) : commit(s, doc, gestureKey ?? null);
+    },
   }),
 
   /** A light's or camera's tilt, degrees (down is negative): the side view's tilt handle. */

@@ -12,7 +12,7 @@ import type { SetupDetail, SetupSaved } from '../../model/api';
 import type { SetupDocument } from '../../model/document';
 import type { Editor } from './editor';
 
-export type Changes = { document?: SetupDocument; title?: string; notes?: string };
+type Changes = { document?: SetupDocument; title?: string; notes?: string };
 export type SaveBody = Changes & { version: number };
 
 export type SaveStatus =
@@ -24,10 +24,10 @@ export type SaveStatus =
   | { kind: 'failed'; message: string };
 
 /** Changes sent as the page closed whose arrival was never confirmed. */
-export type KeptChanges = { setupId: string; baseVersion: number; changes: Changes; at: string };
+type KeptChanges = { setupId: string; baseVersion: number; changes: Changes; at: string };
 
 /** `waiting`: edits made since the last confirmed save while the server could not be reached (0 otherwise). */
-export type PersistState = { status: SaveStatus; kept: KeptChanges | null; waiting: number };
+type PersistState = { status: SaveStatus; kept: KeptChanges | null; waiting: number };
 
 /** Changes made without signal, kept durably until a save confirms them. `count`: the edits they hold. */
 export type QueuedChanges = { setupId: string; baseVersion: number; changes: Changes; count: number; at: string };
@@ -44,11 +44,11 @@ export type DurableQueue = {
 export type PersistClient = {
   /** `idempotencyKey`: the same for a retry of the same save, so a save that committed but whose answer was lost
    *  is answered again by the server instead of a version conflict. */
-  save: (id: string, body: SaveBody, opts?: { keepalive?: boolean; idempotencyKey?: string }) => Promise<Pick<SetupSaved, 'version'> & Partial<SetupSaved>>;
+  save: (id: string, body: SaveBody, opts?: { keepalive?: boolean; idempotencyKey?: string; signal?: AbortSignal }) => Promise<Pick<SetupSaved, 'version'> & Partial<SetupSaved>>;
   createCopy: (body: { studioId?: string; title: string; document: SetupDocument; notes: string }) => Promise<{ id: string }>;
 };
 
-export type KeyValueStorage = { getItem(k: string): string | null; setItem(k: string, v: string): void; removeItem(k: string): void };
+type KeyValueStorage = { getItem(k: string): string | null; setItem(k: string, v: string): void; removeItem(k: string): void };
 
 export type PersistOptions = {
   setup: Pick<SetupDetail, 'id' | 'version' | 'studioId' | 'title' | 'notes' | 'document'>;
@@ -87,7 +87,7 @@ export type Persist = StoreApi<PersistState> & {
 
 export const AUTOSAVE_DELAY_MS = 700;
 export const BACKOFF_FIRST_MS = 2000;
-export const BACKOFF_MAX_MS = 30_000;
+const BACKOFF_MAX_MS = 30_000;
 export const keptKey = (id: string) => `falloff:unsaved:${id}`;
 
 /** Every live persist, so an error boundary can save before it shows its message. */
@@ -378,9 +378,14 @@ export function createPersist(editor: Editor, o: PersistOptions): Persist {
   return persist;
 }
 
+/** The persists of the editors on the page now: attached by the mounted editor (attachToPage), not merely made.
+ *  A render React throws away (Suspense, a concurrent render) can make a persist that is never mounted nor
+ *  disposed; counting it kept that setup's queued changes from ever being sent by the library. */
+const attached = new Set<Persist>();
+
 /** Whether a setup is open in an editor on this page (its queued changes are that editor's to send). */
 export function isOpenInEditor(setupId: string): boolean {
-  return [...live].some((p) => p.setupId === setupId);
+  return [...attached].some((p) => p.setupId === setupId);
 }
 
 /** Hook the page's lifecycle to a persist: save on close (pagehide, or the tab hidden), retry when online. */
@@ -393,7 +398,9 @@ export function attachToPage(p: Persist, target: Pick<Window, 'addEventListener'
   target.addEventListener('pagehide', onHide);
   target.addEventListener('visibilitychange', onVisibility);
   target.addEventListener('online', onOnline);
+  attached.add(p);
   return () => {
+    attached.delete(p);
     target.removeEventListener('pagehide', onHide);
     target.removeEventListener('visibilitychange', onVisibility);
     target.removeEventListener('online', onOnline);

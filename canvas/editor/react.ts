@@ -4,7 +4,7 @@
 import { createContext, useCallback, useContext, useRef, useSyncExternalStore } from 'react';
 import { useStore, type StoreApi } from 'zustand';
 import type { Editor } from './editor';
-import { liveItem, type EditorState } from './state';
+import type { EditorState } from './state';
 
 export const EditorContext = createContext<Editor | null>(null);
 
@@ -16,12 +16,6 @@ export function useEditorApi(): Editor {
 
 export function useEditor<T>(selector: (s: EditorState) => T): T {
   return useStore(useEditorApi(), selector);
-}
-
-/** One item by id as it stands on screen, moved by a gesture under way (the item's own view, its beam and
- *  its marker subscribe to nothing else, so a drag re-renders the dragged item only). */
-export function useItem(id: string) {
-  return useEditor((s) => liveItem(s, id));
 }
 
 /** Like useEditor, but while a gesture is under way the value stays as it was when the gesture began. */

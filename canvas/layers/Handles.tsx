@@ -5,24 +5,29 @@ import { useShallow } from 'zustand/react/shallow';
 import { formatLength, type Units } from '../../model/units';
 import type { PlanTheme } from '../../drawing/theme';
 import { heightOf } from '../editor/heights';
-import { useEditor } from '../editor/react';
-import { itemById } from '../editor/state';
+import type { Item } from '../../model/document';
+import { useEditor, useEditorApi } from '../editor/react';
+import { itemById, type EditorState } from '../editor/state';
+import { useGroupDrag } from '../dragViews';
 import { handlesOf } from '../editor/tools/handles';
 
 export function Handles({ theme, units }: { theme: PlanTheme; units: Units }) {
-  const h = useEditor(useShallow((s) => {
-    const id = s.selection.length === 1 ? s.selection[0]! : null;
-    const hs = id && (!s.visibleIds || s.visibleIds.has(id)) ? handlesOf(s, id) : null;
-    const item = id ? itemById(s, id) : undefined;
-    // Flat numbers, so the shallow comparison sees an unchanged handle as unchanged.
-    return hs && item ? { cx: hs.centre.x, cy: hs.centre.y, ax: hs.aim.x, ay: hs.aim.y, hx: hs.height.x, hy: hs.height.y, heightM: heightOf(item) ?? 0 } : { cx: NaN };
-  }));
+  const editor = useEditorApi();
+  // A drag shifts the handles through the drag layer (screen pixels); a turn or a lift re-renders them.
+  const { shell, moved } = useGroupDrag((o) => {
+    const k = editor.getState().camera?.scale ?? 1;
+    return `translate(${o.dx * k} ${o.dy * k})`;
+  });
+  const settled = useEditor(useShallow((s) => flat(s, undefined)));
+  const id = settled.id;
+  const live = id ? moved?.get(id) : undefined;
+  const h = live ? flat(editor.getState(), live) : settled;
   if (!('ax' in h)) return null;
   const c = { x: h.cx, y: h.cy };
   const aim = { x: h.ax!, y: h.ay! };
   const height = { x: h.hx!, y: h.hy! };
   return (
-    <G pointerEvents="none" testID="plan-handles">
+    <G pointerEvents="none" testID="plan-handles" ref={shell as never}>
       <Line x1={c.x} y1={c.y} x2={aim.x} y2={aim.y} stroke={theme.selection} strokeWidth={1.5} />
       <Circle cx={aim.x} cy={aim.y} r={9} fill={theme.selection} />
       <Line x1={c.x} y1={c.y} x2={height.x} y2={height.y} stroke={theme.selection} strokeWidth={1.5} strokeDasharray="3,3" />
@@ -33,4 +38,13 @@ export function Handles({ theme, units }: { theme: PlanTheme; units: Units }) {
       </Text>
     </G>
   );
+}
+
+/** The selected item's handles as flat numbers (a shallow comparison then sees unchanged handles as
+ *  unchanged), drawn for `live` when a gesture holds it, else as the document has it. */
+function flat(s: EditorState, live: Item | undefined) {
+  const id = s.selection.length === 1 ? s.selection[0]! : null;
+  const item = live ?? (id ? itemById(s, id) : undefined);
+  const hs = id && (!s.visibleIds || s.visibleIds.has(id)) ? handlesOf(s, id, item) : null;
+  return hs && item ? { id, cx: hs.centre.x, cy: hs.centre.y, ax: hs.aim.x, ay: hs.aim.y, hx: hs.height.x, hy: hs.height.y, heightM: heightOf(item) ?? 0 } : { id, cx: NaN };
 }

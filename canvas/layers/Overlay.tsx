@@ -1,23 +1,27 @@
 // The interactive layer: selection marks, rotate handles, segment end handles and the selection box.
-// It reads the editor itself: the selected items (a drag re-renders it with them), the box, the zoom.
+// It reads the editor itself: the selected items as the document has them, the box, the zoom. A drag shifts
+// the marks through the drag layer (dragViews.ts) and re-renders them only when the items turn or change shape.
 import { memo } from 'react';
 import { G, Circle, Line, Rect } from 'react-native-svg';
 import { useShallow } from 'zustand/react/shallow';
 import { anchorOf, isSegment, kinds, rotateHandleOf } from '../../model/kinds';
 import { useEditor } from '../editor/react';
-import { liveItem } from '../editor/state';
+import { itemById } from '../editor/state';
+import { useGroupDrag } from '../dragViews';
 import type { PlanTheme } from '../../drawing/theme';
 
 export const Overlay = memo(function Overlay({ theme }: { theme: PlanTheme }) {
-  const selected = useEditor(useShallow((s) => s.selection.map((id) => liveItem(s, id)).filter((i) => !!i && (!s.visibleIds || s.visibleIds.has(i.id)))));
+  const selected = useEditor(useShallow((s) => s.selection.map((id) => itemById(s, id)).filter((i) => !!i && (!s.visibleIds || s.visibleIds.has(i.id)))));
+  const { shell, moved } = useGroupDrag((o) => `translate(${o.dx} ${o.dy})`);
   const box = useEditor((s) => s.box);
   const scale = useEditor((s) => s.camera?.scale ?? 80);
   const readOnly = useEditor((s) => s.readOnly);
   const px = 1 / scale; // one screen pixel, in metres
   return (
     <G pointerEvents="none">
+      <G ref={shell as never}>
       {selected
-        .map((i) => i!)
+        .map((i) => moved?.get(i!.id) ?? i!)
         .map((i) => {
           const c = anchorOf(i);
           // Lights and cameras carry their own aim and height handles (Handles.tsx).
@@ -46,6 +50,7 @@ export const Overlay = memo(function Overlay({ theme }: { theme: PlanTheme }) {
             </G>
           );
         })}
+      </G>
       {box ? (
         <Rect
           x={Math.min(box.from.x, box.to.x)}

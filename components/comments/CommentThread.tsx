@@ -15,7 +15,7 @@ import type { Units } from '../../model/units';
 import { ReadOnlyPlan, type Pin, type PinTarget } from '../classes/ReadOnlyPlan';
 import { Button, ErrorText } from '../ui';
 import { errorText } from '../classes/parts';
-import { formatDateTime } from '../../model/format';
+import { formatWhen } from '../../model/format';
 
 export type Thread = { start: SetupComment; replies: SetupComment[]; pin: number | null };
 
@@ -44,7 +44,7 @@ function pinWords(c: Pick<SetupComment, 'itemId' | 'point'>, doc: SetupDocument)
   return c.point ? `at ${c.point.x.toFixed(1)} m, ${c.point.y.toFixed(1)} m` : 'on the whole setup';
 }
 
-const when = (iso: string) => formatDateTime(iso);
+const when = (iso: string) => formatWhen(iso);
 
 export function CommentThread({
   setupId,

@@ -4,7 +4,8 @@ import { useRef, useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
 import { colours, fonts, radius, space } from '../../constants/theme';
 import { Button, ErrorText } from '../ui';
-import { downloadWithProgress, kb, type Progress } from './download';
+import { kb } from '../../model/format';
+import { downloadWithProgress, type Progress } from './download';
 
 type Kind = 'pdf' | 'png' | 'svg';
 const what: Record<Kind, { label: string; path: string; busy: string }> = {

@@ -45,8 +45,6 @@ export async function downloadWithProgress(request: string | FileRequest, filena
   setTimeout(() => URL.revokeObjectURL(href), 10_000);
 }
 
-export const kb = (n: number) => `${Math.max(1, Math.round(n / 1024))} KB`;
-
 /** Copy text to the clipboard where the platform lets us; false when it does not. */
 export async function copyText(text: string): Promise<boolean> {
   try {

@@ -11,12 +11,12 @@ import { colours } from '../../constants/theme';
 export const PEEK_PX = 132;
 
 /** The sheet's resting heights for a window height: peek, half, most. */
-export function sheetStops(height: number): [number, number, number] {
+function sheetStops(height: number): [number, number, number] {
   return [PEEK_PX, Math.round(height * 0.45), Math.round(height * 0.85)];
 }
 
 /** The stop nearest to where a fling would carry the sheet (common practice: a short look ahead at the speed). */
-export function nearestStop(stops: number[], height: number, velocityY: number) {
+function nearestStop(stops: number[], height: number, velocityY: number) {
   const aim = height - velocityY * 0.15;
   let best = stops[0]!;
   for (const s of stops) if (Math.abs(s - aim) < Math.abs(best - aim)) best = s;

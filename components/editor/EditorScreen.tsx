@@ -140,10 +140,12 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
   const [sheetRequest, setSheetRequest] = useState<SheetRequest | null>(null);
   useKeyboard(editor);
   useFocusAfterDelete(editor);
-  const openItem = () => {
-    setTab('item');
+  // Showing a tab's content: the sheet rises to half height when it rests lower (never lowered).
+  const showTab = (t: Tab) => {
+    setTab(t);
     setSheetRequest((r) => ({ stop: 1, n: (r?.n ?? 0) + 1 }));
   };
+  const openItem = () => showTab('item');
   useOpenRequests(editor, !wide, openItem);
 
   useEffect(() => editor.dispatch('setInput', { boxSelect: wide }), [editor, wide]);
@@ -277,7 +279,7 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
               <MeterPeek meter={meter} />
               <View style={s.tabs} role="tablist">
                 {tabs.map((t) => (
-                  <Pressable key={t.id} role="tab" accessibilityState={{ selected: tab === t.id }} accessibilityLabel={t.label} onPress={() => setTab(t.id)} style={[s.tab, tab === t.id && s.tabOn]}>
+                  <Pressable key={t.id} role="tab" accessibilityState={{ selected: tab === t.id }} accessibilityLabel={t.label} onPress={() => showTab(t.id)} style={[s.tab, tab === t.id && s.tabOn]}>
                     <Text style={[s.tabText, tab === t.id && { color: colours.accent }]}>{t.label}</Text>
                   </Pressable>
                 ))}

@@ -136,7 +136,7 @@ function ReadingField({ field: f, item, units, update }: { field: ReadingFieldSp
 }
 
 /** A new reading starts at the camera's ISO and shutter and the light's distance to the subject (when there is one). */
-export function readingStart(items: readonly Item[], light: Item): ReadingStart {
+function readingStart(items: readonly Item[], light: Item): ReadingStart {
   const camera = items.find((i) => i.kind === 'camera') as ItemOf<'camera'> | undefined;
   const subject = items.find((i) => i.kind === 'subject') as ItemOf<'subject'> | undefined;
   const l = light as ItemOf<'light'>;

@@ -3,8 +3,9 @@
 // a continuous light the shutter); nothing changes on the plan until they confirm, and a kept reading can be
 // changed or cleared. From then on the meter anchors this light's predictions to the measurement.
 import { useId, useState } from 'react';
-import { Pressable, StyleSheet, Text, TextInput, View } from 'react-native';
-import { colours, fonts, radius, space } from '../../constants/theme';
+import { Pressable, StyleSheet, Text, View } from 'react-native';
+import { colours, fonts, space } from '../../constants/theme';
+import { FieldProblem, NumberInput, Row } from './fields';
 import { checkTyped, formatFNumber, parseFNumber, READING_RANGES, type MeterReading, type Range } from '../../model/fields';
 import { formatPower, formatShutter, lengthText, parseLength, parseNumber, parseShutter, unitSuffix, type Units } from '../../model/units';
 
@@ -23,7 +24,7 @@ function specs(units: Units): Record<Key, Spec> {
   };
 }
 
-export function describeReading(r: MeterReading, units: Units, powerNow: number): string {
+function describeReading(r: MeterReading, units: Units, powerNow: number): string {
   const parts = [`f/${formatFNumber(r.aperture)} at ISO ${r.iso.toFixed(0)}`, `${lengthText(r.distanceM, units).trim()} ${unitSuffix(units)} from the light`];
   if (r.shutterS !== null) parts.push(`at ${formatShutter(r.shutterS)} s`);
   parts.push(`at power ${formatPower(r.power ?? powerNow)}`);
@@ -137,27 +138,10 @@ function DraftField({ spec, text, problem, onChange, onSubmit }: { spec: Spec; t
   const messageId = useId().replace(/[^A-Za-z0-9_-]/g, '');
   return (
     <View>
-      <View style={s.row}>
-        <Text style={s.label}>{spec.label}</Text>
-        <TextInput
-          accessibilityLabel={spec.label}
-          aria-invalid={problem !== null}
-          aria-describedby={problem !== null ? messageId : undefined}
-          inputMode="decimal"
-          keyboardType="decimal-pad"
-          enterKeyHint="done"
-          value={text}
-          onChangeText={onChange}
-          onSubmitEditing={onSubmit}
-          style={[s.input, problem !== null && { borderColor: colours.danger }]}
-          testID={spec.testID}
-        />
-      </View>
-      {problem !== null ? (
-        <Text nativeID={messageId} role="alert" style={s.problem} testID={`${spec.testID}-problem`}>
-          {problem}
-        </Text>
-      ) : null}
+      <Row label={spec.label}>
+        <NumberInput label={spec.label} text={text} problemId={problem !== null ? messageId : null} onChangeText={onChange} onSubmit={onSubmit} testID={spec.testID} />
+      </Row>
+      {problem !== null ? <FieldProblem id={messageId} text={problem} testID={`${spec.testID}-problem`} /> : null}
     </View>
   );
 }
@@ -175,23 +159,6 @@ const s = StyleSheet.create({
   sub: { color: colours.text, fontFamily: fonts.sansMedium, fontSize: 14 },
   text: { color: colours.text, fontFamily: fonts.sans, fontSize: 14, lineHeight: 20, marginBottom: space.sm },
   dim: { color: colours.textDim, fontFamily: fonts.sans, fontSize: 13, lineHeight: 19, marginBottom: space.sm },
-  row: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm, marginBottom: space.sm },
-  label: { color: colours.textDim, fontFamily: fonts.sansMedium, fontSize: 13, flexShrink: 1 },
-  input: {
-    color: colours.text,
-    fontFamily: fonts.mono,
-    fontSize: 15,
-    minWidth: 92,
-    maxWidth: 130,
-    textAlign: 'center',
-    backgroundColor: colours.graphite,
-    borderWidth: 1,
-    borderColor: colours.line,
-    borderRadius: radius.sm,
-    paddingHorizontal: space.sm,
-    minHeight: 44,
-  },
-  problem: { color: colours.danger, fontFamily: fonts.sans, fontSize: 13, marginTop: -4, marginBottom: space.sm, textAlign: 'right' },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   action: { minHeight: 44, paddingHorizontal: space.md, borderRadius: 8, borderWidth: 1, borderColor: colours.line, justifyContent: 'center' },
   strong: { backgroundColor: colours.accent, borderColor: colours.accent },

@@ -14,7 +14,7 @@ import { Button } from '../ui';
 import { ChoiceField, NumberField, SwitchField } from './fields';
 
 /** The furthest any item reaches across and down, metres: the stage may not shrink past it. */
-export function itemsExtent(doc: SetupDocument): { x: number; y: number } {
+function itemsExtent(doc: SetupDocument): { x: number; y: number } {
   let x = 0;
   let y = 0;
   for (const i of doc.items) {

@@ -98,16 +98,10 @@ export function NumberField({
             }}
           />
         ) : null}
-        <TextInput
-          accessibilityLabel={label}
-          aria-invalid={problem !== null}
-          aria-describedby={problem !== null ? messageId : undefined}
-          // The number pad: digits and a decimal point. Fractions read from a bare denominator ("200" is
-          // 1/200 s, "8" is 1/8 power) and imperial lengths from decimal feet, so nothing needs the letters.
-          inputMode="decimal"
-          keyboardType="decimal-pad"
-          enterKeyHint="done"
-          value={text}
+        <NumberInput
+          label={label}
+          text={text}
+          problemId={problem !== null ? messageId : null}
           onChangeText={(t) => {
             setText(t);
             if (problem !== null) setProblem(null);
@@ -117,9 +111,7 @@ export function NumberField({
             setFocused(false);
             commit();
           }}
-          onSubmitEditing={commit}
-          selectTextOnFocus
-          style={[s.input, problem !== null && { borderColor: colours.danger }]}
+          onSubmit={commit}
           testID={testID}
         />
         {onStep ? (
@@ -133,12 +125,61 @@ export function NumberField({
           />
         ) : null}
       </Row>
-      {problem !== null ? (
-        <Text nativeID={messageId} accessibilityLiveRegion="polite" role="alert" style={s.problem} testID={testID ? `${testID}-problem` : undefined}>
-          {problem}
-        </Text>
-      ) : null}
+      {problem !== null ? <FieldProblem id={messageId} text={problem} testID={testID ? `${testID}-problem` : undefined} /> : null}
     </View>
+  );
+}
+
+/**
+ * The number input itself, on the phone's number pad: digits and a decimal point. Fractions read from a bare
+ * denominator ("200" is 1/200 s, "8" is 1/8 power) and imperial lengths from decimal feet, so nothing needs
+ * the letters. `problemId` names the message under the field while the text is refused.
+ */
+export function NumberInput({
+  label,
+  text,
+  problemId,
+  onChangeText,
+  onFocus,
+  onBlur,
+  onSubmit,
+  testID,
+}: {
+  label: string;
+  text: string;
+  problemId: string | null;
+  onChangeText: (t: string) => void;
+  onFocus?: () => void;
+  onBlur?: () => void;
+  onSubmit: () => void;
+  testID?: string;
+}) {
+  return (
+    <TextInput
+      accessibilityLabel={label}
+      aria-invalid={problemId !== null}
+      aria-describedby={problemId ?? undefined}
+      inputMode="decimal"
+      keyboardType="decimal-pad"
+      enterKeyHint="done"
+      value={text}
+      onChangeText={onChangeText}
+      onFocus={onFocus}
+      onBlur={onBlur}
+      onSubmitEditing={onSubmit}
+      selectTextOnFocus
+      style={[s.input, problemId !== null && { borderColor: colours.danger }]}
+      testID={testID}
+    />
+  );
+}
+
+/** The message under a refused field: what it accepts. */
+export function FieldProblem({ id, text, testID }: { id: string; text: string; testID?: string }) {
+  return (
+    <Text nativeID={id} accessibilityLiveRegion="polite" role="alert" style={s.problem} testID={testID}>
+      {text}
+    </Text>
   );
 }
 

@@ -8,7 +8,7 @@ import type { Editor } from '../../canvas/editor/editor';
 import { focusByTestId } from '../SkipLink';
 
 /** The item to focus after `removed` went from `before` (ids in plan order): the next one left, else the one before. */
-export function focusAfter(before: readonly string[], removed: ReadonlySet<string>): string | null {
+function focusAfter(before: readonly string[], removed: ReadonlySet<string>): string | null {
   const last = before.reduce((k, id, i) => (removed.has(id) ? i : k), -1);
   if (last < 0) return null;
   for (let i = last + 1; i < before.length; i++) if (!removed.has(before[i]!)) return before[i]!;

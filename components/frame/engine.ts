@@ -8,7 +8,7 @@ import type { FrameInput } from '../../calc/frame/scene';
 import { inlineClient, workerClient } from '../../canvas/workerClient';
 
 /** Where the built worker is served (scripts/ensure.mjs bundles components/frame/frame.worker.ts there). */
-export const FRAME_WORKER_URL = '/workers/frame.js';
+const FRAME_WORKER_URL = '/workers/frame.js';
 
 export type FrameRequest = { version: number; quality: 'coarse' | 'refined'; input: FrameInput; width: number; look: FrameLook; latticeStep: number };
 export type FrameImage = { version: number; quality: 'coarse' | 'refined'; width: number; height: number; ms: number; uri: string | null; rgba: Uint8ClampedArray | null };
@@ -40,12 +40,12 @@ const renderInline = (r: FrameRequest): FrameImage | { error: string } => {
   return toImage(r, runFrameJob(job), null);
 };
 
-export function inlineFrameEngine(): FrameEngine {
+function inlineFrameEngine(): FrameEngine {
   const c = inlineClient(renderInline);
   return { kind: 'inline', render: c.run, dispose: c.dispose };
 }
 
-export function workerFrameEngine(url = FRAME_WORKER_URL): FrameEngine {
+function workerFrameEngine(url = FRAME_WORKER_URL): FrameEngine {
   // The page's worker client (canvas/workerClient.ts): waiting requests, fallback to rendering in the page.
   const c = workerClient<FrameRequest, FrameImage | { error: string }, FrameWorkerReply>({
     url,

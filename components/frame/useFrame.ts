@@ -7,10 +7,10 @@ import type { SetupDocument } from '../../model/document';
 import { frameInputFromDocument } from '../../model/frame';
 import { type FrameEngine, type FrameImage, type FrameRequest, defaultFrameEngine } from './engine';
 
-export const COARSE_WIDTH = 128;
+const COARSE_WIDTH = 128;
 export const COARSE_LATTICE_STEP = 8;
 export const REFINED_LATTICE_STEP = 8;
-export const REFINE_AFTER_MS = 160;
+const REFINE_AFTER_MS = 160;
 
 export type FrameState = { image: FrameImage | null; missing: string[]; error: string | null; coarseMs: number | null; refinedMs: number | null };
 

@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { StyleSheet, Text, TextInput, View } from 'react-native';
 import { colours, fonts, space } from '../../constants/theme';
 import type { DaySheetBody } from '../../model/api';
+import { kb } from '../../model/format';
 import type { Progress } from '../crew/download';
 import { Button, ErrorText } from '../ui';
 
@@ -32,7 +33,7 @@ export function DaySheetBar({ chosen, onDone }: { chosen: string[]; onDone: () =
     <View style={s.bar} testID="day-sheet-bar">
       <Text style={s.text}>{chosen.length ? `${chosen.length} chosen, in the order tapped` : 'Tap setups in shooting order'}</Text>
       <TextInput accessibilityLabel="Name of the shoot day" value={title} onChangeText={setTitle} placeholder="Shoot day" placeholderTextColor={colours.textFaint} style={s.input} />
-      {busy ? <Text style={s.text}>{progress && progress.loaded > 0 ? `Downloading… ${Math.max(1, Math.round(progress.loaded / 1024))} KB` : 'Making the day sheets…'}</Text> : null}
+      {busy ? <Text style={s.text}>{progress && progress.loaded > 0 ? `Downloading… ${kb(progress.loaded)}` : 'Making the day sheets…'}</Text> : null}
       {error ? <ErrorText>{error}</ErrorText> : null}
       <View style={s.row}>
         <Button label="Make the day sheets" onPress={make} disabled={!chosen.length} busy={busy} testID="make-day-sheets" />

@@ -31,7 +31,7 @@ export function SetupCard({ setup, section, maxWidth, actions, pickedNo = null }
         onPress={() => actions.onOpen(setup)}
         style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [s.body, (pressed || hovered) && !deleted && { backgroundColor: colours.panelRaised }]}
       >
-        <View style={s.titleRow}>
+        <View style={s.titleRow} testID="setup-card-title-row">
           <Pressable
             testID="setup-card"
             accessibilityRole="link"

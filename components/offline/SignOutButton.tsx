@@ -1,8 +1,8 @@
 // Signing out with changes still on this device asks first: they stay queued under this person (another person
 // signing in here never sends or drops them) and go out when this person signs in again, or they can be sent now.
 import { useQueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
-import { StyleSheet, Text, View } from 'react-native';
+import { useEffect, useRef, useState } from 'react';
+import { Platform, StyleSheet, Text, View } from 'react-native';
 import { colours, fonts, radius, space } from '../../constants/theme';
 import { useSignOut } from '../../hooks/auth';
 import { isOnlineNow, sendQueuedNow, useOfflineQueue, useOnline } from '../../hooks/offline';
@@ -19,6 +19,14 @@ export function SignOutButton({ onSignedOut }: { onSignedOut: () => void }) {
   const [asking, setAsking] = useState(false);
   const [busy, setBusy] = useState<'send' | 'out' | null>(null);
   const [error, setError] = useState<string | null>(null);
+  const box = useRef<View>(null);
+  const showing = asking && waiting > 0;
+  // The question opens where the button was, at the foot of a long page: on a phone most of it would sit below
+  // the fold, its buttons out of sight. Bring all of it into view when it opens (the web's own scrolling).
+  useEffect(() => {
+    if (!showing || Platform.OS !== 'web') return;
+    (box.current as unknown as { scrollIntoView?: (o: ScrollIntoViewOptions) => void } | null)?.scrollIntoView?.({ block: 'nearest' });
+  }, [showing]);
 
   const leave = async () => {
     setBusy('out');
@@ -45,7 +53,7 @@ export function SignOutButton({ onSignedOut }: { onSignedOut: () => void }) {
     }
   };
 
-  if (!asking || waiting === 0) {
+  if (!showing) {
     return (
       <View style={s.wrap}>
         <Button label="Sign out" kind="quiet" testID="sign-out" busy={busy === 'out'} onPress={() => (waiting > 0 ? setAsking(true) : void leave())} />
@@ -54,7 +62,7 @@ export function SignOutButton({ onSignedOut }: { onSignedOut: () => void }) {
     );
   }
   return (
-    <View style={[s.wrap, s.box]} accessibilityRole="alert" testID="sign-out-unsent">
+    <View ref={box} style={[s.wrap, s.box]} accessibilityRole="alert" testID="sign-out-unsent">
       <Text style={s.head}>{changes(waiting)} not sent</Text>
       <Text style={s.note}>
         {waiting === 1 ? 'It is' : 'They are'} kept on this device under your name and sent the next time you sign in here. Nobody else who signs in on

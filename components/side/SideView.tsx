@@ -11,7 +11,7 @@ import { shownItems } from '../../canvas/editor/state';
 import { colours, fonts, space } from '../../constants/theme';
 import { graphiteTheme } from '../../drawing/theme';
 import type { ItemOf } from '../../model/document';
-import { formatLength, type Units } from '../../model/units';
+import type { Units } from '../../model/units';
 import { sideScene, sideTransform, tiltHandle, type SideBox, type SidePoint, type SideScene, type SideShape } from './elevation';
 import { createSideDrag } from './sideDrag';
 import { SIDE_LABEL_PX, sideLabels } from './sideLabels';
@@ -63,18 +63,6 @@ export function SideView({ units, height = 260 }: { units: Units; height?: numbe
         </Text>
         <Text style={s.hint}>Drag a head to raise it, its ring to tilt it.</Text>
       </View>
-      {lines.length > 1 ? (
-        <View style={s.chips} accessibilityLabel="Cut along">
-          {lines.map((i) => {
-            const on = (scene?.line.fromId ?? null) === i.id;
-            return (
-              <Pressable key={i.id} accessibilityRole="radio" accessibilityState={{ checked: on }} aria-checked={on} accessibilityLabel={`Along ${names.get(i.id) ?? ''}`} onPress={() => setRefId(i.id)} style={[s.chip, on && s.chipOn]}>
-                <Text style={[s.chipText, on && { color: colours.accent }]}>{names.get(i.id)}</Text>
-              </Pressable>
-            );
-          })}
-        </View>
-      ) : null}
       <View
         style={[s.canvas, { height }]}
         onLayout={onLayout}
@@ -92,6 +80,19 @@ export function SideView({ units, height = 260 }: { units: Units; height?: numbe
           <SideDrawing scene={scene} box={box} selection={selection} units={units} />
         ) : null}
       </View>
+      {/* Below the drawing: on a phone's half-height sheet the drawing shows first. */}
+      {lines.length > 1 ? (
+        <View style={s.chips} accessibilityLabel="Cut along">
+          {lines.map((i) => {
+            const on = (scene?.line.fromId ?? null) === i.id;
+            return (
+              <Pressable key={i.id} accessibilityRole="radio" accessibilityState={{ checked: on }} aria-checked={on} accessibilityLabel={`Along ${names.get(i.id) ?? ''}`} onPress={() => setRefId(i.id)} style={[s.chip, on && s.chipOn]}>
+                <Text style={[s.chipText, on && { color: colours.accent }]}>{names.get(i.id)}</Text>
+              </Pressable>
+            );
+          })}
+        </View>
+      ) : null}
     </View>
   );
 }
@@ -111,11 +112,6 @@ function SideDrawing({ scene, box, selection, units }: { scene: SideScene; box: 
         return (
           <G key={z}>
             <Line x1={a.x} y1={a.y} x2={floorR.x} y2={a.y} stroke={graphiteTheme.gridMajor} strokeWidth={1} />
-            {Math.abs(z - Math.round(z)) < 1e-6 ? (
-              <SvgText x={a.x + 2} y={a.y - 3} fontSize={11} fill={dim} fontFamily={fonts.mono}>
-                {formatLength(z, units, 0)}
-              </SvgText>
-            ) : null}
           </G>
         );
       })}
@@ -123,9 +119,6 @@ function SideDrawing({ scene, box, selection, units }: { scene: SideScene; box: 
       {scene.ceiling !== null && scene.ceiling <= scene.z1 ? (
         <G testID="side-ceiling">
           <Line x1={floorL.x} y1={P({ u: 0, z: scene.ceiling }).y} x2={floorR.x} y2={P({ u: 0, z: scene.ceiling }).y} stroke={ink} strokeWidth={2} strokeDasharray="8,4" />
-          <SvgText x={floorR.x - 4} y={P({ u: 0, z: scene.ceiling }).y - 4} fontSize={11} fill={ink} textAnchor="end" fontFamily={fonts.mono}>
-            {`ceiling ${formatLength(scene.ceiling, units, 1)}`}
-          </SvgText>
         </G>
       ) : null}
       {scene.shapes.map((sh) => (
@@ -133,7 +126,7 @@ function SideDrawing({ scene, box, selection, units }: { scene: SideScene; box: 
       ))}
       <G testID="side-labels">
         {labels.map((l) => (
-          <SvgText key={l.id} x={l.box.cx} y={l.box.cy + SIDE_LABEL_PX * 0.35} fontSize={SIDE_LABEL_PX} fill={ink} textAnchor="middle" fontFamily={fonts.sansMedium}>
+          <SvgText key={l.id} x={l.box.cx} y={l.box.cy + SIDE_LABEL_PX * 0.35} fontSize={SIDE_LABEL_PX} fill={l.role === 'scale' ? dim : ink} textAnchor="middle" fontFamily={l.mono ? fonts.mono : fonts.sansMedium} testID={`side-label-${l.id}`}>
             {l.text}
           </SvgText>
         ))}

@@ -14,15 +14,15 @@ export type SideBox = { w: number; h: number };
 export type SidePoint = { u: number; z: number };
 
 /** Items further than this from the line are drawn faint: they are seen from the side, not on the cut. */
-export const NEAR_LINE_M = 1.5;
+const NEAR_LINE_M = 1.5;
 const PAD_PX = 28;
 /** The drawn length of a tilt handle's arm, metres. */
-export const TILT_ARM_M = 0.8;
+const TILT_ARM_M = 0.8;
 
-export type SideLine = { from: Point; to: Point; fromId: string; toId: string };
+type SideLine = { from: Point; to: Point; fromId: string; toId: string };
 
 /** The line the view cuts along: from `refId` (default: the first camera) to the first subject. */
-export function sideLine(doc: SetupDocument, refId?: string | null): SideLine | null {
+function sideLine(doc: SetupDocument, refId?: string | null): SideLine | null {
   const subject = doc.items.find((i): i is ItemOf<'subject'> => i.kind === 'subject');
   const ref = (refId ? doc.items.find((i) => i.id === refId && (i.kind === 'camera' || i.kind === 'light')) : undefined) ?? doc.items.find((i) => i.kind === 'camera');
   if (!subject || !ref || !('x' in ref)) return null;
@@ -33,7 +33,7 @@ export function sideLine(doc: SetupDocument, refId?: string | null): SideLine | 
 }
 
 /** A plan point on the view: how far along the line, and how far off it (metres). */
-export function along(line: SideLine, p: Point): { u: number; off: number } {
+function along(line: SideLine, p: Point): { u: number; off: number } {
   const dx = line.to.x - line.from.x;
   const dy = line.to.y - line.from.y;
   const len = Math.hypot(dx, dy);

@@ -5,10 +5,10 @@ import type { EditorCore } from '../../canvas/editor/editor';
 import { newGestureKey } from '../../canvas/editor/tools/types';
 import { sideTransform, tiltHandle, tiltToward, type SideBox, type SidePoint, type SideScene } from './elevation';
 
-export type SideDragState = { name: 'idle' } | { name: 'lifting'; id: string; key: string; dz: number } | { name: 'tilting'; id: string; key: string; at: SidePoint };
+type SideDragState = { name: 'idle' } | { name: 'lifting'; id: string; key: string; dz: number } | { name: 'tilting'; id: string; key: string; at: SidePoint };
 
 /** Reach of a press, pixels (a finger). */
-export const SIDE_HIT_PX = 22;
+const SIDE_HIT_PX = 22;
 
 type Hit = { id: string; what: 'head' | 'tilt'; at: SidePoint };
 

@@ -11,14 +11,14 @@ export type FontName = (typeof FONT_NAMES)[number];
 const NAME = /^IBMPlex(Sans|Mono)_(\d{3})[A-Za-z]+$/;
 
 /** The .ttf of an app font name, from @expo-google-fonts/ibm-plex-sans or …-mono. */
-export function fontFile(name: FontName): string {
+function fontFile(name: FontName): string {
   const [, face] = NAME.exec(name)!;
   const pkg = `@expo-google-fonts/ibm-plex-${face!.toLowerCase()}`;
   const root = dirname(require.resolve(`${pkg}/package.json`));
   return join(root, name.slice(name.indexOf('_') + 1), `${name}.ttf`);
 }
 
-export const allFontFiles = () => FONT_NAMES.map(fontFile);
+const allFontFiles = () => FONT_NAMES.map(fontFile);
 
 /** CSS family stacks for an SVG that leaves this server (a viewer without Plex falls back sensibly). */
 const CSS_FAMILY = { Sans: 'IBM Plex Sans, Helvetica, Arial, sans-serif', Mono: 'IBM Plex Mono, Menlo, Consolas, monospace' } as const;
@@ -38,7 +38,7 @@ let padded: Map<FontName, Buffer> | null = null;
  * fontkit reads past the end of the file; a few zero bytes after the last table make that read land on
  * zeros (an empty box), which is what the glyph is. Read once per process.
  */
-export function pdfFontBytes(name: FontName): Buffer {
+function pdfFontBytes(name: FontName): Buffer {
   padded ??= new Map(FONT_NAMES.map((n) => [n, Buffer.concat([readFileSync(fontFile(n)), Buffer.alloc(64)])]));
   return padded.get(name)!;
 }

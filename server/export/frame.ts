@@ -11,7 +11,7 @@ import { runTask } from '../pool';
 let nextId = 1;
 
 /** Render a frame job on the worker pool. */
-export function renderOnWorker(job: Omit<FrameJob, 'id'>): Promise<FrameJobResult> {
+function renderOnWorker(job: Omit<FrameJob, 'id'>): Promise<FrameJobResult> {
   return runTask<FrameJobResult>('calc/frame/job.ts', 'runFrameJob', { ...job, id: nextId++ }, 'the frame');
 }
 

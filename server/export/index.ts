@@ -8,7 +8,8 @@ import { cleanForDisplay } from '../../model/text';
 import type { Units } from '../../model/units';
 import { parseQuery } from '../validate';
 import { HttpError } from '../errors';
-import { framePng, sheetFrame } from './frame';
+import { framePng } from './frame';
+import { cachedSheetFrame } from './sheetFrames';
 import { crewSheetOnPool, planPngOnPool, planSvgOnPool } from './run';
 
 export { slug };
@@ -68,7 +69,7 @@ export async function sendExport(req: Request, res: Response, kind: ExportKind, 
   const q = parseQuery(crewSheetQuery, req);
   const paper = q.paper ?? s.paper;
   const units = q.units ?? s.units;
-  const pdf = await crewSheetOnPool({ doc: s.doc, title: s.title, units, paper, subtitle: subtitle({ ...s, paper }), link: s.link, notes: s.notes, qr: s.qr, frame: await sheetFrame(s.doc) });
+  const pdf = await crewSheetOnPool({ doc: s.doc, title: s.title, units, paper, subtitle: subtitle({ ...s, paper }), link: s.link, notes: s.notes, qr: s.qr, frame: await cachedSheetFrame(s.doc) });
   res.type('application/pdf').setHeader('Content-Disposition', `${q.download === '1' ? 'attachment' : 'inline'}; filename="${name}"`);
   res.send(pdf);
 }

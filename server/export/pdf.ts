@@ -10,13 +10,14 @@ import QRCode from 'qrcode';
 import SVGtoPDF from 'svg-to-pdfkit';
 import type { SetupDocument } from '../../model/document';
 import { DEFER_LINE, crewSheet, type CrewSheet, type Reading } from '../../model/crewSheet';
-import { computeReadings, type Readings } from '../../model/setupReadings';
+import type { Readings } from '../../model/setupReadings';
+import { exportReadings } from './readings';
 import type { Units } from '../../model/units';
 import { FONT_NAMES, pdfFonts, type FontName } from './fonts';
 import { FRAME_LIMITS } from '../../calc/frame/render';
 import { planSvg } from './plan';
 
-export type Paper = 'a4' | 'letter';
+type Paper = 'a4' | 'letter';
 export type SheetInput = {
   doc: SetupDocument;
   title: string;
@@ -65,7 +66,7 @@ type Doc = InstanceType<typeof PDFDocument>;
 type Block = { height: (w: number) => number; draw: (x: number, y: number, w: number) => void; keepWithNext?: boolean };
 
 /** The largest standard scale at which `sizeM` fits in `sizePt`, and points per plan metre at it. */
-export function planScale(widthM: number, depthM: number, boxW: number, boxH: number): { ratio: number; ptPerM: number } {
+function planScale(widthM: number, depthM: number, boxW: number, boxH: number): { ratio: number; ptPerM: number } {
   const fit = Math.min(boxW / widthM, boxH / depthM); // pt per metre
   const exact = (1000 * PT_PER_MM) / fit;
   const ratio = SCALES.find((s) => s >= exact - 1e-9) ?? Math.ceil(exact);
@@ -270,7 +271,10 @@ function header(doc: Doc, input: SheetInput, sheet: CrewSheet, x: number, w: num
   doc.font(F.sans).fontSize(7).fillColor(dim).text('CAMERA', rx, y, { width: rightW, align: 'right', characterSpacing: 1 });
   doc.font(F.monoMedium).fontSize(12.5).fillColor(ink).text(cam.value, rx, y + 10, { width: rightW, align: 'right' });
   doc.font(F.sans).fontSize(7).fillColor(dim).text('SUBJECT READS', rx, doc.y + 3, { width: rightW, align: 'right', characterSpacing: 1 });
-  doc.font(F.monoMedium).fontSize(12.5).fillColor(ink).text(`${subject.value}${subject.detail ? `  (${subject.detail.replace(' vs the camera', '')})` : ''}`, rx, doc.y + 1, { width: rightW, align: 'right' });
+  // The reading large, as the meter shows it; what it is measured against in small type under it (the detail
+  // set large ran over three lines of the header).
+  doc.font(F.monoMedium).fontSize(12.5).fillColor(ink).text(subject.value, rx, doc.y + 1, { width: rightW, align: 'right' });
+  if (subject.detail) doc.font(F.sans).fontSize(7).fillColor(dim).text(subject.detail, rx, doc.y + 1, { width: rightW, align: 'right' });
   let rightBottom = doc.y;
   if (input.qr) {
     const qx = x + w - QR_SIZE;
@@ -352,7 +356,7 @@ function renderSheet(doc: Doc, input: SheetInput, pages: { n: number }, first: b
   const [pageW, pageH] = paper;
   if (!first) doc.addPage({ size: [pageW, pageH], margins: pageMargins });
   pages.n++;
-  const readings = computeReadings(input.doc, { lightMap: true });
+  const readings = exportReadings(input.doc);
   const sheet = crewSheet(input.doc, { title: input.title, units: input.units, readings, notes: input.notes });
   const x = MARGIN;
   const w = pageW - 2 * MARGIN;
@@ -360,7 +364,7 @@ function renderSheet(doc: Doc, input: SheetInput, pages: { n: number }, first: b
   const bottom = pageH - MARGIN - 8;
   const top = header(doc, input, sheet, x, w);
   // Two columns, full-size type if it fits on the page, else a little smaller, else running on to more pages.
-  let blocks = blocksOf(doc, input, sheet, 1);
+  let blocks: Block[] = [];
   for (const k of [1, 0.93, 0.86]) {
     blocks = blocksOf(doc, input, sheet, k);
     if (flow(blocks, colW, bottom - top, 2)) break;

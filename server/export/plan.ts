@@ -5,12 +5,10 @@ import { sketchPlan } from '../../drawing/plan';
 import { svgDocument } from '../../drawing/toSvg';
 import { paperTheme } from '../../drawing/theme';
 import type { SetupDocument } from '../../model/document';
-import { computeReadings, type Readings } from '../../model/setupReadings';
+import type { Readings } from '../../model/setupReadings';
+import { exportReadings } from './readings';
 import type { Units } from '../../model/units';
 import { realFontNames, resvgFontBuffers } from './fonts';
-
-export const PNG_DEFAULT_WIDTH = 2000;
-export const PNG_MAX_WIDTH = 4000;
 
 export type PlanDrawing = { svg: string; viewBox: [number, number, number, number]; widthPx: number; heightPx: number };
 
@@ -19,7 +17,7 @@ export type PlanDrawing = { svg: string; viewBox: [number, number, number, numbe
  * pdfkit, which registers the files under them); 'real' writes family names and weights (files, resvg).
  */
 export function planSvg(doc: SetupDocument, o: { units: Units; widthPx: number; readings?: Readings; fontNames?: 'app' | 'real'; grid?: boolean }): PlanDrawing {
-  const readings = o.readings ?? computeReadings(doc, { lightMap: true });
+  const readings = o.readings ?? exportReadings(doc);
   // sketchPlan's pxPerM only picks the scale bar's round length (about 120 px of it): ask for a bar near a
   // sixth of the drawing's width (the stage plus its 0.5 m margins), whatever the output size.
   const pxPerM = 120 / ((doc.stage.widthM + 1) / 6);

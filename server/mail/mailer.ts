@@ -9,7 +9,7 @@ export type Message = { to: string | string[]; subject: string; text: string; ht
 export type Mailer = { send: (m: Message) => Promise<{ messageId: string }>; close: () => void };
 
 export const SMTP_TIMEOUT_MS = Number(process.env.SMTP_TIMEOUT_MS ?? 5000);
-export const DEFAULT_FROM = 'Falloff <crew@falloff.test>';
+const DEFAULT_FROM = 'Falloff <crew@falloff.test>';
 
 export function createMailer(c: MailConfig): Mailer {
   // A mail server that stops answering fails a send within seconds instead of holding the request.

@@ -9,16 +9,16 @@ import type { Logger } from 'pino';
 import { HttpError } from '../errors';
 import type { Attachment, Mailer, Message } from './mailer';
 
-export const MAIL_QUEUE = 'mail';
+const MAIL_QUEUE = 'mail';
 /** Retries with exponential back-off from 2 s: 16 of them cover a mail server away for more than a day. */
-export const MAIL_RETRY = { retryLimit: 16, retryDelay: 2, retryBackoff: true } as const;
+const MAIL_RETRY = { retryLimit: 16, retryDelay: 2, retryBackoff: true } as const;
 /**
  * The queue's own statements (and its wait for a connection) end within this: a queue table that is locked or
  * broken while the rest of the database answers fails a send in seconds (a 503) instead of holding the request.
  */
 export const MAIL_QUEUE_TIMEOUT_MS = 5_000;
 /** Seconds a client is told to wait before retrying a request whose mail the queue did not take. */
-export const MAIL_QUEUE_RETRY_AFTER_S = 30;
+const MAIL_QUEUE_RETRY_AFTER_S = 30;
 
 /**
  * The mail queue did not store a message (its tables unusable, its connection gone). The request that wanted to
@@ -38,7 +38,16 @@ type StoredMessage = Omit<Message, 'attachments'> & { attachments?: (Omit<Attach
 const toStored = (m: Message): StoredMessage => ({ ...m, attachments: m.attachments?.map((a) => ({ ...a, content: a.content.toString('base64') })) });
 const fromStored = (m: StoredMessage): Message => ({ ...m, attachments: m.attachments?.map((a) => ({ ...a, content: Buffer.from(a.content, 'base64') })) });
 
-export type MailQueue = Mailer & { stop: () => Promise<void> };
+/** Where a job is written: pg-boss's own pool, or a caller's transaction (db/client.ts, txExecutor). */
+type QueueExecutor = PgBoss.Db;
+
+export type MailQueue = Mailer & {
+  /** Store a message inside the caller's transaction: it is queued exactly when that transaction commits. */
+  sendIn: (m: Message, tx: QueueExecutor) => Promise<{ messageId: string }>;
+  /** The queue itself, for other durable jobs on the same tables (server/mail/commentNotices.ts). */
+  boss: PgBoss;
+  stop: () => Promise<void>;
+};
 
 /**
  * Start the queue on `databaseUrl` (pg-boss keeps its tables in the `pgboss` schema, made on first start) and
@@ -80,20 +89,24 @@ export async function startMailQueue(o: { databaseUrl: string; smtp: Mailer; log
     stopped = true;
     await boss.stop({ graceful: true, wait: true, timeout: 5_000 });
   };
+  async function send(m: Message, tx?: QueueExecutor) {
+    let id: string | null;
+    try {
+      id = await boss.send(MAIL_QUEUE, toStored(m), { ...MAIL_RETRY, ...(tx ? { db: tx } : {}) });
+    } catch (err) {
+      o.logger.warn({ err: { message: (err as Error).message, code: (err as { code?: string }).code } }, 'mail queue: message not stored');
+      throw new MailQueueUnavailable((err as Error).message);
+    }
+    if (!id) throw new MailQueueUnavailable('the queue returned no job id');
+    // Wake this process's worker now rather than at its next poll (a job written in a transaction that is not
+    // committed yet is simply not seen until the next poll).
+    if (!tx) boss.notifyWorker(workerId);
+    return { messageId: id };
+  }
   return {
-    async send(m) {
-      let id: string | null;
-      try {
-        id = await boss.send(MAIL_QUEUE, toStored(m), MAIL_RETRY);
-      } catch (err) {
-        o.logger.warn({ err: { message: (err as Error).message, code: (err as { code?: string }).code } }, 'mail queue: message not stored');
-        throw new MailQueueUnavailable((err as Error).message);
-      }
-      if (!id) throw new MailQueueUnavailable('the queue returned no job id');
-      // Wake this process's worker now rather than at its next poll.
-      boss.notifyWorker(workerId);
-      return { messageId: id };
-    },
+    send: (m) => send(m),
+    sendIn: (m, tx) => send(m, tx),
+    boss,
     close: () => void stop(),
     stop,
   };

@@ -1,7 +1,7 @@
 // Comments on a setup: every studio member reads and writes them, crew included. Threads (a start and its
 // replies), pins to an item or a point on the plan, resolving a thread (its author or anyone who may change
 // the setup), and the caller's last read (the library's unread count). New comments reach the setup's
-// owners and editors by e-mail, grouped and rate limited (server/mail/commentNotices.ts).
+// owners and editors by e-mail, grouped, rate limited and queued durably (server/mail/commentNotices.ts).
 import { Router } from 'express';
 import type { Db } from '../../db/client';
 import { addComment, getComment, lastReadAt, listComments, markRead, setResolved } from '../../db/comments';
@@ -30,8 +30,12 @@ export function commentRoutes(db: Db, notices?: CommentNotices) {
       if (!parent) throw new HttpError(400, 'invalid_input', 'parentId: no such comment on this setup', { fields: { parentId: 'no such comment on this setup' } });
       if (parent.parentId) throw new HttpError(400, 'invalid_input', 'parentId: reply to the thread’s first comment', { fields: { parentId: 'reply to the thread’s first comment' } });
     }
-    const c = await addComment(db, { setupId: id, author: user, body: body.body, itemId: body.itemId, point: body.point, parentId: body.parentId });
-    notices?.commented(id, publicOrigin(req));
+    // The comment and its waiting e-mail digest are stored together: both or neither (a 503 when the queue refuses).
+    const c = await db.transaction(async (tx) => {
+      const made = await addComment(tx, { setupId: id, author: user, body: body.body, itemId: body.itemId, point: body.point, parentId: body.parentId });
+      await notices?.commented(tx, id, publicOrigin(req));
+      return made;
+    });
     res.status(201).json(c);
   });
 

@@ -7,7 +7,7 @@ import { printSettingsOf } from '../../db/shares';
 import { parseDocument } from '../../model/document';
 import { checkSetup, pathId } from '../access';
 import { qrFor, sendExport, slug, subtitle, type ExportKind } from '../export';
-import { sheetFrame } from '../export/frame';
+import { cachedSheetFrame } from '../export/sheetFrames';
 import type { SheetInput } from '../export/pdf';
 import { daySheetOnPool } from '../export/run';
 import { HttpError } from '../errors';
@@ -58,7 +58,7 @@ export function daySheetRoutes(db: Db) {
       const doc = parseDocument(JSON.parse(d!.documentJson));
       sheets.push({
         doc,
-        frame: await sheetFrame(doc),
+        frame: await cachedSheetFrame(doc),
         title: meta.title,
         notes: meta.notes,
         units: print.units,

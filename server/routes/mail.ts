@@ -10,7 +10,7 @@ import { requireSetup } from '../access';
 import { HttpError } from '../errors';
 import type { Limits } from '../limits';
 import { qrFor, slug, subtitle } from '../export';
-import { sheetFrame } from '../export/frame';
+import { cachedSheetFrame } from '../export/sheetFrames';
 import { crewSheetOnPool } from '../export/run';
 import type { Mailer } from '../mail/mailer';
 import { MailQueueUnavailable } from '../mail/queue';
@@ -37,7 +37,7 @@ export function mailRoutes(db: Db, mailer: Mailer | undefined, limits: Limits) {
     const doc = parseDocument(JSON.parse(d.documentJson));
     // The same sheet as the download, the frame ("the look we are after") included.
     const pdf = body.attachPdf
-      ? await crewSheetOnPool({ doc, title: meta.title, units, paper, subtitle: subtitle({ ...meta, updatedAt: new Date(meta.updatedAt), paper }), link: url, notes: meta.notes, qr: qrFor({ shareUrl: url }), frame: await sheetFrame(doc) })
+      ? await crewSheetOnPool({ doc, title: meta.title, units, paper, subtitle: subtitle({ ...meta, updatedAt: new Date(meta.updatedAt), paper }), link: url, notes: meta.notes, qr: qrFor({ shareUrl: url }), frame: await cachedSheetFrame(doc) })
       : undefined;
     try {
       await mailer.send(crewSheetMessage({ to: body.to, senderName: user.name, senderEmail: user.email, title: meta.title, url, note: body.message, pdf, pdfName: `crew-sheet-${slug(meta.title)}.pdf` }));

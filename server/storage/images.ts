@@ -38,18 +38,18 @@ export async function photoHeader(path: string): Promise<{ width: number; height
   }
 }
 
-export async function sniffPhotoType(bytes: Buffer): Promise<PhotoType | null> {
+async function sniffPhotoType(bytes: Buffer): Promise<PhotoType | null> {
   const { fileTypeFromBuffer } = await import('file-type');
   const t = await fileTypeFromBuffer(bytes);
   return t && (PHOTO_TYPES as readonly string[]).includes(t.mime) ? (t.mime as PhotoType) : null;
 }
 
-export type CameraSettings = { iso: number | null; aperture: number | null; shutterS: number | null; focalMm: number | null; camera: string | null; takenAt: Date | null };
+type CameraSettings = { iso: number | null; aperture: number | null; shutterS: number | null; focalMm: number | null; camera: string | null; takenAt: Date | null };
 
 const num = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) && v > 0 ? v : null);
 
 /** ISO, aperture, shutter and focal length as the camera wrote them; nulls when the photo does not say. */
-export async function readCameraSettings(bytes: Buffer): Promise<CameraSettings> {
+async function readCameraSettings(bytes: Buffer): Promise<CameraSettings> {
   let t: Record<string, unknown> | undefined;
   try {
     t = await exifr.parse(bytes, { pick: ['ISO', 'ISOSpeedRatings', 'FNumber', 'ExposureTime', 'FocalLength', 'Make', 'Model', 'DateTimeOriginal'] });
@@ -65,14 +65,14 @@ export async function readCameraSettings(bytes: Buffer): Promise<CameraSettings>
   return { iso, aperture: num(t.FNumber), shutterS: num(t.ExposureTime), focalMm: num(t.FocalLength), camera: name || null, takenAt: taken };
 }
 
-export type Prepared = { served: Buffer; thumb: Buffer | null; width: number | null; height: number | null; notes: string[] };
+type Prepared = { served: Buffer; thumb: Buffer | null; width: number | null; height: number | null; notes: string[] };
 
 /**
  * The copy to serve and its thumbnail. JPEG, PNG and WebP are re-encoded upright with no metadata but their
  * colour profile (so no GPS, no serial numbers). HEIC cannot be decoded by this server's image library, so
  * it is served as uploaded with its EXIF block blanked, and has no thumbnail.
  */
-export async function preparePhoto(bytes: Buffer, type: PhotoType): Promise<Prepared> {
+async function preparePhoto(bytes: Buffer, type: PhotoType): Promise<Prepared> {
   if (type === 'image/heic' || type === 'image/heif') {
     const served = stripHeifExif(bytes);
     let thumb: Buffer | null = null;
@@ -101,6 +101,7 @@ export type PreparedFile = { settings: CameraSettings; served: Uint8Array; thumb
 /**
  * The pool task (server/pool.ts): read the upload's temp file, its camera settings and the copies to serve.
  * A damaged file or one over the pixel cap comes back as { unreadable } (the route answers 422).
+ * @public run by name on the worker pool (server/routes/photos.ts)
  */
 export async function preparePhotoTask(a: { path: string; type: PhotoType }): Promise<PreparedFile> {
   const bytes = await readFile(a.path);

@@ -1,5 +1,5 @@
 // A readable CPU profile of a drag in Chromium: `npx tsx tests/bench/editorProfile.ts [phone]` (after
-// scripts/ensure.mjs --test built the web app). It drags a light across the bench's forty-item plan with the
+// scripts/ensure.mjs --test built the web app). It drags (the drag of dragDriver.ts) a light across the bench's forty-item plan with the
 // DevTools protocol's sampling profiler on, maps every sample of the built bundle back to its source file and
 // function through the source maps in dist-maps/, and prints where the main thread's time went: by package or
 // project folder, by source file, and the heaviest functions (self time). Not part of `npm run bench` (it
@@ -7,18 +7,14 @@
 import { readFileSync, existsSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { TraceMap, originalPositionFor } from '@jridgewell/trace-mapping';
-import { chromium } from 'playwright-core';
-import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
-import { startServer } from '../../server/main';
-import { TEST_DATABASE_URL } from '../support/env';
 import { fortyItems } from './editorPlan';
+import { MOVES, centreOf, drag, openSetup, startBench } from './dragDriver';
 
 type CallFrame = { functionName: string; url: string; lineNumber: number; columnNumber: number };
 type ProfileNode = { id: number; callFrame: CallFrame; children?: number[] };
 type Profile = { nodes: ProfileNode[]; samples: number[]; timeDeltas: number[]; startTime: number; endTime: number };
 
 const phone = process.argv.includes('phone');
-const MOVES = 90;
 
 const maps = new Map<string, TraceMap | null>();
 function mapFor(url: string): TraceMap | null {
@@ -48,48 +44,21 @@ function place(cf: CallFrame): { file: string; fn: string; group: string } {
 }
 
 async function main() {
-  const server = await startServer({ databaseUrl: TEST_DATABASE_URL, port: 0, logLevel: 'error' });
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
+  const bench = await startBench();
   try {
     const viewport = phone ? { width: 390, height: 844 } : { width: 1440, height: 900 };
-    const context = await browser.newContext({ viewport });
-    const origin = { origin: server.url };
-    await context.request.post(`${server.url}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: origin });
-    const res = await context.request.post(`${server.url}/api/setups`, { data: { title: 'Profile: forty items', document: fortyItems() }, headers: origin });
-    const { id } = (await res.json()) as { id: string };
-    const page = await context.newPage();
-    await page.goto(`${server.url}/setups/${id}`);
-    await page.getByTestId('item-l0').waitFor();
+    const { page, cdp } = await openSetup(bench, { viewport, account: 'demo', title: 'Profile: forty items', document: fortyItems(), ready: 'item-l0' });
     await page.getByRole('button', { name: 'Snapping on' }).click();
     await page.waitForTimeout(1500);
-    const cdp = await context.newCDPSession(page);
     if (phone) await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
-    const send = (m: Record<string, unknown>) => cdp.send('Input.dispatchMouseEvent', m as never);
-    const box = (await page.getByTestId('item-l0').boundingBox())!;
-    const start = { x: box.x + box.width / 2, y: box.y + box.height / 2 };
-    // A first press and short drag selects the light (so the profiled drag is of a selected light, as in use).
-    await send({ type: 'mouseMoved', x: start.x, y: start.y, button: 'none' });
-    await send({ type: 'mousePressed', x: start.x, y: start.y, button: 'left', buttons: 1, clickCount: 1 });
-    for (let k = 1; k <= 10; k++) await send({ type: 'mouseMoved', x: start.x + k, y: start.y, button: 'left', buttons: 1 });
-    await send({ type: 'mouseReleased', x: start.x + 10, y: start.y, button: 'left', buttons: 0, clickCount: 1 });
+    const start = await centreOf(page, 'item-l0');
+    // A first short drag selects the light (so the profiled drag is of a selected light, as in use).
+    await drag(cdp, start, (k) => ({ x: k, y: 0 }), 10);
     await page.waitForTimeout(1500);
     await cdp.send('Profiler.enable');
     await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
     await cdp.send('Profiler.start');
-    const from = { x: start.x + 10, y: start.y };
-    await send({ type: 'mousePressed', x: from.x, y: from.y, button: 'left', buttons: 1, clickCount: 1 });
-    const t0 = Date.now();
-    const inFlight: Promise<unknown>[] = [];
-    for (let k = 1; k <= MOVES; k++) {
-      const wait = t0 + (k * 1000) / 60 - Date.now();
-      if (wait > 0) await new Promise((r) => setTimeout(r, wait));
-      inFlight.push(send({ type: 'mouseMoved', x: from.x - k * 3, y: from.y - k * 1.5, button: 'left', buttons: 1 }));
-    }
-    await Promise.all(inFlight);
-    await send({ type: 'mouseReleased', x: from.x - MOVES * 3, y: from.y - MOVES * 1.5, button: 'left', buttons: 0, clickCount: 1 });
+    await drag(cdp, { x: start.x + 10, y: start.y }, (k) => ({ x: -k * 3, y: -k * 1.5 }));
     await page.waitForTimeout(1000);
     const { profile } = (await cdp.send('Profiler.stop')) as unknown as { profile: Profile };
 
@@ -139,8 +108,7 @@ async function main() {
     console.log(`by function (self):\n${top(fns, 40)}`);
     console.log(`project functions (inclusive):\n${top(inclusive, 40)}`);
   } finally {
-    await browser.close();
-    await server.close();
+    await bench.close();
   }
 }
 

@@ -29,7 +29,7 @@ const dir = mkdtempSync(join(tmpdir(), 'falloff-frame-bench-'));
 const bundle = join(dir, 'frame.cjs');
 buildSync({ entryPoints: ['calc/frame/index.ts'], bundle: true, format: 'cjs', platform: 'node', minify: true, target: 'es2022', outfile: bundle, logLevel: 'warning' });
 // eslint-disable-next-line @typescript-eslint/no-require-imports
-const { prepareFrame, renderFrame } = require(bundle) as typeof import('../../calc/frame');
+const { renderFrame } = require(bundle) as typeof import('../../calc/frame');
 process.on('exit', () => rmSync(dir, { recursive: true, force: true }));
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
@@ -70,7 +70,7 @@ for (const c of cases) {
   const t = time(() => {
     for (let k = 0; k < frames; k++) {
       const doc = { ...base, items: base.items.map((i) => (i.id === 'wash' && i.kind === 'light' ? { ...i, x: i.x - 0.02 * k } : i)) };
-      renderFrame(prepareFrame(frameInputFromDocument(doc).input!), { width: 128, latticeStep: COARSE_LATTICE_STEP });
+      renderFrame(frameInputFromDocument(doc).input!, { width: 128, latticeStep: COARSE_LATTICE_STEP }); // prepared anew each frame
     }
   });
   console.log(`  drag (look 1, the wash light moving, ${frames} coarse frames, scene prepared each time): ${(frames / (t.wall / 1000)).toFixed(1)} frames/s wall, ${(frames / (t.cpu / 1000)).toFixed(1)} frames/s of CPU   [≥ 30]`);

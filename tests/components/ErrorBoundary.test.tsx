@@ -1,6 +1,6 @@
 // When part of the app throws, that part shows a way back, and every open editor saves what is pending
 // before the message says so; "Try again" renders the part again with the work still there.
-import { act, fireEvent, render, screen } from '@testing-library/react-native';
+import { act, fireEvent, render, screen } from '@testing-library/react';
 import { useState } from 'react';
 import { Text } from 'react-native';
 import { createEditor } from '../../canvas/editor/editor';
@@ -42,13 +42,13 @@ describe('error boundaries', () => {
         <Screen onLeave={left} />
       </EditorContext.Provider>,
     );
-    expect(await screen.findByText('Something went wrong in the plan.')).toBeOnTheScreen();
-    expect(await screen.findByText('Your changes are saved. Try again, or leave and come back.')).toBeOnTheScreen();
+    expect(await screen.findByText('Something went wrong in the plan.')).toBeInTheDocument();
+    expect(await screen.findByText('Your changes are saved. Try again, or leave and come back.')).toBeInTheDocument();
     expect(saves.length).toBe(1);
     expect((saves[0]!.document!.items.find((i) => i.id === 'key') as unknown as { x: number }).x).toBeCloseTo(4.5);
     fail = false;
-    await act(async () => fireEvent.press(screen.getByRole('button', { name: 'Try again' })));
-    expect(screen.getByText('key at 4.5 m')).toBeOnTheScreen();
+    await act(async () => fireEvent.click(screen.getByRole('button', { name: 'Try again' })));
+    expect(screen.getByText('key at 4.5 m')).toBeInTheDocument();
     quiet.mockRestore();
     persist.dispose();
   });
@@ -62,7 +62,7 @@ describe('error boundaries', () => {
         <Screen onLeave={left} />
       </EditorContext.Provider>,
     );
-    await act(async () => fireEvent.press(await screen.findByRole('button', { name: 'Back to setups' })));
+    await act(async () => fireEvent.click(await screen.findByRole('button', { name: 'Back to setups' })));
     expect(left).toHaveBeenCalledTimes(1);
     quiet.mockRestore();
   });

@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { render, screen, userEvent, waitFor } from '@testing-library/react-native';
+import { render, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { FormField } from '../../components/FormField';
@@ -30,7 +31,7 @@ describe('FormField', () => {
     await user.type(screen.getByLabelText('Password'), 'correct horse');
     expect(screen.getByLabelText('E-mail')).toHaveDisplayValue('ada@example.com');
 
-    await user.press(screen.getByRole('button', { name: 'Sign in' }));
+    await user.click(screen.getByRole('button', { name: 'Sign in' }));
     await waitFor(() => expect(onValid).toHaveBeenCalledTimes(1));
     expect(onValid.mock.calls[0]![0]).toEqual({ email: 'ada@example.com', password: 'correct horse' });
   });
@@ -41,10 +42,10 @@ describe('FormField', () => {
     render(<SignInForm onValid={onValid} />);
 
     await user.type(screen.getByLabelText('E-mail'), 'not an address');
-    await user.press(screen.getByRole('button', { name: 'Sign in' }));
+    await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
-    expect(await screen.findByText('enter an e-mail address')).toBeOnTheScreen();
-    expect(screen.getByText('enter your password')).toBeOnTheScreen();
+    expect(await screen.findByText('enter an e-mail address')).toBeInTheDocument();
+    expect(screen.getByText('enter your password')).toBeInTheDocument();
     expect(screen.getAllByRole('alert')).toHaveLength(2);
     expect(onValid).not.toHaveBeenCalled();
   });

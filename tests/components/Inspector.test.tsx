@@ -1,6 +1,6 @@
 // The inspector edits the selected item through editor actions, with units, and refuses bad input.
 import { vi } from 'vitest';
-import { act, fireEvent, render, screen } from '@testing-library/react-native';
+import { act, fireEvent, render, screen } from '@testing-library/react';
 import { Inspector } from '../../components/editor/Inspector';
 import { createEditor as createEditorStore, type Editor as EditorStore } from '../../canvas/editor/editor';
 import { EditorContext } from '../../canvas/editor/react';
@@ -27,7 +27,7 @@ describe('Inspector', () => {
         <Inspector units="metric" />
       </EditorContext.Provider>,
     );
-    expect(screen.getByText(/Tap an item on the plan/)).toBeOnTheScreen();
+    expect(screen.getByText(/Tap an item on the plan/)).toBeInTheDocument();
   });
 
   it('gives every field its own key (length fields share one label function; a shared key lets React mix up their inputs)', () => {
@@ -45,8 +45,8 @@ describe('Inspector', () => {
   it('moves a light by typing a position, and undo puts it back', () => {
     const store = setup('key');
     const field = screen.getByLabelText('Down (m)');
-    fireEvent.changeText(field, '4.6');
-    fireEvent(field, 'submitEditing');
+    fireEvent.change(field, { target: { value: '4.6' } });
+    fireEvent.keyDown(field, { key: 'Enter' });
     expect(item<'light'>(store, 'key').y).toBeCloseTo(4.6);
     act(() => store.dispatch('undo'));
     expect(item<'light'>(store, 'key').y).toBeCloseTo(4.1);
@@ -55,41 +55,41 @@ describe('Inspector', () => {
   it('reads feet and inches when the user works in imperial units', () => {
     const store = setup('key', 'imperial');
     const field = screen.getByLabelText('Height (ft)');
-    fireEvent.changeText(field, `6' 6"`);
-    fireEvent(field, 'submitEditing');
+    fireEvent.change(field, { target: { value: `6' 6"` } });
+    fireEvent.keyDown(field, { key: 'Enter' });
     expect(item<'light'>(store, 'key').heightM).toBeCloseTo(6.5 * 0.3048, 6);
   });
 
   it('steps power by a third of a stop', () => {
     const store = setup('key');
     const before = item<'light'>(store, 'key').power;
-    fireEvent.press(screen.getByRole('button', { name: 'More power' }));
+    fireEvent.click(screen.getByRole('button', { name: 'More power' }));
     expect(Math.log2(item<'light'>(store, 'key').power / before)).toBeCloseTo(1 / 3, 6);
-    expect(screen.getByLabelText('Power').props.value).toBe('1/8 +0.3');
+    expect(screen.getByLabelText('Power')).toHaveValue('1/8 +0.3');
   });
 
   it('takes power typed as a fraction', () => {
     const store = setup('key');
     const field = screen.getByLabelText('Power');
-    fireEvent.changeText(field, '1/32');
-    fireEvent(field, 'submitEditing');
+    fireEvent.change(field, { target: { value: '1/32' } });
+    fireEvent.keyDown(field, { key: 'Enter' });
     expect(item<'light'>(store, 'key').power).toBeCloseTo(1 / 32);
   });
 
   it('refuses what is not a number, keeps the value, and says under the field what it accepts', () => {
     const store = setup('key');
     const field = screen.getByLabelText('Down (m)');
-    fireEvent.changeText(field, 'near the window');
-    fireEvent(field, 'submitEditing');
+    fireEvent.change(field, { target: { value: 'near the window' } });
+    fireEvent.keyDown(field, { key: 'Enter' });
     expect(item<'light'>(store, 'key').y).toBeCloseTo(4.1);
     // The typed text stays for correcting, with the reason under it (never a silent revert).
-    expect(screen.getByLabelText('Down (m)').props.value).toBe('near the window');
-    expect(screen.getByText(/Not a value this field reads\. Accepted: 0\.00 to \d+\.00\./)).toBeOnTheScreen();
-    expect(screen.getByLabelText('Down (m)').props['aria-invalid']).toBe(true);
+    expect(screen.getByLabelText('Down (m)')).toHaveValue('near the window');
+    expect(screen.getByText(/Not a value this field reads\. Accepted: 0\.00 to \d+\.00\./)).toBeInTheDocument();
+    expect(screen.getByLabelText('Down (m)')).toHaveAttribute('aria-invalid', 'true');
     // Typing again clears the message; a good value commits.
-    fireEvent.changeText(field, '3.2');
+    fireEvent.change(field, { target: { value: '3.2' } });
     expect(screen.queryByText(/Not a value this field reads/)).toBeNull();
-    fireEvent(field, 'submitEditing');
+    fireEvent.keyDown(field, { key: 'Enter' });
     expect(item<'light'>(store, 'key').y).toBeCloseTo(3.2);
   });
 
@@ -102,9 +102,9 @@ describe('Inspector', () => {
     const store = setup(id);
     const before = JSON.stringify(store.getState().doc);
     const field = screen.getByLabelText(label);
-    fireEvent.changeText(field, typed);
-    fireEvent(field, 'blur');
-    expect(screen.getByText(message)).toBeOnTheScreen();
+    fireEvent.change(field, { target: { value: typed } });
+    fireEvent.blur(field);
+    expect(screen.getByText(message)).toBeInTheDocument();
     expect(JSON.stringify(store.getState().doc)).toBe(before);
   });
 
@@ -112,65 +112,86 @@ describe('Inspector', () => {
     const store = setup('key');
     const { widthM } = store.getState().doc.stage;
     const field = screen.getByLabelText('Across (m)');
-    fireEvent.changeText(field, '-2');
-    fireEvent(field, 'submitEditing');
-    expect(screen.getByText(`Out of range. Accepted: 0.00 to ${widthM.toFixed(2)}.`)).toBeOnTheScreen();
+    fireEvent.change(field, { target: { value: '-2' } });
+    fireEvent.keyDown(field, { key: 'Enter' });
+    expect(screen.getByText(`Out of range. Accepted: 0.00 to ${widthM.toFixed(2)}.`)).toBeInTheDocument();
     expect(item<'light'>(store, 'key').x).toBeGreaterThanOrEqual(0);
   });
 
   it('opens the number pad on number fields', () => {
     setup('cam');
     for (const label of ['ISO', 'Aperture (f/)', 'Shutter (s)', 'Across (m)', 'Height (m)']) {
-      expect(screen.getByLabelText(label).props.inputMode).toBe('decimal');
+      expect(screen.getByLabelText(label)).toHaveAttribute('inputmode', 'decimal');
     }
   });
 
   it('takes a shutter typed as the camera shows it ("250" is 1/250 s) and steps on the third-stop scale', () => {
     const store = setup('cam');
     const field = screen.getByLabelText('Shutter (s)');
-    fireEvent.changeText(field, '250');
-    fireEvent(field, 'submitEditing');
+    fireEvent.change(field, { target: { value: '250' } });
+    fireEvent.keyDown(field, { key: 'Enter' });
     expect(item<'camera'>(store, 'cam').shutterS).toBeCloseTo(1 / 250, 9);
-    fireEvent.press(screen.getByRole('button', { name: 'More shutter (s)' }));
+    fireEvent.click(screen.getByRole('button', { name: 'More shutter (s)' }));
     expect(item<'camera'>(store, 'cam').shutterS).toBeCloseTo(1 / 320, 9);
-    expect(screen.getByLabelText('Shutter (s)').props.value).toBe('1/320');
+    expect(screen.getByLabelText('Shutter (s)')).toHaveValue('1/320');
   });
 
   it('shows and reads feet and inches as written: 5′ 6″ in, 5′ 6″ out', () => {
     const store = setup('key', 'imperial');
     const field = screen.getByLabelText('Height (ft)');
-    fireEvent.changeText(field, '5′ 6″');
-    fireEvent(field, 'submitEditing');
+    fireEvent.change(field, { target: { value: '5′ 6″' } });
+    fireEvent.keyDown(field, { key: 'Enter' });
     expect(item<'light'>(store, 'key').heightM).toBeCloseTo(5.5 * 0.3048, 6);
-    expect(screen.getByLabelText('Height (ft)').props.value).toBe('5′ 6″');
+    expect(screen.getByLabelText('Height (ft)')).toHaveValue('5′ 6″');
   });
 
   it('picks a gel from the collapsed list', () => {
     const store = setup('key');
-    fireEvent.press(screen.getByRole('button', { name: 'Gel: no gel. Change' }));
-    fireEvent.press(screen.getByRole('radio', { name: 'half CTO' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Gel: no gel. Change' }));
+    fireEvent.click(screen.getByRole('radio', { name: 'half CTO' }));
     expect(item<'light'>(store, 'key').gel).toBe('half-cto');
   });
 
   it('switching a lamp keeps the other source fields (a function patch reads the current item)', () => {
     const store = setup('key');
-    fireEvent.press(screen.getByRole('radio', { name: 'continuous' }));
-    fireEvent.press(screen.getByRole('radio', { name: 'tungsten' }));
+    fireEvent.click(screen.getByRole('radio', { name: 'continuous' }));
+    fireEvent.click(screen.getByRole('radio', { name: 'tungsten' }));
     const src = item<'light'>(store, 'key').source;
     expect(src).toMatchObject({ type: 'continuous', lamp: 'tungsten', kelvin: 3200, lumens: 8000 });
   });
 
+  it('steps ISO the way the trade expects: "+" to the next third-stop value up, "−" down', () => {
+    const store = setup('cam');
+    expect(item<'camera'>(store, 'cam').iso).toBe(100);
+    fireEvent.click(screen.getByRole('button', { name: 'More iso' }));
+    expect(item<'camera'>(store, 'cam').iso).toBe(125);
+    expect(screen.getByLabelText('ISO')).toHaveValue('125');
+    fireEvent.click(screen.getByRole('button', { name: 'Less iso' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Less iso' }));
+    expect(item<'camera'>(store, 'cam').iso).toBe(80);
+  });
+
+  it('steps the shutter with "−" to a longer time (1/250 → 1/200)', () => {
+    const store = setup('cam');
+    const field = screen.getByLabelText('Shutter (s)');
+    fireEvent.change(field, { target: { value: '250' } });
+    fireEvent.keyDown(field, { key: 'Enter' });
+    fireEvent.click(screen.getByRole('button', { name: 'Less shutter (s)' }));
+    expect(item<'camera'>(store, 'cam').shutterS).toBeCloseTo(1 / 200, 9);
+    expect(screen.getByLabelText('Shutter (s)')).toHaveValue('1/200');
+  });
+
   it('steps the camera aperture along the usual third-stop scale', () => {
     const store = setup('cam');
-    fireEvent.press(screen.getByRole('button', { name: 'More aperture (f/)' }));
+    fireEvent.click(screen.getByRole('button', { name: 'More aperture (f/)' }));
     expect(item<'camera'>(store, 'cam').aperture).toBe(9);
   });
 
   it('has duplicate, lock and delete buttons for touch', () => {
     const store = setup('key');
-    fireEvent.press(screen.getByRole('button', { name: 'Lock' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Lock' }));
     expect(item<'light'>(store, 'key').locked).toBe(true);
-    fireEvent.press(screen.getByRole('button', { name: 'Duplicate' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Duplicate' }));
     expect(store.getState().doc.items.filter((i) => i.kind === 'light')).toHaveLength(2);
   });
 
@@ -183,7 +204,7 @@ describe('Inspector', () => {
       </EditorContext.Provider>,
     );
     expect(screen.queryByRole('button', { name: 'Delete' })).toBeNull();
-    fireEvent.press(screen.getByRole('button', { name: 'More power' }));
+    fireEvent.click(screen.getByRole('button', { name: 'More power' }));
     expect(item<'light'>(store, 'key').power).toBe(1 / 8);
   });
 });

@@ -1,5 +1,5 @@
 // SetupLibrary's paging, with the list hook replaced (vi.mock), so the test controls what pages exist.
-import { fireEvent, screen } from '@testing-library/react-native';
+import { fireEvent, screen } from '@testing-library/react';
 import { SetupLibrary } from '../../components/SetupLibrary';
 import { renderScreen, serveApi, setup } from './support/library';
 
@@ -23,14 +23,29 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-const endOfList = () => fireEvent(screen.getByLabelText('Your setups'), 'onEndReached');
+/**
+ * The user scrolls the list to its end. jsdom lays nothing out, so the list's scroll box is given the sizes a
+ * browser would report (a 2000 px list in a 600 px box, scrolled to its end) before the scroll event.
+ */
+const endOfList = () => {
+  const box = screen.getByLabelText('Your setups');
+  Object.defineProperties(box, {
+    scrollHeight: { configurable: true, value: 2000 },
+    offsetHeight: { configurable: true, value: 600 },
+    scrollWidth: { configurable: true, value: 400 },
+    offsetWidth: { configurable: true, value: 400 },
+    // (jsdom ignores writes to scrollTop: the position the user scrolled to is given the same way.)
+    scrollTop: { configurable: true, value: 1400 },
+  });
+  fireEvent.scroll(box);
+};
 
 describe('SetupLibrary paging', () => {
   it('asks for the next page at the end of the list when there is one', () => {
     const fetchNextPage = vi.fn();
     paging.current = { hasNextPage: true, isFetchingNextPage: false, fetchNextPage };
     renderScreen(<SetupLibrary />);
-    expect(screen.getByText('Beauty dish overhead')).toBeOnTheScreen();
+    expect(screen.getByText('Beauty dish overhead')).toBeInTheDocument();
     endOfList();
     expect(fetchNextPage).toHaveBeenCalledTimes(1);
   });

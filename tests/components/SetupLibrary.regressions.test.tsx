@@ -1,6 +1,7 @@
 // The library asks for the order the user picked, and a delete the server refuses puts the setup back.
 import { QueryClient, QueryClientProvider, type InfiniteData } from '@tanstack/react-query';
-import { act, renderHook, screen, userEvent, waitFor } from '@testing-library/react-native';
+import { act, renderHook, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import type { ReactNode } from 'react';
 import { SetupLibrary } from '../../components/SetupLibrary';
 import { setupKeys, useDeleteSetup } from '../../hooks/setups';
@@ -14,17 +15,17 @@ afterEach(() => {
 describe('SetupLibrary sort', () => {
   it('asks the server for the order picked (A–Z sends sort=title)', async () => {
     const api = serveApi(() => ({ status: 200, body: { setups: [setup({ title: 'Clamshell portrait' })], nextCursor: null } }));
-    const user = userEvent.setup({ advanceTimers: (ms) => void vi.advanceTimersByTime(ms) });
+    const user = userEvent.setup();
     renderScreen(<SetupLibrary />);
-    expect(await screen.findByText('Clamshell portrait')).toBeOnTheScreen();
+    expect(await screen.findByText('Clamshell portrait')).toBeInTheDocument();
     expect(api.listRequests().every((u) => !u.searchParams.has('sort'))).toBe(true);
 
     // Wide: a "Sort by" tab row; phone: one chip that steps Recent → Newest → A–Z.
     const tab = screen.queryByRole('tab', { name: 'A–Z' });
-    if (tab) await user.press(tab);
+    if (tab) await user.click(tab);
     else {
-      await user.press(screen.getByRole('button', { name: 'Sort: Recent' }));
-      await user.press(screen.getByRole('button', { name: 'Sort: Newest' }));
+      await user.click(screen.getByRole('button', { name: 'Sort: Recent' }));
+      await user.click(screen.getByRole('button', { name: 'Sort: Newest' }));
     }
     await waitFor(() => expect(api.listRequests().some((u) => u.searchParams.get('sort') === 'title')).toBe(true));
   });

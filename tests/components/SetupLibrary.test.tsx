@@ -1,9 +1,11 @@
-import { act, screen, userEvent } from '@testing-library/react-native';
+import { act, screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { SetupLibrary } from '../../components/SetupLibrary';
 import { renderScreen, serveApi, setup } from './support/library';
 
 afterEach(() => {
   vi.unstubAllGlobals();
+  vi.useRealTimers();
 });
 
 describe('SetupLibrary', () => {
@@ -20,8 +22,8 @@ describe('SetupLibrary', () => {
     }));
     renderScreen(<SetupLibrary />);
 
-    expect(await screen.findByText('Clamshell portrait')).toBeOnTheScreen();
-    expect(screen.getByText('Rembrandt with bounce')).toBeOnTheScreen();
+    expect(await screen.findByText('Clamshell portrait')).toBeInTheDocument();
+    expect(screen.getByText('Rembrandt with bounce')).toBeInTheDocument();
     expect(screen.queryByText('No setups yet')).toBeNull();
     expect(api.listRequests().length).toBeGreaterThan(0);
   });
@@ -30,7 +32,7 @@ describe('SetupLibrary', () => {
     serveApi(() => ({ status: 200, body: { setups: [], nextCursor: null } }));
     renderScreen(<SetupLibrary />);
 
-    expect(await screen.findByText('No setups yet')).toBeOnTheScreen();
+    expect(await screen.findByText('No setups yet')).toBeInTheDocument();
     expect(screen.queryByText('Clamshell portrait')).toBeNull();
   });
 
@@ -40,16 +42,17 @@ describe('SetupLibrary', () => {
         ? { status: 200, body: { setups: [], nextCursor: null } }
         : { status: 200, body: { setups: [setup({ title: 'Clamshell portrait' })], nextCursor: null } },
     );
-    // The router runs on fake timers, which makes the debounce deterministic: typing takes no time at all.
+    // Fake timers make the debounce deterministic: typing takes no time at all.
+    vi.useFakeTimers();
     const user = userEvent.setup({ advanceTimers: (ms) => void vi.advanceTimersByTime(ms) });
     renderScreen(<SetupLibrary />);
-    expect(await screen.findByText('Clamshell portrait')).toBeOnTheScreen();
+    expect(await screen.findByText('Clamshell portrait')).toBeInTheDocument();
 
     await user.type(screen.getByLabelText('Search setups'), 'snoot');
     expect(screen.queryByText('No setup matches that search')).toBeNull();
     await act(() => vi.advanceTimersByTimeAsync(250));
 
-    expect(await screen.findByText('No setup matches that search')).toBeOnTheScreen();
+    expect(await screen.findByText('No setup matches that search')).toBeInTheDocument();
     expect(screen.queryByText('Clamshell portrait')).toBeNull();
     // One request for the whole word, none per keystroke.
     const searched = api.listRequests().map((u) => u.searchParams.get('q')).filter((q) => q !== null);
@@ -60,6 +63,7 @@ describe('SetupLibrary', () => {
     serveApi(() => ({ status: 500, body: { error: { code: 'internal', message: 'database unavailable' } } }));
     renderScreen(<SetupLibrary />);
 
-    expect(await screen.findByRole('alert', { name: /Could not load your setups: database unavailable/ })).toBeOnTheScreen();
+    // (An alert takes its words from its content, so find it by role and read them.)
+    expect(await screen.findByRole('alert')).toHaveTextContent('Could not load your setups: database unavailable');
   });
 });

@@ -1,7 +1,7 @@
 // A drag re-renders what the hand moves — the dragged item's glyph, its beam and the handles — and nothing
 // else: not the other items, not the inspector, and the meter's text at most at its readable pace (usePaced)
 // however fast the meter's results come. And the plan hands the editor at most one pointer move a frame.
-import { act, render } from '@testing-library/react-native';
+import { act, render } from '@testing-library/react';
 import { Profiler, type ProfilerOnRenderCallback } from 'react';
 import { fireGestureHandler, getByGestureTestId } from 'react-native-gesture-handler/jest-utils';
 import { State } from 'react-native-gesture-handler';
@@ -81,6 +81,8 @@ describe('a drag on the plan', () => {
     glyphRenders.clear();
     renders.clear();
     const from = at(editor, 'rimR');
+    const transforms = () => new Set(Array.from(m.view.container.querySelectorAll('[transform]')).map((e) => e.getAttribute('transform') ?? ''));
+    const before = transforms();
     const MOVES = 20;
     act(() => editor.pointer.down({ screen: from, pointer: 'mouse' }));
     for (let k = 1; k <= MOVES; k++) {
@@ -98,19 +100,23 @@ describe('a drag on the plan', () => {
     expect(renders.get('meter') ?? 0).toBeLessThanOrEqual(1);
     expect(renders.get('suggested') ?? 0).toBeLessThanOrEqual(1);
     expect(renders.get('inspector') ?? 0).toBe(0);
-    // The dragged glyph followed every move; no other glyph was drawn again.
-    expect(glyphRenders.get('rimR')).toBeGreaterThanOrEqual(MOVES);
-    expect([...glyphRenders.keys()]).toEqual(['rimR']);
+    // In the browser (react-native-web) the drag layer moves the dragged glyph by writing its SVG node's
+    // transform (canvas/dragViews.ts): React draws no glyph at all while the hand moves…
+    expect([...glyphRenders.keys()]).toEqual([]);
+    // …and the dragged item's parts (glyph, beam, mark, handles) were moved by writing their transforms.
+    const written = [...transforms()].filter((t) => !before.has(t) && /^translate\(/.test(t));
+    expect(written.length).toBeGreaterThan(0);
 
     // On release the panels catch up at once with the document as it now stands.
-    const before = { meter: renders.get('meter') ?? 0, inspector: renders.get('inspector') ?? 0 };
+    const counts = { meter: renders.get('meter') ?? 0, inspector: renders.get('inspector') ?? 0 };
     await act(async () => {
       editor.pointer.up({ screen: { x: from.x - 4 * MOVES, y: from.y + 2 * MOVES }, pointer: 'mouse' });
       await vi.advanceTimersByTimeAsync(50);
     });
-    expect(renders.get('inspector') ?? 0).toBeGreaterThan(before.inspector);
-    expect(renders.get('meter') ?? 0).toBeGreaterThan(before.meter);
-    expect(m.view.getByTestId('meter-light-rimR')).toBeOnTheScreen();
+    expect(renders.get('inspector') ?? 0).toBeGreaterThan(counts.inspector);
+    expect(renders.get('meter') ?? 0).toBeGreaterThan(counts.meter);
+    expect(m.view.getByTestId('meter-light-rimR')).toBeInTheDocument();
+    // At release React draws the dragged item from the document once more, and no other item.
     expect([...glyphRenders.keys()]).toEqual(['rimR']);
   });
 

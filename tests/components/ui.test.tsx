@@ -1,12 +1,11 @@
-import { fireEvent, render, screen } from '@testing-library/react-native';
-import { ActivityIndicator } from 'react-native';
+import { fireEvent, render, screen } from '@testing-library/react';
 import { Button, ErrorText, Title } from '../../components/ui';
 
 describe('Button', () => {
   it('calls onPress when pressed', () => {
     const onPress = vi.fn();
     render(<Button label="Save setup" onPress={onPress} />);
-    fireEvent.press(screen.getByRole('button', { name: 'Save setup' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Save setup' }));
     expect(onPress).toHaveBeenCalledTimes(1);
   });
 
@@ -14,7 +13,7 @@ describe('Button', () => {
     const onPress = vi.fn();
     render(<Button label="Save setup" onPress={onPress} disabled />);
     const button = screen.getByRole('button', { name: 'Save setup' });
-    fireEvent.press(button);
+    fireEvent.click(button);
     expect(onPress).not.toHaveBeenCalled();
     expect(button).toBeDisabled();
   });
@@ -23,16 +22,16 @@ describe('Button', () => {
     const onPress = vi.fn();
     render(<Button label="Save setup" onPress={onPress} busy />);
     const button = screen.getByRole('button', { name: 'Save setup' });
-    fireEvent.press(button);
+    fireEvent.click(button);
     expect(onPress).not.toHaveBeenCalled();
-    expect(button).toBeBusy();
-    expect(screen.getByText('Save setup')).toBeOnTheScreen();
-    expect(screen.UNSAFE_getAllByType(ActivityIndicator)).toHaveLength(1);
+    expect(button).toHaveAttribute('aria-busy', 'true');
+    expect(screen.getByText('Save setup')).toBeInTheDocument();
+    expect(screen.getAllByRole('progressbar')).toHaveLength(1);
   });
 
   it('shows no spinner when idle', () => {
     render(<Button label="Save setup" onPress={() => {}} />);
-    expect(screen.UNSAFE_queryAllByType(ActivityIndicator)).toHaveLength(0);
+    expect(screen.queryAllByRole('progressbar')).toHaveLength(0);
     expect(screen.getByRole('button', { name: 'Save setup' })).toBeEnabled();
   });
 });
@@ -47,6 +46,6 @@ describe('ErrorText', () => {
 describe('Title', () => {
   it('is the page heading (level 1)', () => {
     render(<Title>Setups</Title>);
-    expect(screen.getByRole('heading', { name: 'Setups' })).toBeOnTheScreen();
+    expect(screen.getByRole('heading', { name: 'Setups' })).toBeInTheDocument();
   });
 });

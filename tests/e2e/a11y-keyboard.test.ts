@@ -47,7 +47,7 @@ describe('keyboard: skip link and focus after Delete', () => {
     // The next Tab reaches the plan's first item, and the one after it.
     await page.keyboard.press('Tab');
     await expect.poll(() => focused(page), { timeout: 10_000 }).toMatch(/^item-/);
-    const ids = await page.locator('[data-testid="plan"] [data-testid^="item-"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!));
+    const ids = await page.locator('[data-testid="plan"] [data-testid^="item-"]:not([data-testid^="item-glyph-"])').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!));
     const first = (await focused(page))!;
     expect(ids[0]).toBe(first);
     await page.keyboard.press('Delete');

@@ -81,7 +81,7 @@ describe('comments on set', () => {
     // ---- The photographer, wide: unread in the library, the pin on the light, reply, resolve ----
     const o = owner.page;
     await o.goto(`${base}/setups`);
-    const card = o.getByTestId('setup-card').filter({ hasText: `Sprint rims ${word}` }).locator('xpath=..');
+    const card = o.getByTestId('setup-card-title-row').filter({ hasText: `Sprint rims ${word}` });
     await expect.poll(() => card.getByTestId('unread-comments').textContent().catch(() => null), { timeout: 15_000 }).toBe('1 new');
     await shot(o, 'comments-wide-library-unread');
     await card.click();

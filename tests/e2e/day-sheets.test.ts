@@ -34,7 +34,7 @@ describe('day sheets', () => {
     const errors = watchErrors(page);
     await page.goto(`${base}/setups`);
     // The card's title row: its link (named by the title) and, beside it, the pick number.
-    const card = (t: string) => page.getByRole('link', { name: t, exact: true }).locator('xpath=..');
+    const card = (t: string) => page.getByTestId('setup-card-title-row').filter({ has: page.getByRole('link', { name: t, exact: true }) });
     await card(titles[0]!).waitFor({ timeout: 30_000 });
     await page.getByTestId('pick-day').click();
     await expect.poll(() => page.getByTestId('day-sheet-bar').innerText()).toContain('Tap setups in shooting order');

@@ -97,7 +97,19 @@ describe.each(Object.keys(viewports) as ViewportName[])('the editor on a %s view
     const pxPerM = Math.hypot(key.x - subj.x, key.y - subj.y);
     expect(pxPerM).toBeGreaterThan(20);
     // A drag selects the light but leaves the sheet on the meter (only a tap opens an item's settings).
+    const glyphBefore = await centre(page, 'item-glyph-light-1');
+    const savedKeyY = async () => {
+      const r = await context.request.get(`${base}/api/setups/${id}`);
+      const d = (await r.json()) as { document: { items: { id: string; y?: number }[] } };
+      return d.document.items.find((i) => i.id === 'light-1')!.y!;
+    };
+    await expect.poll(() => page.getByTestId('save-state').textContent(), { timeout: 10_000 }).toBe('Saved');
+    const keyYBefore = await savedKeyY();
     await dragMouse(page, key, { x: key.x, y: key.y + pxPerM });
+    // The glyph itself stands where the hand let go (the drag moved it outside React; the release drew it from
+    // the document), and the drag was saved as it ended: 1 m further on the server.
+    await expect.poll(async () => (await centre(page, 'item-glyph-light-1')).y - glyphBefore.y).toBeCloseTo(pxPerM, -1);
+    await expect.poll(savedKeyY, { timeout: 15_000 }).toBeCloseTo(keyYBefore + 1, 1);
     await expect.poll(async () => before - (await stopsOf(page, 'light-1')), { timeout: 15_000 }).toBeGreaterThan(1.9);
     const after = await stopsOf(page, 'light-1');
     expect(Math.abs(before - after - 2)).toBeLessThanOrEqual(0.1);

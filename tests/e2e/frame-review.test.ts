@@ -47,12 +47,8 @@ async function refined(page: Page, testId: string) {
   await expect.poll(() => page.getByTestId(`${testId}-image`).first().locator('img').evaluate((i: HTMLImageElement) => i.complete && i.naturalWidth > 0).catch(() => false), { timeout: 30_000 }).toBe(true);
 }
 
-/**
- * Mean luminance (0–255) of the left and right halves of the face in the picture the page shows: a band 12 %
- * of the width either side of the centre line, 40–60 % down (the sitter is centred, face at lens height; the
- * key's spill on the paper behind lands on the other side, so the whole picture's halves would not tell).
- */
-function halves(page: Page, testId: string): Promise<{ left: number; right: number; src: string }> {
+/** The RGBA pixels of the picture a frame view shows (drawn from its <img> onto a canvas in the page). */
+function shownPixels(page: Page, testId: string): Promise<{ width: number; height: number; data: number[]; src: string }> {
   return page
     .getByTestId(`${testId}-image`)
     .first()
@@ -63,25 +59,42 @@ function halves(page: Page, testId: string): Promise<{ left: number; right: numb
       c.height = img.naturalHeight;
       const g = c.getContext('2d')!;
       g.drawImage(img, 0, 0);
-      const d = g.getImageData(0, 0, c.width, c.height).data;
-      let l = 0;
-      let r = 0;
-      let nl = 0;
-      let nr = 0;
-      for (let y = Math.round(c.height * 0.4); y < c.height * 0.6; y++)
-        for (let x = Math.round(c.width * 0.38); x < c.width * 0.62; x++) {
-          const i = (y * c.width + x) * 4;
-          const v = 0.2126 * d[i]! + 0.7152 * d[i + 1]! + 0.0722 * d[i + 2]!;
-          if (x < c.width / 2) {
-            l += v;
-            nl++;
-          } else {
-            r += v;
-            nr++;
-          }
-        }
-      return { left: l / nl, right: r / nr, src: img.currentSrc || img.src };
+      return { width: c.width, height: c.height, data: Array.from(g.getImageData(0, 0, c.width, c.height).data), src: img.currentSrc || img.src };
     });
+}
+
+/**
+ * Mean luminance (0–255) of the left and right halves of the face in the picture the page shows: a band 12 %
+ * of the width either side of the centre line, 40–60 % down (the sitter is centred, face at lens height; the
+ * key's spill on the paper behind lands on the other side, so the whole picture's halves would not tell).
+ */
+async function halves(page: Page, testId: string): Promise<{ left: number; right: number; src: string }> {
+  const { width, height, data: d, src } = await shownPixels(page, testId);
+  let l = 0;
+  let r = 0;
+  let nl = 0;
+  let nr = 0;
+  for (let y = Math.round(height * 0.4); y < height * 0.6; y++)
+    for (let x = Math.round(width * 0.38); x < width * 0.62; x++) {
+      const i = (y * width + x) * 4;
+      const v = 0.2126 * d[i]! + 0.7152 * d[i + 1]! + 0.0722 * d[i + 2]!;
+      if (x < width / 2) {
+        l += v;
+        nl++;
+      } else {
+        r += v;
+        nr++;
+      }
+    }
+  return { left: l / nl, right: r / nr, src };
+}
+
+/** Largest difference between a pixel's channels in the picture shown: 0 when it is all grey. */
+async function colourfulness(page: Page, testId: string): Promise<number> {
+  const { data: d } = await shownPixels(page, testId);
+  let off = 0;
+  for (let i = 0; i < d.length; i += 4) off = Math.max(off, Math.abs(d[i]! - d[i + 1]!), Math.abs(d[i + 1]! - d[i + 2]!));
+  return off;
 }
 
 describe('the review shows the frames side by side', () => {
@@ -123,23 +136,7 @@ describe('the review shows the frames side by side', () => {
 
     // One look for both: black and white turns both pictures grey.
     await pair.getByLabel('Colour, switch to black and white', { exact: true }).first().click();
-    const grey = async (testId: string) =>
-      page
-        .getByTestId(`${testId}-image`)
-        .first()
-        .locator('img')
-        .evaluate((img: HTMLImageElement) => {
-          const c = document.createElement('canvas');
-          c.width = img.naturalWidth;
-          c.height = img.naturalHeight;
-          const g = c.getContext('2d')!;
-          g.drawImage(img, 0, 0);
-          const d = g.getImageData(0, 0, c.width, c.height).data;
-          let off = 0;
-          for (let i = 0; i < d.length; i += 4) off = Math.max(off, Math.abs(d[i]! - d[i + 1]!), Math.abs(d[i + 1]! - d[i + 2]!));
-          return off;
-        })
-        .catch(() => 255);
+    const grey = (testId: string) => colourfulness(page, testId).catch(() => 255);
     await expect.poll(() => grey('review-frames-left'), { interval: 500, timeout: 120_000 }).toBe(0);
     await expect.poll(() => grey('review-frames-right'), { interval: 500, timeout: 120_000 }).toBe(0);
     await refined(page, 'review-frames-left');

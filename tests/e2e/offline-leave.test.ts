@@ -2,50 +2,16 @@
 // pop the router would otherwise act on unasked) warns first; signing out with changes queued on the device
 // warns, keeps them under their owner, another person signing in on the device neither sends nor drops them,
 // and they go out once their owner signs in again.
-import pg from 'pg';
 import type { BrowserContext, Page } from 'playwright-core';
-import { afterAll, describe, expect, inject, it } from 'vitest';
-import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { describe, expect, inject, it } from 'vitest';
 import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
-import { TEST_DATABASE_URL } from '../support/env';
+import { newOfflineSetup, signInAs, storedKeyReader } from '../support/offlineSetup';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
-const db = new pg.Client({ connectionString: TEST_DATABASE_URL });
-let dbOpen: Promise<unknown> | null = null;
-afterAll(async () => {
-  if (dbOpen) await db.end();
-});
-
-const doc = {
-  schemaVersion: 1,
-  stage: { widthM: 6, depthM: 5 },
-  items: [
-    { id: 'sub', kind: 'subject', x: 3, y: 2, facingDeg: 90 },
-    { id: 'key', kind: 'light', x: 3, y: 3.2, aimDeg: -90, source: { type: 'strobe', energyWs: 400 } },
-    { id: 'cam', kind: 'camera', x: 3, y: 4.5, aimDeg: -90 },
-  ],
-};
-
-async function storedKeyX(id: string): Promise<number> {
-  dbOpen ??= db.connect();
-  await dbOpen;
-  const r = await db.query<{ document: { items: { id: string; x: number }[] } }>('select document from setups where id = $1', [id]);
-  return r.rows[0]!.document.items.find((i) => i.id === 'key')!.x;
-}
-
-async function signIn(ctx: BrowserContext, who: keyof typeof demoUsers) {
-  const r = await ctx.request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers[who].email, password: DEMO_PASSWORD }, headers: { origin: base } });
-  expect(r.status()).toBe(200);
-}
-
-async function newSetup(ctx: BrowserContext, title: string): Promise<string> {
-  const me = await (await ctx.request.get(`${base}/api/me`)).json();
-  const studioId = me.studios.find((s: { personal: boolean }) => !s.personal).id;
-  const made = await ctx.request.post(`${base}/api/setups`, { data: { studioId, title, document: doc }, headers: { origin: base } });
-  expect(made.status()).toBe(201);
-  return ((await made.json()) as { id: string }).id;
-}
+const storedKeyX = storedKeyReader();
+const signIn = (ctx: BrowserContext, who: Parameters<typeof signInAs>[2]) => signInAs(base, ctx, who);
+const newSetup = (ctx: BrowserContext, title: string) => newOfflineSetup(base, ctx, title);
 
 const saveState = (page: Page) => page.getByTestId('save-state').innerText();
 

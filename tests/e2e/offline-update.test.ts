@@ -7,7 +7,7 @@ import { join, resolve } from 'node:path';
 import { brotliCompressSync, gzipSync } from 'node:zlib';
 import type { Page } from 'playwright-core';
 import { afterAll, describe, expect, inject, it } from 'vitest';
-import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { newOfflineSetup, signInAs } from '../support/offlineSetup';
 import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
 
 const base = inject('baseUrl');
@@ -29,26 +29,11 @@ function publishNewWorker(mark: string) {
 const controllerUrl = (page: Page) => page.evaluate(() => navigator.serviceWorker.controller?.scriptURL ?? null);
 const hasWaiting = (page: Page) => page.evaluate(() => navigator.serviceWorker.getRegistration().then((reg) => !!reg?.waiting));
 
-const doc = {
-  schemaVersion: 1,
-  stage: { widthM: 6, depthM: 5 },
-  items: [
-    { id: 'sub', kind: 'subject', x: 3, y: 2, facingDeg: 90 },
-    { id: 'key', kind: 'light', x: 3, y: 3.2, aimDeg: -90, source: { type: 'strobe', energyWs: 400 } },
-    { id: 'cam', kind: 'camera', x: 3, y: 4.5, aimDeg: -90 },
-  ],
-};
-
 describe('a new version', () => {
   it('waits until the person reloads, and reloads only once their changes are sent', async () => {
     const ctx = await browser().newContext({ viewport: viewports.phone, hasTouch: true });
-    const r = await ctx.request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: { origin: base } });
-    expect(r.status()).toBe(200);
-    const me = await (await ctx.request.get(`${base}/api/me`)).json();
-    const studioId = me.studios.find((x: { personal: boolean }) => !x.personal).id;
-    const made = await ctx.request.post(`${base}/api/setups`, { data: { studioId, title: 'Mid-shoot update', document: doc }, headers: { origin: base } });
-    expect(made.status()).toBe(201);
-    const id = ((await made.json()) as { id: string }).id;
+    await signInAs(base, ctx, 'owner');
+    const id = await newOfflineSetup(base, ctx, 'Mid-shoot update');
 
     const page = await ctx.newPage();
     const errors = watchErrors(page);

@@ -3,52 +3,21 @@
 // ("Offline — 1 change waiting") through another reload, leaving warns, and on reconnect the edit reaches the
 // database through the normal save.
 import { readFileSync } from 'node:fs';
-import pg from 'pg';
 import type { BrowserContext, Page } from 'playwright-core';
-import { afterAll, describe, expect, inject, it } from 'vitest';
-import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { describe, expect, inject, it } from 'vitest';
 import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
-import { TEST_DATABASE_URL } from '../support/env';
+import { newOfflineSetup, signInAs, storedKeyReader } from '../support/offlineSetup';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
-const db = new pg.Client({ connectionString: TEST_DATABASE_URL });
-let dbOpen: Promise<unknown> | null = null;
-afterAll(async () => {
-  if (dbOpen) await db.end();
-});
-
-const doc = {
-  schemaVersion: 1,
-  stage: { widthM: 6, depthM: 5 },
-  items: [
-    { id: 'sub', kind: 'subject', x: 3, y: 2, facingDeg: 90 },
-    { id: 'key', kind: 'light', x: 3, y: 3.2, aimDeg: -90, source: { type: 'strobe', energyWs: 400 } },
-    { id: 'cam', kind: 'camera', x: 3, y: 4.5, aimDeg: -90 },
-  ],
-};
-
-async function storedKeyX(id: string): Promise<number> {
-  dbOpen ??= db.connect();
-  await dbOpen;
-  const r = await db.query<{ document: { items: { id: string; x: number }[] } }>('select document from setups where id = $1', [id]);
-  return r.rows[0]!.document.items.find((i) => i.id === 'key')!.x;
-}
+const storedKeyX = storedKeyReader();
 
 async function signedInContext(viewport: { width: number; height: number }): Promise<BrowserContext> {
   const ctx = await browser().newContext({ viewport, acceptDownloads: true });
-  const r = await ctx.request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: { origin: base } });
-  expect(r.status()).toBe(200);
+  await signInAs(base, ctx, 'owner');
   return ctx;
 }
-
-async function newSetup(ctx: BrowserContext, title: string): Promise<string> {
-  const me = await (await ctx.request.get(`${base}/api/me`)).json();
-  const studioId = me.studios.find((s: { personal: boolean }) => !s.personal).id;
-  const made = await ctx.request.post(`${base}/api/setups`, { data: { studioId, title, document: doc }, headers: { origin: base } });
-  expect(made.status()).toBe(201);
-  return ((await made.json()) as { id: string }).id;
-}
+const newSetup = (ctx: BrowserContext, title: string) => newOfflineSetup(base, ctx, title);
 
 /** Open the page and wait until the service worker controls it (its first visit installs the worker). */
 async function openControlled(page: Page, url: string) {
@@ -147,7 +116,7 @@ describe('without signal', () => {
     await shot(page, 'offline-phone-library');
     // Back online, the library's queue sends them (no editor open).
     await ctx.setOffline(false);
-    await expect.poll(() => storedKeyX(id), { timeout: 30_000, interval: 500 }).toBeCloseTo(3.2);
+    await expect.poll(() => storedKeyX(id), { timeout: 60_000, interval: 500 }).toBeCloseTo(3.2);
     await expect.poll(() => page.getByTestId('offline-banner').count(), { timeout: 15_000 }).toBe(0);
     await ctx.close();
   });

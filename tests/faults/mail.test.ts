@@ -1,50 +1,19 @@
 // Mail accepted while the mail server is away is delivered once it is back, exactly once: the server queues it
 // in PostgreSQL (server/mail/queue.ts) and its worker retries.
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { afterAll, beforeAll, expect, test } from 'vitest';
-import { startFakes, type Fakes } from '../../server/fakes';
-import { startChildServer, type ChildServer } from '../support/child';
 import { Client, freshEmail } from '../support/http';
-import { startCluster } from '../support/pg';
+import { startMailFaults, type MailFaults } from '../support/mailFaults';
 
-let fakes: Fakes;
-let server: ChildServer;
-const s3Dir = mkdtempSync(join(tmpdir(), 'falloff-s3-'));
-
+let m: MailFaults;
 beforeAll(async () => {
-  startCluster();
-  fakes = await startFakes({ s3Dir });
-  server = await startChildServer({ FALLOFF_TEST_SMTP_PORT: String(fakes.smtp.port) });
-});
+  m = await startMailFaults();
+}, 90_000);
+afterAll(() => m?.close());
 
-afterAll(async () => {
-  await server?.stop();
-  await fakes?.smtp.start();
-  await fakes?.close();
-  rmSync(s3Dir, { recursive: true, force: true });
-});
-
-const mailTo = (to: string) => fakes.inbox.list().filter((m) => m.to.includes(to));
+const mailTo = (to: string) => m.mailTo(to);
 /** Mail to `to` other than its address confirmation (sent at sign-up, before the mail server went away). */
-const resetsTo = (to: string) => mailTo(to).filter((m) => !m.text.includes('/api/auth/verify-email'));
-
-/** A signed-in account whose address is confirmed (inviting people needs that), through the link it was mailed
- *  (this child server has no /dev/inbox: the test reads the fake SMTP server's inbox itself). */
-async function confirmed(name: string, email: string): Promise<Client> {
-  const c = await new Client(server.url).signUp(name, email, 'a fine long password');
-  const until = Date.now() + 30_000;
-  let link: string | undefined;
-  while (!link && Date.now() < until) {
-    link = mailTo(email).map((m) => m.text.match(/https?:\/\/\S*\/api\/auth\/verify-email[^\s"<>]*/)?.[0]).find(Boolean);
-    if (!link) await new Promise((r) => setTimeout(r, 100));
-  }
-  if (!link) throw new Error(`no confirmation mail to ${email}`);
-  const v = await c.get(new URL(link).pathname + new URL(link).search);
-  expect([200, 302]).toContain(v.status);
-  return c;
-}
+const resetsTo = (to: string) => mailTo(to).filter((x) => !x.text.includes('/api/auth/verify-email'));
+const confirmed = (name: string, email: string) => m.confirmed(name, email);
 
 test('SMTP down: a reset and an invitation are accepted, and arrive once each when it returns', async () => {
   const owner = freshEmail('owner');
@@ -55,8 +24,8 @@ test('SMTP down: a reset and an invitation are accepted, and arrive once each wh
   const studio = await c.post('/api/studios', { name: 'Queued studio' });
   expect(studio.status).toBe(201);
 
-  await fakes.smtp.stop();
-  const reset = await new Client(server.url).post('/api/auth/request-password-reset', { email: forgetful, redirectTo: '/reset-password' });
+  await m.fakes.smtp.stop();
+  const reset = await new Client(m.server.url).post('/api/auth/request-password-reset', { email: forgetful, redirectTo: '/reset-password' });
   expect(reset.status, JSON.stringify(reset.body)).toBe(200);
   const invite = await c.post(`/api/studios/${studio.body.id}/members`, { email: invitee, role: 'crew' });
   expect(invite.status, JSON.stringify(invite.body)).toBe(201);
@@ -67,18 +36,18 @@ test('SMTP down: a reset and an invitation are accepted, and arrive once each wh
   expect(mailTo(invitee)).toEqual([]);
 
   const back = Date.now();
-  await fakes.smtp.start();
+  await m.fakes.smtp.start();
   await expect.poll(() => resetsTo(forgetful).length + mailTo(invitee).length, { timeout: 60_000, interval: 250 }).toBe(2);
   console.log(`[faults] queued mail delivered ${((Date.now() - back) / 1000).toFixed(1)} s after SMTP returned`);
   // And no second copy follows.
   await new Promise((r) => setTimeout(r, 4_000));
   expect(resetsTo(forgetful).map((m) => m.subject)).toEqual(['Reset your Falloff password']);
   expect(mailTo(invitee).map((m) => m.subject)).toEqual(['Join Queued studio on Falloff']);
-  expect(server.exited()).toBe(false);
+  expect(m.server.exited()).toBe(false);
 }, 120_000);
 
 test('a reset answers 200 only when its mail is queued: with no mail service every reset gets the same 503, account or not', async () => {
-  const noMail = await startChildServer({});
+  const noMail = await m.startServer({ FALLOFF_TEST_SMTP_PORT: '0' });
   try {
     const email = freshEmail('no-mail');
     await new Client(noMail.url).signUp('No Mail', email, 'a fine long password');

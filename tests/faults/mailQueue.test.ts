@@ -2,26 +2,17 @@
 // answers a clear 503 with Retry-After at once (never a hang, never a 500), undoes what it made, and the same
 // request retried once the queue is back makes one thing and delivers one e-mail. The rest of the API keeps
 // working meanwhile. The queue is broken for real, in the test database's pg-boss schema.
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import pg from 'pg';
 import { afterAll, beforeAll, expect, test } from 'vitest';
-import { startFakes, type Fakes } from '../../server/fakes';
-import { startChildServer, type ChildServer } from '../support/child';
 import { TEST_DATABASE_URL } from '../support/env';
 import { Client, freshEmail, type Res } from '../support/http';
-import { startCluster } from '../support/pg';
+import { startMailFaults, type MailFaults } from '../support/mailFaults';
 
-let fakes: Fakes;
-let server: ChildServer;
+let m: MailFaults;
 let sql: pg.Client;
-const s3Dir = mkdtempSync(join(tmpdir(), 'falloff-s3-'));
 
 beforeAll(async () => {
-  startCluster();
-  fakes = await startFakes({ s3Dir });
-  server = await startChildServer({ FALLOFF_TEST_SMTP_PORT: String(fakes.smtp.port) });
+  m = await startMailFaults();
   sql = new pg.Client({ connectionString: TEST_DATABASE_URL });
   await sql.connect();
 }, 90_000);
@@ -30,26 +21,11 @@ afterAll(async () => {
   // Whatever happened, leave the queue's table where pg-boss expects it.
   await sql?.query(`do $$ begin if to_regclass('pgboss.job_parked') is not null then alter table pgboss.job_parked rename to job; end if; end $$`).catch(() => undefined);
   await sql?.end().catch(() => undefined);
-  await server?.stop();
-  await fakes?.close();
-  rmSync(s3Dir, { recursive: true, force: true });
+  await m?.close();
 });
 
-const mailTo = (to: string) => fakes.inbox.list().filter((m) => m.to.includes(to));
-
-async function confirmed(name: string, email: string): Promise<Client> {
-  const c = await new Client(server.url).signUp(name, email, 'a fine long password');
-  const until = Date.now() + 30_000;
-  let link: string | undefined;
-  while (!link && Date.now() < until) {
-    link = mailTo(email).map((m) => m.text.match(/https?:\/\/\S*\/api\/auth\/verify-email[^\s"<>]*/)?.[0]).find(Boolean);
-    if (!link) await new Promise((r) => setTimeout(r, 100));
-  }
-  if (!link) throw new Error(`no confirmation mail to ${email}`);
-  const v = await c.get(new URL(link).pathname + new URL(link).search);
-  expect([200, 302]).toContain(v.status);
-  return c;
-}
+const mailTo = (to: string) => m.mailTo(to);
+const confirmed = (name: string, email: string) => m.confirmed(name, email);
 
 function expectQueue503(r: Res, what: string) {
   expect(r.status, `${what}: ${JSON.stringify(r.body)}`).toBe(503);
@@ -77,7 +53,7 @@ test('queue table gone, database up: 503s with Retry-After, nothing half-made; r
     invite: () => c.post(`/api/studios/${studio}/members`, { email: invitee, role: 'crew' }),
     classInvite: () => c.post(`/api/classes/${klass}/invitations`, { email: student, role: 'student' }),
     crewMail: () => c.post(`/api/setups/${setup}/send`, { to: [crew], attachPdf: false }),
-    reset: () => new Client(server.url).post('/api/auth/request-password-reset', { email: forgetful, redirectTo: '/reset-password' }),
+    reset: () => new Client(m.server.url).post('/api/auth/request-password-reset', { email: forgetful, redirectTo: '/reset-password' }),
   };
   for (const [what, call] of Object.entries(attempts)) expectQueue503(await call(), what);
   const tookMs = Date.now() - t0;
@@ -104,7 +80,7 @@ test('queue table gone, database up: 503s with Retry-After, nothing half-made; r
   expect((await c.get(`/api/studios/${studio}/invitations`)).body.invitations).toHaveLength(1);
   expect((await c.get(`/api/classes/${klass}/invitations`)).body.invitations).toHaveLength(1);
   expect((await c.get(`/api/setups/${setup}/shares`)).body.shares).toHaveLength(1);
-  expect(server.exited()).toBe(false);
+  expect(m.server.exited()).toBe(false);
   console.log(`[faults] queue gone: four 503s in ${tookMs} ms; after its return the retried mail arrived in ${deliveredS.toFixed(1)} s`);
 }, 180_000);
 
@@ -132,4 +108,43 @@ test('queue table locked, database up: the request ends in a 503 within seconds 
   expect(retry.status, JSON.stringify(retry.body)).toBe(201);
   await expect.poll(() => mailTo(invitee).length, { timeout: 60_000, interval: 250 }).toBe(1);
   expect((await c.get(`/api/studios/${studio}/invitations`)).body.invitations).toHaveLength(1);
+}, 180_000);
+
+test('sign-up while the queue refuses: a 503 (the same for a taken address), no account left behind; later the same sign-up works', async () => {
+  const taken = freshEmail('qtaken');
+  await confirmed('Queue Taken', taken);
+  const email = freshEmail('qsignup');
+  const first = `Refused${Date.now().toString(36)}`;
+  const signUp = (address: string) => new Client(m.server.url).post('/api/auth/sign-up/email', { name: `${first} Person`, email: address, password: 'a fine long password' });
+
+  await sql.query('alter table pgboss.job rename to job_parked');
+  let fresh: Res;
+  let existing: Res;
+  try {
+    fresh = await signUp(email);
+    existing = await signUp(taken);
+  } finally {
+    await sql.query('alter table pgboss.job_parked rename to job');
+  }
+  for (const [what, r] of [['new address', fresh], ['taken address', existing]] as const) {
+    expect(r.status, `${what}: ${JSON.stringify(r.body)}`).toBe(503);
+    expect(r.headers.get('retry-after'), what).toMatch(/^\d+$/);
+    expect(r.body.error.code, what).toBe('mail_unavailable');
+  }
+  // Who has an account is not told, even now.
+  expect(existing.body).toEqual(fresh.body);
+  // Nothing is left of the refused account: no user, no personal studio, no way to sign in.
+  expect((await sql.query('select count(*)::int as n from "user" where email = $1', [email])).rows[0].n).toBe(0);
+  expect((await sql.query('select count(*)::int as n from studios where name = $1', [`${first}'s studio`])).rows[0].n).toBe(0);
+  expect((await new Client(m.server.url).post('/api/auth/sign-in/email', { email, password: 'a fine long password' })).status).toBe(401);
+
+  // With the queue back the same sign-up goes through and its confirmation arrives (one).
+  const again = await signUp(email);
+  expect(again.status, JSON.stringify(again.body)).toBe(200);
+  await expect.poll(() => mailTo(email).length, { timeout: 60_000, interval: 250 }).toBe(1);
+  const c = new Client(m.server.url);
+  const link = new URL(mailTo(email)[0]!.text.match(/https?:\/\/\S*\/api\/auth\/verify-email[^\s"<>]*/)![0]);
+  expect([200, 302]).toContain((await c.get(link.pathname + link.search)).status);
+  expect((await sql.query('select email_verified from "user" where email = $1', [email])).rows[0].email_verified).toBe(true);
+  expect(m.server.exited()).toBe(false);
 }, 180_000);

@@ -1,31 +1,32 @@
-// The `components` vitest project: React Native components rendered with @testing-library/react-native
-// (react-test-renderer underneath) in Node. How React Native gets loaded is explained in
-// components.setup.ts, rn-require.ts, rn-babel.ts, vite-plugin-react-native.ts and vite-plugin-worklets.ts.
+// The `components` vitest project: the app's components rendered as users get them, the web flavour
+// (react-native-web into a jsdom document), with @testing-library/react. How modules resolve is explained in
+// rn-require.ts (Metro's web resolution for library code), vite-plugin-react-native.ts (react-native is
+// react-native-web in tests and app code) and components.setup.ts.
 import type { TestProjectInlineConfiguration } from 'vitest/config';
 import { reactNativeBridge } from './vite-plugin-react-native';
-import { workletsTransform } from './vite-plugin-worklets';
 
 export const componentsProject: TestProjectInlineConfiguration = {
-  plugins: [reactNativeBridge(), workletsTransform()],
+  plugins: [reactNativeBridge()],
+  // The app's own platform files as Metro picks them for the web: `X.web.tsx` before `X.tsx`.
+  resolve: { extensions: ['.web.tsx', '.web.ts', '.web.js', '.tsx', '.ts', '.mjs', '.js', '.jsx', '.json'] },
   test: {
     name: 'components',
     include: ['tests/components/**/*.test.tsx'],
-    environment: 'node',
+    environment: 'jsdom',
     // Generous for a loaded 2-core machine: a screen that loads the plan screens' chunk imports it cold.
     testTimeout: 30_000,
-    // The testing library extends a global `expect` and registers hooks through the global `afterEach`.
     globals: true,
     setupFiles: ['tests/setup/components.setup.ts'],
-    // One worker for all files, without a fresh process per file: React Native and its libraries (about a
-    // thousand modules) then load once per run instead of once per file, and a cold run transforms each
-    // file once instead of once per worker. The setup gives every file fresh app modules (vi.resetModules).
+    // One worker for all files, without a fresh process per file: react-native-web, expo-router and their
+    // libraries then load once per run instead of once per file. The setup gives every file fresh app
+    // modules (vi.resetModules) and a clean document.
     isolate: false,
     fileParallelism: false,
     env: { NODE_ENV: 'test' },
     server: {
       deps: {
-        // Loaded by Node itself, so that its `require('react-native')` goes through rn-require.ts and
-        // shares one module cache (one React, one React Native) with everything else.
+        // Loaded by Node itself, so that their `require('react-dom')`, `require('react')` share one module
+        // cache (one React, one react-dom) with react-native-web and the libraries.
         external: [/[\\/]node_modules[\\/]@testing-library[\\/]/],
       },
     },

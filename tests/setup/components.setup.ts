@@ -1,42 +1,44 @@
-// vitest setup file of the `components` project: makes React Native loadable under Node, then runs the
-// same setup Jest users get from React Native and gesture handler.
-
-import './worker-env';
-import { afterAll, afterEach, vi } from 'vitest';
-import { installExpoEnvironment } from './expo-env';
-import { installJestShim } from './jest-shim';
+// vitest setup file of the `components` project: library code resolves as Metro resolves it for the web
+// (rn-require.ts), the testing library's matchers go on `expect`, and every test ends unmounted.
+import { afterAll, afterEach, expect, vi } from 'vitest';
 import { installRequireHooks, requireFromRoot } from './rn-require';
 
 installRequireHooks();
-installJestShim();
 
-// React Native's jest setup: globals (__DEV__, requestAnimationFrame, …) and mocks of the native
-// components and modules. Idempotent per worker: its effects live in Node's module cache and globals,
-// which outlive one test file when the project runs without isolation.
-requireFromRoot('@react-native/jest-preset/jest/setup.js');
-// Gesture handler's mocks of its native module and buttons; must come after React Native's setup.
-requireFromRoot('react-native-gesture-handler/jestSetup.js');
-// What Expo's packages expect of their native runtime (see there).
-installExpoEnvironment();
+// What Metro defines for a development web build.
+(globalThis as { __DEV__?: boolean }).__DEV__ = true;
 
-// The testing library registers its unmount-after-each-test hook when it is first loaded, i.e. in the
-// first test file of a worker only, since Node caches the module (worker-env.ts turns that off); register
-// the same hook for every test file instead. Loading it here also adds its matchers to `expect`.
-const rntl = requireFromRoot('@testing-library/react-native') as typeof import('@testing-library/react-native');
+// React's act() environment flag, as @testing-library/react sets it when it can see a global afterEach.
+(globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
+
+// Pointer capture, which every browser has and jsdom lacks (gesture handler's web side captures the pointer
+// on pointerdown): a capture that keeps nothing, since jsdom dispatches events to their target anyway.
+const proto = Element.prototype as Element & Partial<Pick<Element, 'setPointerCapture' | 'releasePointerCapture' | 'hasPointerCapture'>>;
+proto.setPointerCapture ??= () => {};
+proto.releasePointerCapture ??= () => {};
+proto.hasPointerCapture ??= () => false;
+
+// The testing library looks for a global `jest` to tell whether fake timers are on (waitFor and findBy*
+// then advance them instead of waiting for real time): give it vitest's.
+(globalThis as { jest?: unknown }).jest = { advanceTimersByTime: (ms: number) => vi.advanceTimersByTime(ms) };
+
+// Loaded through Node (components.config.ts makes @testing-library external), so they share react-dom with
+// react-native-web. Node caches them for the worker; cleanup is registered for every file here.
+const rtl = requireFromRoot('@testing-library/react') as typeof import('@testing-library/react');
+const matchers = requireFromRoot('@testing-library/jest-dom/matchers') as typeof import('@testing-library/jest-dom/matchers');
+expect.extend(matchers);
 // findBy*/waitFor poll up to 15 s (not 1 s): a screen that loads the plan screens' chunk on demand
 // (components/workspace.ts) imports it cold in a test, which takes seconds on a loaded 2-core machine.
-rntl.configure({ asyncUtilTimeout: 15_000 });
-// Taken now, before a test can install fake timers (expo-router's renderRouter always does).
-const realSetImmediate = setImmediate;
-afterEach(async () => {
-  await new Promise((resolve) => realSetImmediate(resolve));
-  await rntl.cleanupAsync();
+rtl.configure({ asyncUtilTimeout: 15_000 });
+
+afterEach(() => {
+  rtl.cleanup();
 });
-// Test files share one worker without isolation (components.config.ts), so that React Native loads once.
-// That cache is Node's and stays; vite's registry of app and test modules is emptied for every file, so
-// each file imports the app afresh and its `vi.mock` calls apply to everything it imports.
+// Test files share one worker without isolation (components.config.ts), so that the libraries load once.
+// Node's cache stays; vite's registry of app and test modules is emptied for every file, so each file
+// imports the app afresh and its `vi.mock` calls apply to everything it imports.
 vi.resetModules();
-// And fake timers left on would stall the next file.
+// Fake timers left on would stall the next file.
 afterAll(() => {
   vi.useRealTimers();
 });

@@ -1,14 +1,11 @@
 // Babel for the React Native world, as Node `require` sees it in the components test worker.
 //
-// React Native and its ecosystem ship untranspiled source: Flow (including Flow's component syntax), JSX,
-// ES modules in `.js` files without "type": "module", and some Expo packages ship plain TypeScript.
-// Node can run none of that, so every such file goes through Babel on its way into `require`.
-//
-// Pass 1 is babel-preset-expo (it parses Flow with the Hermes parser, strips types, compiles JSX and
-// modules). React Native's codegen plugin inside it can emit `export` statements after the preset's
-// CommonJS transform has run; when any import/export is left, pass 2 (just the CommonJS transform) turns
-// it into `require`/`exports`. With the versions installed now no file needs pass 2, so it only runs when
-// the output of pass 1 asks for it: about a fifth of the cold cost saved, and still right if that changes.
+// Parts of the Expo and React Native ecosystem ship untranspiled source: ES modules in `.js` files without
+// "type": "module", JSX, and some Expo packages ship plain TypeScript (expo-modules-core, expo). Node can run
+// none of that, so such files go through Babel on their way into `require`: babel-preset-expo for the web,
+// as Metro builds the web target. react-native-web publishes CommonJS (dist/cjs) and is left alone.
+// When any import/export is left after pass 1, pass 2 (just the CommonJS transform) turns it into
+// `require`/`exports`.
 //
 // Output is cached on disk, keyed by file path, mtime and size (a reinstall rewrites every file, so new
 // mtimes), this file's text and the versions of Babel, the preset and the worklets plugin, so only the
@@ -18,11 +15,17 @@ import { mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'no
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { PluginObj, PluginPass, TransformOptions, types as BabelTypes } from '@babel/core';
+
+/** The little of @babel/core's API used here (its type package is not installed). */
+type TransformOptions = Record<string, unknown> & { caller?: Record<string, unknown> };
+type Result = { code?: string | null; ast?: { program: { body: { type: string }[] } } | null } | null;
+type Babel = {
+  transformSync(code: string, options: TransformOptions): Result;
+  transformFromAstSync(ast: unknown, code: string, options: TransformOptions): Result;
+};
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const requireFromRoot = createRequire(join(root, 'package.json'));
-type Babel = typeof import('@babel/core');
 /** Loaded on the first cache miss only: a warm run never needs Babel here. */
 let babelInstance: Babel | undefined;
 const babel = (): Babel => (babelInstance ??= requireFromRoot('@babel/core') as Babel);
@@ -45,8 +48,10 @@ export function isReactNativeWorld(filename: string): boolean {
   return TRANSFORMED.test(filename);
 }
 
+const PLAIN_COMMONJS = /[\\/]node_modules[\\/]react-native-web[\\/]dist[\\/]cjs[\\/]/;
+
 export function shouldTransform(filename: string): boolean {
-  return !transforming && TRANSFORMED.test(filename);
+  return !transforming && TRANSFORMED.test(filename) && !PLAIN_COMMONJS.test(filename);
 }
 
 function version(pkg: string): string {
@@ -62,35 +67,6 @@ const versionKey = [
   ),
 ].join('|');
 
-/**
- * Gives each transformed module that uses the free variable `jest` its own binding, made for that
- * module (see jest-shim.ts): React Native's jest setup and gesture handler's jestSetup.js call
- * `jest.mock('./relative/path')` and `jest.requireActual('../x')`, which Jest resolves from the calling
- * file. Binding per module is exact where a text rewrite of call sites would be a guess.
- */
-function bindJestPerModule({ types: t }: { types: typeof BabelTypes }): PluginObj<PluginPass> {
-  return {
-    name: 'falloff-bind-jest-per-module',
-    visitor: {
-      Program: {
-        exit(path) {
-          if (path.scope.hasBinding('jest') || !path.scope.hasGlobal('jest')) return;
-          // const jest = globalThis.__falloffJestFor(module);
-          path.unshiftContainer(
-            'body',
-            t.variableDeclaration('const', [
-              t.variableDeclarator(
-                t.identifier('jest'),
-                t.callExpression(t.memberExpression(t.identifier('globalThis'), t.identifier('__falloffJestFor')), [t.identifier('module')]),
-              ),
-            ]),
-          );
-        },
-      },
-    },
-  };
-}
-
 const firstPass: TransformOptions = {
   babelrc: false,
   sourceType: 'unambiguous',
@@ -98,11 +74,10 @@ const firstPass: TransformOptions = {
   compact: false,
   comments: false,
   sourceMaps: false,
-  // A development build for iOS, the platform React Native's own jest preset uses. `isDev: true` matters:
-  // with `false` the preset inlines process.env.NODE_ENV = 'production', __DEV__ = false and Platform.OS.
-  caller: { name: 'falloff-vitest', platform: 'ios', engine: 'hermes', isDev: true, isServer: false, isNodeModule: true, supportsStaticESM: false } as TransformOptions['caller'],
+  // A development build for the web, as Metro makes it for the web target. `isDev: true` matters: with
+  // `false` the preset inlines process.env.NODE_ENV = 'production' and __DEV__ = false.
+  caller: { name: 'falloff-vitest', platform: 'web', isDev: true, isServer: false, isNodeModule: true, supportsStaticESM: false },
   presets: [[requireFromRoot.resolve('babel-preset-expo'), { enableBabelRuntime: false }]],
-  plugins: [bindJestPerModule],
   // Kept so that pass 2, when needed, starts from the tree instead of parsing the code again.
   ast: true,
 };

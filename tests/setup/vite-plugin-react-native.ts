@@ -1,37 +1,28 @@
-// `import { View } from 'react-native'` in a test or in app code must not reach Node's ES-module loader:
-// that loader does not go through require hooks, so it would meet React Native's raw Flow source. This
-// plugin resolves 'react-native' to a virtual module that loads it with `require` instead (where
-// rn-require.ts transforms it) and re-exports each public name.
-//
-// The names are read from the `get Name()` getters of react-native's index.js, its public API. Reading a
-// getter loads that module, so each is read once, inside try/catch (a few load native-only code and
-// throw under Node) and with console.warn silenced (a few print deprecation warnings when touched).
+// `import … from 'react-native'` in a test or in app code becomes react-native-web, as Metro resolves it for
+// the web build. It must be the same react-native-web that library code gets through Node's `require`
+// (rn-require.ts), or there would be two StyleSheets and two sets of contexts; so this plugin resolves
+// 'react-native' to a virtual module that loads react-native-web with `require` and re-exports each of its
+// public names (read from the `exports.A = exports.B = … = void 0;` line of its CommonJS index).
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Plugin } from 'vite';
 
-const VIRTUAL_ID = '\0falloff-react-native';
+const VIRTUAL_ID = '\0falloff-react-native-web';
 
 export function publicNames(indexSource: string): string[] {
-  const names = new Set<string>();
-  for (const m of indexSource.matchAll(/^ {2}get ([A-Za-z_$][\w$]*)\(\)/gm)) names.add(m[1]!);
-  return [...names];
+  const line = indexSource.split('\n').find((l) => /^exports\.\w+ = exports\.\w+ = /.test(l)) ?? '';
+  return [...line.matchAll(/exports\.([A-Za-z_$][\w$]*) =/g)].map((m) => m[1]!);
 }
 
 function bridgeSource(root: string): string {
   const requireFromRoot = createRequire(`${root}/package.json`);
-  const names = publicNames(readFileSync(requireFromRoot.resolve('react-native'), 'utf8'));
-  if (names.length < 50) throw new Error(`falloff-react-native: found only ${names.length} public names in react-native/index.js`);
+  const names = publicNames(readFileSync(requireFromRoot.resolve('react-native-web'), 'utf8'));
+  if (names.length < 50) throw new Error(`falloff-react-native-web: found only ${names.length} public names in react-native-web's index`);
   return [
     `import { createRequire } from 'node:module';`,
     `const rn = createRequire(${JSON.stringify(`${root}/package.json`)})('react-native');`,
-    `function read(name) {`,
-    `  const warn = console.warn;`,
-    `  console.warn = () => {};`,
-    `  try { return rn[name]; } catch { return undefined; } finally { console.warn = warn; }`,
-    `}`,
     `export default rn;`,
-    ...names.map((n) => `export const ${n} = read(${JSON.stringify(n)});`),
+    ...names.map((n) => `export const ${n} = rn[${JSON.stringify(n)}];`),
   ].join('\n');
 }
 
@@ -39,7 +30,7 @@ export function reactNativeBridge(): Plugin {
   let root = process.cwd();
   let source: string | undefined;
   return {
-    name: 'falloff-react-native-bridge',
+    name: 'falloff-react-native-web-bridge',
     enforce: 'pre',
     configResolved(config) {
       root = config.root;

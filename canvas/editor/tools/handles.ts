@@ -24,8 +24,8 @@ export type HandleState = { name: 'idle' } | { name: 'aiming'; id: string; key: 
 const hasHandles = (i: Item | undefined): i is Item & { x: number; y: number } => !!i && !i.locked && (i.kind === 'light' || i.kind === 'camera');
 
 /** The screen positions of an item's handles (the camera's view), or null when it has none. */
-export function handlesOf(s: EditorState, id: string): { centre: Point; aim: Point; height: Point } | null {
-  const i = itemById(s, id);
+export function handlesOf(s: EditorState, id: string, item: Item | undefined = itemById(s, id)): { centre: Point; aim: Point; height: Point } | null {
+  const i = item;
   if (!s.camera || s.readOnly || !hasHandles(i)) return null;
   const deg = angleOf(i) ?? 0;
   const r = (deg * Math.PI) / 180;
@@ -74,9 +74,9 @@ export function createHandleTool(): Tool<HandleState> & { claims: (editor: Edito
       const s = editor.getState();
       if (st.name === 'aiming' && s.camera) {
         const at = { x: (e.screen.x - s.camera.tx) / s.camera.scale, y: (e.screen.y - s.camera.ty) / s.camera.scale };
-        editor.dispatch('aimAt', { id: st.id, at, gestureKey: st.key });
+        editor.dispatch('aimAt', { id: st.id, at, gestureKey: st.key, live: true });
       } else if (st.name === 'lifting') {
-        editor.dispatch('setHeight', { id: st.id, heightM: st.startH + (st.startY - e.screen.y) / HEIGHT_PX_PER_M, gestureKey: st.key });
+        editor.dispatch('setHeight', { id: st.id, heightM: st.startH + (st.startY - e.screen.y) / HEIGHT_PX_PER_M, gestureKey: st.key, live: true });
       }
     },
     up(editor) {

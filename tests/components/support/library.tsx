@@ -1,9 +1,9 @@
 // Helpers for rendering the setups library: a stand-in for the API behind `fetch`, and a render inside a
 // QueryClientProvider and expo-router's in-memory router (the library opens setups by route).
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { renderRouter } from 'expo-router/testing-library';
 import type { ReactElement } from 'react';
 import type { ApiError, SetupListResponse, SetupSummary } from '../../../model/api';
+import { renderRouter } from './router';
 
 export const ORIGIN = 'http://falloff.test';
 const STUDIO_ID = '7a0c3c47-2f7e-4d6b-9d7e-1b2c3d4e5f60';

@@ -5,6 +5,7 @@ import { createLightMapCache, lightMap, meter, parseScene, type LightInput, type
 import { contourLines } from '../../../calc/contours';
 import { buildOccluders } from '../../../calc/flatScene';
 import { castShadows } from '../../../calc/shadows';
+import { buildRoom, gather, unitVector } from '../../../calc/room';
 import { transmissionAlong } from '../../../calc/transport';
 
 const flash = (id: string, x: number, y: number, aimDeg: number, over: Partial<LightInput> = {}): LightInput =>
@@ -268,3 +269,108 @@ describe('the map on the meter\'s transport', () => {
   });
 });
 
+
+describe('the map near walls', () => {
+  // An invented portrait room: a softbox key and a bare head washing the pale wall behind the subject.
+  const s: SceneInput = {
+    lights: [
+      { id: 'key', kind: 'flash', x: 3.6, y: 1.6, heightM: 1.9, aimDeg: 145, tiltDeg: -10, output: { type: 'energy', ratedWs: 400 }, powerFraction: 1 / 4, modifier: 'softbox' },
+      { id: 'wash', kind: 'flash', x: 1.4, y: 3.2, heightM: 1.2, aimDeg: 200, output: { type: 'energy', ratedWs: 400 }, powerFraction: 1 / 2, modifier: 'bare-reflector' },
+    ],
+    surfaces: [
+      { id: 'n', x1: 0, y1: 0, x2: 6, y2: 0, colour: '#d8d2c8' },
+      { id: 'e', x1: 6, y1: 0, x2: 6, y2: 5, colour: '#c8c8c8' },
+      { id: 's', x1: 6, y1: 5, x2: 0, y2: 5, colour: '#8a9aa8' },
+      { id: 'w', x1: 0, y1: 5, x2: 0, y2: 0, colour: '#e0ddd5' },
+    ],
+    floor: { x1: 0, y1: 0, x2: 6, y2: 5, colour: '#606060' },
+    ceiling: { heightM: 3, colour: '#f0f0f0' },
+    subject: { x: 2, y: 2.5, heightM: 1.3, facingDeg: 0 },
+    camera: { x: 5, y: 2.5, heightM: 1.3, aimDeg: 180, aperture: 8, shutterS: 1 / 160, iso: 100 },
+  };
+  const grid = { x0: 0, y0: 0, x1: 6, y1: 5, nx: 121, ny: 101 };
+  const cellAt = (x: number, y: number) => Math.round(y / 0.05) * grid.nx + Math.round(x / 0.05);
+  const points: [number, number, number][] = [];
+  for (const d of [0.1, 0.3, 1]) {
+    for (const t of [1, 2.5, 4]) points.push([d, t, d], [6 - d, t, d]);
+    for (const t of [1, 3, 5]) points.push([t, d, d], [t, 5 - d, d]);
+  }
+  // Bounds: the bounce is interpolated between points 0.2 m apart; the wall's light changes fastest within a
+  // few centimetres of it (the wash's hot spot), so 0.1 m from a wall gets the looser bound.
+  const bound = (d: number) => (d < 0.2 ? 0.4 : 0.1);
+
+  it('a flat receptor facing towards, away from and along the walls reads the meter\'s probes at 0.1, 0.3 and 1 m from them', () => {
+    const parsed = parseScene(s);
+    for (const facing of [0, 90, 180, 270]) {
+      const map = lightMap(parsed, { ...grid, facing });
+      const m = meter({ ...parsed, probes: points.map(([x, y], i) => ({ id: `p${i}`, x, y, z: 1.3, facingDeg: facing })) });
+      points.forEach(([x, y, d], i) => {
+        const err = Math.log2(map.luxSeconds[cellAt(x, y)]! / m.probes[i]!.luxSeconds);
+        expect(Math.abs(err), `facing ${facing}° at (${x}, ${y}), ${d} m from a wall`).toBeLessThan(bound(d));
+      });
+    }
+  });
+
+  it('the dome pointed at the camera reads the meter\'s own dome at the same points', () => {
+    const parsed = parseScene({ ...s, options: { receptor: 'dome-camera' } });
+    const map = lightMap(parsed, grid);
+    expect(map.receptor).toBe('dome');
+    meter(parsed);
+    const r = buildRoom(parsed);
+    for (const [x, y, d] of points) {
+      const dome = { x, y, z: 1.3, ...unitVector(5 - x, 2.5 - y, 0), kind: 'dome' as const };
+      const total = gather(r, dome, false).reduce((acc, g) => acc + g.direct + g.bounce, 0);
+      expect(Math.abs(Math.log2(map.luxSeconds[cellAt(x, y)]! / total)), `(${x}, ${y}), ${d} m from a wall`).toBeLessThan(bound(d));
+    }
+  });
+});
+
+describe('the subject\'s body: a torso and a head', () => {
+  // A bare point source 2 m in front of the subject, at the height of the map's plane, so its rays are level and
+  // the shadow's width on the plane is the plan projection of whichever box the plane cuts. The subject faces the light.
+  const body = { widthM: 0.45, depthM: 0.25, topM: 1.75 };
+  const scene = (h: number): SceneInput =>
+    room([flash('a', 1, 2.5, 0, { heightM: h })], {
+      surfaces: [],
+      flags: [],
+      subject: { x: 3, y: 2.5, heightM: 1.6, facingDeg: 180, body },
+      options: { bounce: false },
+    });
+  // Points along x = 5, 2 m behind the subject; 2 mm apart across.
+  const line = (h: number) => lightMap(scene(h), { x0: 5, y0: 2, x1: 5.001, y1: 3, nx: 2, ny: 501, heightM: h, facing: 180 });
+  // Half width of the shadow at x = 5: the box's nearest corners (half width w, at x = 3 − d/2 towards the light)
+  // seen from the light at x = 1: w · (5 − 1) / (3 − d/2 − 1).
+  const halfShadow = (w: number, d: number) => (w * 4) / (2 - d / 2);
+  const edges = (h: number) => {
+    const m = line(h);
+    const dark: number[] = [];
+    for (let j = 0; j < m.ny; j++) if (m.luxSeconds[j * 2]! === 0) dark.push(2 + j * 0.002);
+    return { lo: Math.min(...dark), hi: Math.max(...dark), lit: m.luxSeconds.some((v) => v > 0) };
+  };
+
+  it('at head height the shadow is the head\'s (0.16 m wide, 0.2 m deep), not the shoulders\'', () => {
+    const e = edges(1.6);
+    const half = halfShadow(0.08, 0.2);
+    expect(e.lit).toBe(true);
+    expect(e.lo).toBeCloseTo(2.5 - half, 2);
+    expect(e.hi).toBeCloseTo(2.5 + half, 2);
+  });
+
+  it('at chest height the shadow is the torso\'s (the body\'s width and depth)', () => {
+    const e = edges(1.2);
+    const half = halfShadow(0.225, 0.25);
+    expect(e.lo).toBeCloseTo(2.5 - half, 2);
+    expect(e.hi).toBeCloseTo(2.5 + half, 2);
+  });
+
+  it('above the head nothing is shaded; a body too short for a head is one box', () => {
+    expect(edges(1.85).lo).toBe(Infinity);
+    const short = lightMap(
+      room([flash('a', 1, 2.5, 0, { heightM: 0.5 })], { surfaces: [], flags: [], subject: { x: 3, y: 2.5, heightM: 0.5, facingDeg: 180, body: { widthM: 0.45, depthM: 0.25, topM: 0.55 } }, options: { bounce: false } }),
+      { x0: 5, y0: 2, x1: 5.001, y1: 3, nx: 2, ny: 501, heightM: 0.5, facing: 180 },
+    );
+    const dark: number[] = [];
+    for (let j = 0; j < short.ny; j++) if (short.luxSeconds[j * 2]! === 0) dark.push(2 + j * 0.002);
+    expect(Math.max(...dark) - 2.5).toBeCloseTo(halfShadow(0.225, 0.25), 2);
+  });
+});

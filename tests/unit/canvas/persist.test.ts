@@ -3,7 +3,7 @@
 // choices, and a save failing as the page closes (kept, and shown on return).
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { createEditor, type Editor } from '../../../canvas/editor/editor';
-import { AUTOSAVE_DELAY_MS, BACKOFF_FIRST_MS, createPersist, flushAll, keptKey, type PersistClient, type SaveBody } from '../../../canvas/editor/persist';
+import { AUTOSAVE_DELAY_MS, BACKOFF_FIRST_MS, attachToPage, createPersist, flushAll, isOpenInEditor, keptKey, type PersistClient, type SaveBody } from '../../../canvas/editor/persist';
 import { demoSetups } from '../../../db/seed-setups';
 import type { SetupDetail } from '../../../model/api';
 
@@ -216,5 +216,24 @@ describe('autosave', () => {
     await flushAll();
     expect(calls.length).toBe(1);
     p.dispose();
+  });
+});
+
+describe('which setups count as open in an editor', () => {
+  it('only a persist attached to the page by a mounted editor, not one a discarded render made', () => {
+    const editor = createEditor(doc);
+    const { c } = client();
+    // A render React throws away made this persist and never mounted it.
+    const orphan = createPersist(editor, { setup: { ...setup, id: 'orphan-1' }, client: c, storage: null, queue: null });
+    expect(isOpenInEditor('orphan-1')).toBe(false);
+    // The mounted editor attaches its own; leaving detaches it.
+    const target = new EventTarget() as unknown as Parameters<typeof attachToPage>[1];
+    const mounted = createPersist(editor, { setup: { ...setup, id: 'open-1' }, client: c, storage: null, queue: null });
+    const detach = attachToPage(mounted, target);
+    expect(isOpenInEditor('open-1')).toBe(true);
+    detach();
+    mounted.dispose();
+    expect(isOpenInEditor('open-1')).toBe(false);
+    orphan.dispose();
   });
 });

@@ -4,7 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import { GELS } from '../../../calc';
 import { sideScene, sideTransform } from '../../../components/side/elevation';
-import { SIDE_LABEL_PX, sideLabels } from '../../../components/side/sideLabels';
+import { SIDE_LABEL_PX, scaleHeights, sideLabels } from '../../../components/side/sideLabels';
+import type { SetupDocument } from '../../../model/document';
 import { demoSetups } from '../../../db/seed-setups';
 import { lightInk } from '../../../drawing/glyphs';
 import { overlaps } from '../../../drawing/labels';
@@ -55,4 +56,31 @@ it('draws each light in its gel’s colours, as the plan does', () => {
     }
   const teal = demoSetups.flatMap((d) => d.document.items).find((i) => i.kind === 'light' && i.gel !== 'none');
   expect(teal).toBeTruthy();
+});
+
+it('a head at a scale height keeps its place and label; the scale label moves to the other end or gives way', () => {
+  const d = demoSetups[1]!.document;
+  const light = d.items.find((i) => i.kind === 'light')!;
+  // Cut along a light raised to 2 m: its head sits at the left end of the 2 m line, where the scale names it.
+  const doc = { ...d, items: d.items.map((i) => (i.id === light.id ? { ...i, heightM: 2, tiltDeg: -20 } : i)) } as SetupDocument;
+  const scene = sideScene(doc, light.id)!;
+  expect(scaleHeights(scene)).toContain(2);
+  for (const box of [{ w: 300, h: 200 }, { w: 390, h: 260 }]) {
+    const labels = sideLabels(scene, box, 'metric', []);
+    const head = labels.find((l) => l.id === light.id);
+    expect(head?.role).toBe('head');
+    // Where the scale's "2 m" used to be drawn (fixed, just above the line's left end): over the head's label.
+    const t = sideTransform(scene, box);
+    const at = t.toPx({ u: scene.u0, z: 2 });
+    const old = { cx: at.x + 2 + 12, cy: at.y - 3 - 4, hw: 12, hh: 6.6 };
+    const head0 = scene.shapes.find((sh) => sh.id === light.id);
+    if (head0?.kind !== 'light') throw new Error('the light is not in the view');
+    const c = t.toPx(head0.at);
+    const marks = [...labels.filter((l) => l.role === 'head').map((l) => l.box), { cx: c.x, cy: c.y, hw: 8, hh: 8 }];
+    expect(marks.some((m) => overlaps(m, old))).toBe(true);
+    const two = labels.find((l) => l.id === 'scale-2');
+    if (two) for (const m of marks) expect(overlaps(two.box, m)).toBe(false);
+    // The other whole metres are still named.
+    expect(labels.some((l) => l.role === 'scale')).toBe(true);
+  }
 });

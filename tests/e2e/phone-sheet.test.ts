@@ -1,0 +1,56 @@
+// The phone's sheet (390 × 844, touch): a tap on one of its tabs while it rests at its lowest shows that tab's
+// content — the sheet rises to half height — and a tab tapped while it is higher leaves it where it is.
+import { describe, expect, inject, it } from 'vitest';
+import type { Locator, Page } from 'playwright-core';
+import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
+import { dragSheet, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
+
+const base = inject('baseUrl');
+const browser = sharedBrowser();
+const screenH = viewports.phone.height;
+
+const sheetTop = async (page: Page) => (await page.getByTestId('sheet-handle').boundingBox())!.y;
+/** How much of an element shows between the sheet's top and the screen's bottom, px. */
+async function shownInSheet(page: Page, loc: Locator) {
+  const box = await loc.first().boundingBox().catch(() => null);
+  if (!box) return 0;
+  const top = Math.max(box.y, await sheetTop(page));
+  return Math.max(0, Math.min(box.y + box.height, screenH) - top);
+}
+
+describe('the phone sheet', () => {
+  it('rises from its lowest height to show a tapped tab', async () => {
+    const context = await browser().newContext({ viewport: viewports.phone, hasTouch: true, isMobile: true });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    expect((await context.request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: { origin: base } })).status()).toBe(200);
+    const created = await context.request.post(`${base}/api/setups`, { data: { title: 'Sheet tabs' }, headers: { origin: base } });
+    const { id } = (await created.json()) as { id: string };
+    await page.goto(`${base}/setups/${id}`);
+    await page.getByTestId('plan').waitFor({ timeout: 30_000 });
+    // The sheet opens at its lowest: only the meter's line and the tabs show.
+    await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeGreaterThan(screenH - 160);
+    await shot(page, 'phone-sheet-peek');
+
+    await page.getByRole('tab', { name: 'Side', exact: true }).tap();
+    await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeLessThan(screenH - 300);
+    await expect.poll(() => shownInSheet(page, page.getByText('Add a subject and a camera to see the setup from the side.')), { timeout: 10_000 }).toBeGreaterThan(10);
+    await shot(page, 'phone-sheet-side-tab');
+
+    // Raised higher by hand, a tab tap does not lower it.
+    await dragSheet(page, true);
+    const high = await sheetTop(page);
+    expect(high).toBeLessThan(screenH * 0.3);
+    await page.getByRole('tab', { name: 'Meter', exact: true }).tap();
+    await page.waitForTimeout(600);
+    expect(Math.abs((await sheetTop(page)) - high)).toBeLessThan(4);
+
+    // Lowered again, the Setup tab rises to show the room's settings.
+    await dragSheet(page, false);
+    await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeGreaterThan(screenH - 160);
+    await page.getByRole('tab', { name: 'Setup', exact: true }).tap();
+    await expect.poll(() => shownInSheet(page, page.getByLabel('Indoors, under a ceiling')), { timeout: 10_000 }).toBeGreaterThan(10);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
