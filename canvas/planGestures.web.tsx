@@ -18,7 +18,7 @@ export function PlanGestures({ handlers, children }: { handlers: PlanGestureHand
     return attachPlanPointer(el, () => current.current);
   }, []);
   return (
-    <View ref={ref} style={{ position: 'absolute', left: 0, top: 0, right: 0, bottom: 0 }} collapsable={false}>
+    <View ref={ref} testID="plan-pointer-surface" style={{ position: 'absolute', left: 0, top: 0, right: 0, bottom: 0 }} collapsable={false}>
       {children}
     </View>
   );
