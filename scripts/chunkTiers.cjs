@@ -5,8 +5,10 @@
 // downloads before anything else. So the sign-in page would pay for every module any two signed-in screens share.
 // `placeShared` runs after Expo's split and before the chunks' file names (content hashes) are computed, and
 // keeps in `__common` only what a light chunk needs — the root layout, the share link's route file and the
-// not-found page. Every other common module goes to the lazy chunks that need it (the signed-out forms and the
-// session client to the signed-out group's layout and pages, so the share page gets neither):
+// not-found page — and what two group layouts both need: Expo Router fetches every group's layout at start, on
+// every page (the share page and the sign-in page download both `(app)` and `(auth)` layouts), so a module
+// placed in each would be downloaded twice (the session client, better-auth, was). Every other common module
+// goes to the lazy chunks that need it (the signed-out forms to the signed-out group's pages):
 //   - not to a chunk that always loads after another one that needs it too (its "parent": a group's layout
 //     for the routes in that group, and for a tier the lower chunk for the upper one);
 //   - to each of the remaining ones otherwise. A module in two chunks is defined by the first that loads
@@ -67,13 +69,15 @@ function placeShared(chunks, rules, chunksByPath) {
     if (!layout) continue;
     for (const c of lazy) if (c !== layout && !parent.has(c) && entryPaths(c).some((p) => p.includes(`/${g}`))) parent.set(c, layout);
   }
+  // Every group layout loads on every page (see the header).
+  const layouts = new Set((rules.groups ?? []).map((g) => lazy.find((c) => entryEndsWith(c, `${g}_layout.tsx`))).filter(Boolean));
   const entryModules = new Set(lazy.flatMap((c) => [...c.entries]));
   let modules = 0;
   let copies = 0;
   for (const m of [...common.deps]) {
     if (entryModules.has(m)) continue;
     const users = lazy.filter((c) => closures.get(c).has(m));
-    if (!users.length || users.some(isLight)) continue;
+    if (!users.length || users.some(isLight) || users.filter((c) => layouts.has(c)).length > 1) continue;
     const hasParentUser = (c) => {
       for (let p = parent.get(c), n = 0; p && n < 20; p = parent.get(p), n++) if (users.includes(p)) return true;
       return false;

@@ -110,6 +110,9 @@ describe('first load', () => {
     for (const heavy of ['/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl']) {
       expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
     }
+    // Every group layout loads on every page; what two of them share comes once (scripts/chunkTiers.cjs).
+    const twice = sources.filter((s, i) => !s.includes('empty-module') && sources.indexOf(s) !== i);
+    expect(twice).toEqual([]);
     expect(errors).toEqual([]);
     await context.close();
   });

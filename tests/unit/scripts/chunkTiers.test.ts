@@ -124,6 +124,33 @@ describe('layerChunks', () => {
     expect(paths(account)).toEqual(['/app/app/(app)/account.tsx', '/app/cards.tsx']);
   });
 
+  it('keeps common what two group layouts need (every page loads every group layout): one copy, not two', () => {
+    const g = graphOf({
+      '/app/app/(app)/_layout.tsx': { imports: ['/app/session.ts', '/app/nav.tsx'] },
+      '/app/app/(auth)/_layout.tsx': { imports: ['/app/session.ts'] },
+      '/app/app/(auth)/sign-in.tsx': { imports: ['/app/session.ts', '/app/forms.ts'] },
+      '/app/app/(auth)/sign-up.tsx': { imports: ['/app/forms.ts'] },
+      '/app/session.ts': {},
+      '/app/nav.tsx': {},
+      '/app/forms.ts': {},
+    });
+    const mk = (name: string, entry: string, deps: string[], flags: Partial<Chunk> = {}): Chunk => ({
+      name, entries: new Set(entry ? [g.dependencies.get(entry)!] : []), deps: new Set(deps.map((d) => g.dependencies.get(d)!)), graph: g, isAsync: true, isVendor: false, isEntry: false, sealed: false, ...flags,
+    });
+    const common = mk('/__common.js', '', ['/app/session.ts', '/app/forms.ts'], { isAsync: false, isVendor: true });
+    const appLayout = mk('app-layout', '/app/app/(app)/_layout.tsx', ['/app/app/(app)/_layout.tsx', '/app/nav.tsx']);
+    const authLayout = mk('auth-layout', '/app/app/(auth)/_layout.tsx', ['/app/app/(auth)/_layout.tsx']);
+    const signIn = mk('sign-in', '/app/app/(auth)/sign-in.tsx', ['/app/app/(auth)/sign-in.tsx']);
+    const signUp = mk('sign-up', '/app/app/(auth)/sign-up.tsx', ['/app/app/(auth)/sign-up.tsx']);
+    const moved = placeShared(new Set([common, appLayout, authLayout, signIn, signUp]), { groups: ['app/(app)/', 'app/(auth)/'] });
+    expect(moved).toEqual({ modules: 1, copies: 2 });
+    expect(paths(common)).toEqual(['/app/session.ts']);
+    for (const c of [appLayout, authLayout, signIn]) expect(paths(c)).not.toContain('/app/session.ts');
+    // What only one group's pages share still goes to those pages, not to every page.
+    expect(paths(signIn)).toContain('/app/forms.ts');
+    expect(paths(signUp)).toContain('/app/forms.ts');
+  });
+
   it('keeps a module common when a lazy chunk outside the tier also needs it', () => {
     const { chunks, set } = build();
     // The sign-in route starts to draw a plan: the plan must stay where the sign-in page gets it.
