@@ -5,6 +5,9 @@
 // - On the web, zod's table of every language's error messages (`z.locales`, two thirds of zod's bytes) resolves
 //   to an empty module: the app words its own messages and zod's English default stays. Its JSON Schema
 //   conversion and `z.compile` (never used in the browser) resolve to web/zodWithoutJsonSchema.js.
+// - On the web, culori resolves to web/culoriCss.js: only the colour spaces CSS writes are registered.
+// - On the web, calc's reference contour engine through d3-contour (contourEngine: 'd3', used by tests and
+//   benchmarks in Node) resolves to web/contoursD3Absent.js: the app draws with the fast tracer.
 // - Route chunks in tiers (scripts/chunkTiers.cjs): the read-only link's screen is a chunk of its own below the
 //   other plan screens, so the share page does not download the editor.
 // - For `npm run dev` only: the dev server hands /api/* to the Express server, so the app keeps one origin in
@@ -18,9 +21,13 @@ require('./scripts/chunkTiers.cjs').installChunkTiers();
 const webEmpty = /^react-native-(reanimated|worklets)(\/|$)/;
 const zodWebOnly = /^\.\.?\/(core\/)?(compile|to-json-schema|json-schema-processors|json-schema-generator|from-json-schema)\.js$/;
 const zodStandIn = require.resolve('./web/zodWithoutJsonSchema.js');
+const culoriCss = require.resolve('./web/culoriCss.js');
+const d3ContoursAbsent = require.resolve('./web/contoursD3Absent.js');
 const upstreamResolve = config.resolver.resolveRequest;
 config.resolver.resolveRequest = (context, moduleName, platform) => {
   if (platform === 'web' && webEmpty.test(moduleName)) return { type: 'empty' };
+  if (platform === 'web' && moduleName === 'culori') return { type: 'sourceFile', filePath: culoriCss };
+  if (platform === 'web' && moduleName === './contours-d3' && /[\\/]calc[\\/]lightmap\.ts$/.test(context.originModulePath)) return { type: 'sourceFile', filePath: d3ContoursAbsent };
   if (platform === 'web' && /\/locales\/index(\.c?js)?$/.test(moduleName) && /[\\/]node_modules[\\/]zod[\\/]/.test(context.originModulePath)) return { type: 'empty' };
   if (platform === 'web' && zodWebOnly.test(moduleName) && /[\\/]node_modules[\\/]zod[\\/]v4[\\/]/.test(context.originModulePath)) return { type: 'sourceFile', filePath: zodStandIn };
   return (upstreamResolve ?? context.resolveRequest)(context, moduleName, platform);

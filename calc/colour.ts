@@ -29,9 +29,13 @@ export function relativeLuminance(rgb: Rgb): number {
   return 0.2126 * rgb[0] + 0.7152 * rgb[1] + 0.0722 * rgb[2];
 }
 
-/** True when culori can read the string as a colour (any CSS colour syntax). */
+/**
+ * True when the string is a CSS colour culori can read (CSS Color 4 syntax). culori's own `color(--space …)`
+ * syntax is refused: the web build carries only the spaces CSS writes (web/culoriCss.js), and the browser
+ * and the server must accept the same colours.
+ */
 export function isColour(s: string): boolean {
-  return parse(s) !== undefined;
+  return !/^\s*color\(\s*--/i.test(s) && parse(s) !== undefined;
 }
 
 /** Linear sRGB of a CSS colour string; throws on an unreadable colour (the scene schema rejects those first). */

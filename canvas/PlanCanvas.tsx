@@ -5,7 +5,6 @@
 // children drawn in screen space with the same camera (`usePlanCamera`).
 import { createContext, memo, useCallback, useContext, useEffect, useMemo, useRef, useSyncExternalStore } from 'react';
 import { Platform, Pressable, StyleSheet, Text, View, type LayoutChangeEvent } from 'react-native';
-import { Gesture, GestureDetector } from 'react-native-gesture-handler';
 import Svg, { G } from 'react-native-svg';
 import { useShallow } from 'zustand/react/shallow';
 import type { LightMapResult } from '../calc';
@@ -19,6 +18,7 @@ import { useEditor, useEditorApi } from './editor/react';
 import { itemById, type PointerKind } from './editor/state';
 import { Beam } from './layers/Beams';
 import { attachWebPinch } from './webPinch';
+import { PlanGestures, type PlanGestureHandlers } from './planGestures';
 import { beamClipOf, sketchBeam } from '../drawing/plan';
 import { sketchItem } from '../drawing/glyphs';
 import { createDragLayer } from './dragLayer';
@@ -118,17 +118,11 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
     editor.dispatch('setViewport', { w, h, insetBottom });
   };
 
-  // The last pointer position the page saw over the plan (web), in the plan box's pixels.
-  const lastPointer = useRef<Point | null>(null);
-  // Where the page saw the press (web): the pan's own begin event can already be the first move.
-  const pressedAt = useRef<Point | null>(null);
-  const gesture = useMemo(() => {
+  const gestures = useMemo((): PlanGestureHandlers => {
     // A mouse on a wide screen is precise and draws boxes; elsewhere presses are treated as a finger.
     const kind = (): PointerKind => (editor.getState().input.boxSelect ? 'mouse' : 'touch');
-    let downAt: Point | null = null;
     // Pointer moves are coalesced per animation frame: the editor (and React) see at most one move a frame,
-    // the newest, and the DOM is written once a frame, so the gesture library's per-event bounds check
-    // reads a layout that is already clean. A release flushes the waiting move first.
+    // the newest, and the DOM is written once a frame. A release flushes the waiting move first.
     let waiting: Point | null = null;
     let frame: number | null = null;
     const flush = () => {
@@ -145,62 +139,24 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
         flush();
       });
     };
-    const drag = Gesture.Pan()
-      .withTestId('plan-drag')
-      .runOnJS(true)
-      .maxPointers(1)
-      .minDistance(3)
-      // Where the finger went down: on the web the pan's translation only counts from activation, so the
-      // press point is taken at touch-down, not worked back from the translation.
-      .onBegin((e) => {
-        downAt = { x: e.x, y: e.y };
-      })
-      .onStart((e) => {
-        const from = pressedAt.current ?? downAt ?? { x: e.x - e.translationX, y: e.y - e.translationY };
-        editor.pointer.down({ screen: from, pointer: kind() });
-        editor.pointer.move({ screen: lastPointer.current ?? { x: e.x, y: e.y }, pointer: kind() });
-      })
-      // On the web the pan reports the position of the move before last; the page's own last pointer
-      // position (below) is where the hand is, so the glyph follows it and the release lands where it was let go.
-      .onUpdate((e) => queueMove(lastPointer.current ?? { x: e.x, y: e.y }))
-      .onEnd((e) => {
-        waiting = lastPointer.current ?? { x: e.x, y: e.y };
-        flush();
-      })
-      .onFinalize((e) => {
-        flush();
-        editor.pointer.up({ screen: { x: e.x, y: e.y }, pointer: kind() });
-      });
     // A pinch keeps the plan point first under the fingers under them (pinchCamera), panning as they move;
-    // two fingers that only slide pan until a pinch takes over.
+    // two fingers that only slide pan until a pinch takes over. (On the web: webPinch.ts.)
     let pinchStart: { camera: Camera; focal: Point } | null = null;
-    const twoFingerPan = Gesture.Pan()
-      .enabled(Platform.OS !== 'web')
-      .runOnJS(true)
-      .minPointers(2)
-      .onChange((e) => {
-        if (!pinchStart) editor.dispatch('pan', { dx: e.changeX, dy: e.changeY });
-      });
-    // (On the web the plan reads two touch points itself: webPinch.ts.)
-    const pinch = Gesture.Pinch()
-      .enabled(Platform.OS !== 'web')
-      .runOnJS(true)
-      .onStart((e) => {
-        const camera = editor.getState().camera;
-        pinchStart = camera ? { camera, focal: { x: e.focalX, y: e.focalY } } : null;
-      })
-      .onUpdate((e) => {
-        if (pinchStart) editor.dispatch('setCamera', { camera: pinchCamera(pinchStart.camera, pinchStart.focal, e.scale, { x: e.focalX, y: e.focalY }) });
-      })
-      .onFinalize(() => {
-        pinchStart = null;
-      });
-    const press = Gesture.Tap()
-      .runOnJS(true)
-      .maxDistance(3)
-      .onEnd((e, ok) => {
-        if (!ok) return;
-        const screen = { x: e.x, y: e.y };
+    return {
+      dragStart: (from, to) => {
+        editor.pointer.down({ screen: from, pointer: kind() });
+        editor.pointer.move({ screen: to, pointer: kind() });
+      },
+      dragMove: queueMove,
+      dragRelease: (at) => {
+        waiting = at;
+        flush();
+      },
+      dragEnd: (at) => {
+        flush();
+        editor.pointer.up({ screen: at, pointer: kind() });
+      },
+      tap: (screen) => {
         const tapHandler = onTapRef.current;
         if (tapHandler) {
           const s = editor.getState();
@@ -209,13 +165,23 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
           return;
         }
         editor.pointer.tap({ screen, pointer: kind() });
-      });
-    // A long press adds the item under the finger to the selection (multi-select on touch).
-    const hold = Gesture.LongPress()
-      .runOnJS(true)
-      .minDuration(450)
-      .onStart((e) => editor.pointer.hold({ screen: { x: e.x, y: e.y }, pointer: 'touch' }));
-    return Gesture.Simultaneous(Gesture.Exclusive(drag, hold, press), pinch, twoFingerPan);
+      },
+      // A long press adds the item under the finger to the selection (multi-select on touch).
+      hold: (screen) => editor.pointer.hold({ screen, pointer: 'touch' }),
+      pinchStart: (focal) => {
+        const camera = editor.getState().camera;
+        pinchStart = camera ? { camera, focal } : null;
+      },
+      pinchUpdate: (scale, focal) => {
+        if (pinchStart) editor.dispatch('setCamera', { camera: pinchCamera(pinchStart.camera, pinchStart.focal, scale, focal) });
+      },
+      pinchEnd: () => {
+        pinchStart = null;
+      },
+      twoFingerPan: (dx, dy) => {
+        if (!pinchStart) editor.dispatch('pan', { dx, dy });
+      },
+    };
   }, [editor]);
 
   // Wheel zoom on the web (and trackpad pinch, which browsers send as ctrl+wheel).
@@ -229,30 +195,11 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
       const r = el.getBoundingClientRect();
       editor.dispatch('zoom', { factor: Math.exp(-e.deltaY * (e.ctrlKey ? 0.01 : 0.0015)), at: { x: e.clientX - r.left, y: e.clientY - r.top } });
     };
-    let box: DOMRect | null = null;
-    const onDown = (e: PointerEvent) => {
-      box = el.getBoundingClientRect();
-      lastPointer.current = { x: e.clientX - box.left, y: e.clientY - box.top };
-      pressedAt.current = lastPointer.current;
-    };
-    const onMove = (e: PointerEvent) => {
-      if (box && e.buttons) lastPointer.current = { x: e.clientX - box.left, y: e.clientY - box.top };
-    };
-    const onUp = (e: PointerEvent) => {
-      if (box) lastPointer.current = { x: e.clientX - box.left, y: e.clientY - box.top };
-      box = null;
-    };
     el.addEventListener('wheel', onWheel, { passive: false });
     const detachPinch = attachWebPinch(el, editor);
-    window.addEventListener('pointerdown', onDown, { capture: true, passive: true });
-    window.addEventListener('pointermove', onMove, { capture: true, passive: true });
-    window.addEventListener('pointerup', onUp, { capture: true, passive: true });
     return () => {
       detachPinch();
       el.removeEventListener('wheel', onWheel);
-      window.removeEventListener('pointerdown', onDown, { capture: true });
-      window.removeEventListener('pointermove', onMove, { capture: true });
-      window.removeEventListener('pointerup', onUp, { capture: true });
     };
   }, [editor]);
 
@@ -262,7 +209,7 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
       {camera ? <MapTint source={lightMap} camera={camera} /> : null}
       {camera ? (
         <DragLayerContext.Provider value={dragLayer}>
-        <GestureDetector gesture={gesture}>
+        <PlanGestures handlers={gestures}>
           <View style={StyleSheet.absoluteFill} collapsable={false}>
             <Svg width={size.w} height={size.h}>
               <G transform={`translate(${camera.tx} ${camera.ty}) scale(${camera.scale})`}>
@@ -282,7 +229,7 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
               <Handles theme={theme} units={units} />
             </Svg>
           </View>
-        </GestureDetector>
+        </PlanGestures>
         </DragLayerContext.Provider>
       ) : null}
       {camera ? <A11yLayer ids={shownIds} /> : null}

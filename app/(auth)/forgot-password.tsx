@@ -1,5 +1,4 @@
 // Forgotten password: the account's address gets a link that sets a new one.
-import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'expo-router';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -8,14 +7,16 @@ import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
-import { forgotPasswordBody } from '../../model/forms';
+import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
+import type { forgotPasswordBody } from '../../model/forms';
 
 type Values = z.infer<typeof forgotPasswordBody>;
 
 export default function ForgotPassword() {
   const [sent, setSent] = useState<string | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
-  const { control, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(forgotPasswordBody), defaultValues: { email: '' } });
+  useWarmForms();
+  const { control, handleSubmit, formState } = useForm<Values>({ resolver: lazyResolver((s) => s.forgotPasswordBody), defaultValues: { email: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
     const { error } = await authClient.requestPasswordReset({ email: v.email, redirectTo: '/reset-password' });

@@ -1,5 +1,4 @@
 // Set a new password from the e-mailed link (the link arrives here with ?token=, or ?error= when it is spent).
-import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useLocalSearchParams } from 'expo-router';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -8,7 +7,8 @@ import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
-import { resetPasswordBody } from '../../model/forms';
+import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
+import type { resetPasswordBody } from '../../model/forms';
 
 type Values = z.infer<typeof resetPasswordBody>;
 
@@ -16,7 +16,8 @@ export default function ResetPassword() {
   const { token, error: linkError } = useLocalSearchParams<{ token?: string; error?: string }>();
   const [done, setDone] = useState(false);
   const [failure, setFailure] = useState<string | null>(null);
-  const { control, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(resetPasswordBody), defaultValues: { password: '' } });
+  useWarmForms();
+  const { control, handleSubmit, formState } = useForm<Values>({ resolver: lazyResolver((s) => s.resetPasswordBody), defaultValues: { password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
     const { error } = await authClient.resetPassword({ newPassword: v.password, token: token ?? '' });

@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'expo-router';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -8,14 +7,16 @@ import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
 import { useReturnPath } from '../../hooks/returnPath';
-import { signInBody } from '../../model/forms';
+import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
+import type { signInBody } from '../../model/forms';
 
 type Values = z.infer<typeof signInBody>;
 
 export default function SignIn() {
   const next = useReturnPath();
   const [failure, setFailure] = useState<string | null>(null);
-  const { control, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(signInBody), defaultValues: { email: '', password: '' } });
+  useWarmForms();
+  const { control, handleSubmit, formState } = useForm<Values>({ resolver: lazyResolver((s) => s.signInBody), defaultValues: { email: '', password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
     const { error } = await authClient.signIn.email({ email: v.email, password: v.password });

@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, router, useLocalSearchParams } from 'expo-router';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -8,7 +7,8 @@ import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { authClient } from '../../hooks/auth';
 import { useReturnPath } from '../../hooks/returnPath';
-import { signUpBody } from '../../model/forms';
+import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
+import type { signUpBody } from '../../model/forms';
 
 type Values = z.infer<typeof signUpBody>;
 
@@ -20,7 +20,8 @@ export default function SignUp() {
   const { sent } = useLocalSearchParams<{ sent?: string }>();
   const [sentState, setSentTo] = useState<string | null>(null);
   const sentTo = sentState ?? (typeof sent === 'string' && sent ? sent : null);
-  const { control, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(signUpBody), defaultValues: { name: '', email: '', password: '' } });
+  useWarmForms();
+  const { control, handleSubmit, formState } = useForm<Values>({ resolver: lazyResolver((s) => s.signUpBody), defaultValues: { name: '', email: '', password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
     // The confirmation link signs the person in and opens ?next= (the signed-out layout sends them on).

@@ -2,14 +2,13 @@
 // overlap: the one later in the document. (A light set down on another is the one the user
 // means to reach; picking the one beneath would select, and then edit, the wrong light.)
 import { act, render } from '@testing-library/react';
-import { State } from 'react-native-gesture-handler';
-import { fireGestureHandler, getByGestureTestId } from 'react-native-gesture-handler/jest-utils';
 import { createEditor, type Editor } from '../../canvas/editor/editor';
 import { toScreen } from '../../canvas/editor/camera';
 import { EditorContext } from '../../canvas/editor/react';
 import { PlanCanvas } from '../../canvas/PlanCanvas';
 import { graphiteTheme } from '../../canvas/views';
 import { parseDocument } from '../../model/document';
+import { firePlanPointer } from './support/planPointer';
 
 const W = 900;
 const H = 700;
@@ -37,13 +36,13 @@ function mount(order: ['under', 'over'] | ['over', 'under']) {
   return editor;
 }
 
-/** A press at a screen point, held and moved a few pixels: the plan's drag gesture, as gesture handler delivers it. */
+/** A press at a screen point, held and moved a few pixels: the plan's drag gesture, from the page's pointer events. */
 async function press(editor: Editor, at: { x: number; y: number }) {
   await act(async () => {
-    fireGestureHandler(getByGestureTestId('plan-drag'), [
-      { state: State.BEGAN, x: at.x, y: at.y },
-      { state: State.ACTIVE, x: at.x + 4, y: at.y },
-      { state: State.END, x: at.x + 4, y: at.y },
+    firePlanPointer([
+      { type: 'down', x: at.x, y: at.y },
+      { type: 'move', x: at.x + 4, y: at.y },
+      { type: 'up', x: at.x + 4, y: at.y },
     ]);
   });
   return editor.getState().selection;

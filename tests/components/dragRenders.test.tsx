@@ -3,8 +3,6 @@
 // however fast the meter's results come. And the plan hands the editor at most one pointer move a frame.
 import { act, render } from '@testing-library/react';
 import { Profiler, type ProfilerOnRenderCallback } from 'react';
-import { fireGestureHandler, getByGestureTestId } from 'react-native-gesture-handler/jest-utils';
-import { State } from 'react-native-gesture-handler';
 import { createEditor, type Editor } from '../../canvas/editor/editor';
 import { toScreen } from '../../canvas/editor/camera';
 import { EditorContext, PANEL_PACE_MS } from '../../canvas/editor/react';
@@ -14,6 +12,7 @@ import { graphiteTheme } from '../../canvas/views';
 import { Inspector } from '../../components/editor/Inspector';
 import { LiveMeterPanel, LiveSuggestedPower } from '../../components/editor/LiveMeter';
 import { demoSetups } from '../../db/seed-setups';
+import { firePlanPointer } from './support/planPointer';
 
 // Every glyph drawn, by item id (the plan draws each item through ItemView).
 const glyphRenders = vi.hoisted(() => new Map<string, number>());
@@ -134,13 +133,13 @@ describe('a drag on the plan', () => {
     };
     // One gesture delivered within one frame: the start, three moves, the release.
     act(() => {
-      fireGestureHandler(getByGestureTestId('plan-drag'), [
-        { state: State.BEGAN, x: from.x, y: from.y },
-        { state: State.ACTIVE, x: from.x + 5, y: from.y },
-        { x: from.x + 10, y: from.y },
-        { x: from.x + 15, y: from.y },
-        { x: from.x + 20, y: from.y },
-        { state: State.END, x: from.x + 30, y: from.y },
+      firePlanPointer([
+        { type: 'down', x: from.x, y: from.y },
+        { type: 'move', x: from.x + 5, y: from.y },
+        { type: 'move', x: from.x + 10, y: from.y },
+        { type: 'move', x: from.x + 15, y: from.y },
+        { type: 'move', x: from.x + 20, y: from.y },
+        { type: 'up', x: from.x + 30, y: from.y },
       ]);
     });
     // The start places the item under the hand at once; the moves within the frame wait and are replaced by

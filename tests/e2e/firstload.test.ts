@@ -67,15 +67,22 @@ describe('first load', () => {
     }
 
     // What the page's scripts were built from: no plan, editor, classes or crew screens, no reanimated, no
-    // gesture handler, no colour science, no setup document model (react-native-svg stays: the icons use it).
+    // gesture handler, no colour science, no setup document model, no zod (the form's schema arrives with the
+    // first touch: hooks/lazyResolver.ts), no react-native-svg (the web's glyphs are plain SVG).
     await expect.poll(() => page.getByRole('button', { name: 'Sign in' }).isVisible()).toBe(true);
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
     const sources = sourcesOf(scripts);
     expect(sources.length).toBeGreaterThan(100);
-    for (const heavy of ['react-native-reanimated', 'react-native-gesture-handler', 'node_modules/culori', '/components/editor/', '/components/classes/', '/components/crew/', '/components/photos/', '/canvas/PlanCanvas', '/model/document.ts', '/calc/', 'zod/v4/locales/index']) {
+    for (const heavy of ['react-native-reanimated', 'react-native-gesture-handler', 'node_modules/culori', '/components/editor/', '/components/classes/', '/components/crew/', '/components/photos/', '/canvas/PlanCanvas', '/model/document.ts', '/calc/', 'zod/v4/locales/index', 'node_modules/zod/', 'react-native-svg', '/model/forms.ts']) {
       // (The editor's small form fields serve the account page too.)
       expect(sources.filter((s) => s.includes(heavy) && !s.endsWith('/components/editor/fields.tsx')), heavy).toEqual([]);
     }
+    // The form still checks with the shared schema, loaded once the visitor touches the page.
+    await page.getByLabel('E-mail').fill('not an address');
+    await page.getByLabel('Password').fill('x');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect.poll(() => page.getByText('enter an e-mail address').isVisible(), { timeout: 30_000 }).toBe(true);
+    expect(scripts.some((s) => /\/formSchemas-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(errors).toEqual([]);
     await context.close();
   });
@@ -98,9 +105,14 @@ describe('first load', () => {
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
     // (The meter's and the frame's workers, bundled apart from the app, have no map there.)
     const sources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
-    for (const heavy of ['/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/']) {
+    // Nor gesture handler (the plan reads pointer events on the web), the forms library, or culori's colour
+    // spaces CSS does not write (web/culoriCss.js).
+    for (const heavy of ['/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl']) {
       expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
     }
+    // Every group layout loads on every page; what two of them share comes once (scripts/chunkTiers.cjs).
+    const twice = sources.filter((s, i) => !s.includes('empty-module') && sources.indexOf(s) !== i);
+    expect(twice).toEqual([]);
     expect(errors).toEqual([]);
     await context.close();
   });

@@ -14,7 +14,7 @@ import {
   srgbToLinear,
   surfaceReflectance,
 } from '../../../calc';
-import { culoriHexOfLinear, linearRgbToHex, xyOfLinearRgb } from '../../../calc/colour';
+import { culoriHexOfLinear, isColour, linearRgbToHex, xyOfLinearRgb } from '../../../calc/colour';
 
 const toLrgb = converter('lrgb');
 
@@ -107,5 +107,12 @@ describe('colour temperature', () => {
     expect(hueHex([0.5, 0.5, 0.5])).toBe('#ffffff');
     const xy = xyOfLinearRgb(kelvinToLinearRgb(3200));
     expect(xy!.x).toBeGreaterThan(0.4);
+  });
+});
+
+describe('which colours are read', () => {
+  it('reads CSS colour syntax and refuses culori’s own color(--space …) on every platform', () => {
+    for (const c of ['#f0b24a', 'white', 'rgb(255 128 0)', 'oklch(0.65 0.2 40)', 'color(display-p3 1 0 0)']) expect(isColour(c)).toBe(true);
+    for (const c of ['color(--hsv 30 0.5 0.5)', ' COLOR( --luv 50 10 10)', 'not a colour', '', '#12']) expect(isColour(c)).toBe(false);
   });
 });
