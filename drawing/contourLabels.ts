@@ -60,7 +60,13 @@ export function placeContourLabels(levels: readonly ContourLevel[], o: { pxPerM:
         const chord = Math.hypot(x1 - x0, y1 - y0);
         const straight = chord / len;
         if (straight < STRAIGHT) continue;
-        const c = { x: (x0 + x1) / 2, y: (y0 + y1) / 2 };
+        // On the line itself, halfway along the stretch (the chord's midpoint would float off a bowed line).
+        const half = along[i]! + len / 2;
+        let m = i;
+        while (m < j - 1 && along[m + 1]! < half) m++;
+        const seg = along[m + 1]! - along[m]!;
+        const t = seg > 0 ? (half - along[m]!) / seg : 0;
+        const c = { x: line[m]![0] + (line[m + 1]![0] - line[m]![0]) * t, y: line[m]![1] + (line[m + 1]![1] - line[m]![1]) * t };
         const away = nearestLight(c);
         if (away < clear) continue;
         let deg = (Math.atan2(y1 - y0, x1 - x0) * 180) / Math.PI;
