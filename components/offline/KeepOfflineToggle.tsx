@@ -3,6 +3,7 @@
 import { useState } from 'react';
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import { colours, fonts, radius, space } from '../../constants/theme';
+import { formatWhen } from '../../model/format';
 import { dropOffline, keepOffline, useKeptSetup, useOnline } from '../../hooks/offline';
 import { ErrorText } from '../ui';
 
@@ -29,7 +30,7 @@ export function KeepOfflineToggle({ setupId, title, version, paper }: { setupId:
       ? 'Removing from this device…'
       : 'Storing the plan, crew sheet and frame on this device…'
     : on
-      ? `On this device since ${new Date(kept.at).toLocaleString()}: opens without signal.`
+      ? `On this device since ${formatWhen(kept.at)}: opens without signal.`
       : online
         ? 'Store the plan, crew sheet and frame on this device to open them without signal.'
         : 'Needs a connection to store it.';
