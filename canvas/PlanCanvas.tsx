@@ -314,6 +314,7 @@ const Marker = memo(function Marker({ id }: { id: string }) {
       accessibilityRole="button"
       accessibilityLabel={accessibleName(item)}
       accessibilityState={{ selected }}
+      aria-pressed={selected}
       onFocus={() => editor.dispatch('select', { ids: [id] })}
       onPress={() => {
         editor.dispatch('select', { ids: [id] });

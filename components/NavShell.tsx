@@ -29,6 +29,8 @@ export function NavShell({ children }: { children: ReactNode }) {
           accessibilityRole="link"
           accessibilityLabel={d.label}
           accessibilityState={{ selected: active }}
+          // react-native-web reads aria-* props, not accessibilityState: the page a link leads to is the current one.
+          aria-current={active ? 'page' : undefined}
           // Link's asChild hands the style to the DOM as is on web, so it must be one object.
           style={StyleSheet.flatten([wide ? s.railItem : s.barItem, active && wide && s.railActive])}
         >

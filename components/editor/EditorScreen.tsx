@@ -206,7 +206,7 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
           <>
             <View style={s.parts} role="tablist" accessibilityLabel="Parts of the setup">
               {setupParts.map((p) => (
-                <Pressable key={p.id} role="tab" accessibilityState={{ selected: setupPart === p.id }} accessibilityLabel={p.label} onPress={() => setSetupPart(p.id)} style={[s.part, setupPart === p.id && s.partOn]}>
+                <Pressable key={p.id} role="tab" accessibilityState={{ selected: setupPart === p.id }} aria-selected={setupPart === p.id} accessibilityLabel={p.label} onPress={() => setSetupPart(p.id)} style={[s.part, setupPart === p.id && s.partOn]}>
                   <Text style={[s.partText, setupPart === p.id && { color: colours.accent }]}>{p.label}</Text>
                 </Pressable>
               ))}
@@ -279,7 +279,7 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
               <MeterPeek meter={meter} />
               <View style={s.tabs} role="tablist">
                 {tabs.map((t) => (
-                  <Pressable key={t.id} role="tab" accessibilityState={{ selected: tab === t.id }} accessibilityLabel={t.label} onPress={() => showTab(t.id)} style={[s.tab, tab === t.id && s.tabOn]}>
+                  <Pressable key={t.id} role="tab" accessibilityState={{ selected: tab === t.id }} aria-selected={tab === t.id} accessibilityLabel={t.label} onPress={() => showTab(t.id)} style={[s.tab, tab === t.id && s.tabOn]}>
                     <Text style={[s.tabText, tab === t.id && { color: colours.accent }]}>{t.label}</Text>
                   </Pressable>
                 ))}
@@ -399,7 +399,7 @@ function TopBar({ persist, readOnly, wide, onOpenKit }: { persist: Persist; read
 
 function IconButton({ label, text, onPress, disabled, active }: { label: string; text: string; onPress: () => void; disabled?: boolean; active?: boolean }) {
   return (
-    <Pressable accessibilityRole="button" accessibilityLabel={label} accessibilityState={{ disabled, selected: active }} disabled={disabled} onPress={onPress} style={[s.icon, active && { borderColor: colours.accent }, disabled && { opacity: 0.35 }]}>
+    <Pressable accessibilityRole="button" accessibilityLabel={label} accessibilityState={{ disabled, selected: active }} aria-pressed={active === undefined ? undefined : active} disabled={disabled} onPress={onPress} style={[s.icon, active && { borderColor: colours.accent }, disabled && { opacity: 0.35 }]}>
       <Text style={[s.iconText, active && { color: colours.accent }]}>{text}</Text>
     </Pressable>
   );

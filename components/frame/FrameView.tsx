@@ -29,6 +29,7 @@ export function FrameView({ doc, stepIndex, paneWidth, onSkinTone, testID = 'fra
               accessibilityRole="button"
               accessibilityLabel={`Skin tone ${SKIN_TONES[t].label}`}
               accessibilityState={{ selected: subject.skinTone === t }}
+              aria-pressed={subject.skinTone === t}
               onPress={() => onSkinTone(t)}
               style={[s.swatch, { backgroundColor: swatch(t) }, subject.skinTone === t && s.swatchOn]}
             />
@@ -84,7 +85,7 @@ export function Toggles({ look, setLook, onEnlarge, onClose }: { look: Look; set
 
 function Chip({ label, a11y, on, onPress }: { label: string; a11y: string; on: boolean; onPress: () => void }) {
   return (
-    <Pressable accessibilityRole="button" accessibilityLabel={a11y} accessibilityState={{ selected: on }} onPress={onPress} style={[s.chip, on && s.chipOn]}>
+    <Pressable accessibilityRole="button" accessibilityLabel={a11y} accessibilityState={{ selected: on }} aria-pressed={on} onPress={onPress} style={[s.chip, on && s.chipOn]}>
       <Text style={[s.chipText, on && { color: colours.accent }]}>{label}</Text>
     </Pressable>
   );

@@ -37,6 +37,7 @@ export function SetupCard({ setup, section, maxWidth, actions, pickedNo = null }
             accessibilityRole="link"
             accessibilityHint={deleted ? 'restore it to open it' : pickedNo !== null ? 'adds it to the shoot day, or takes it out' : 'opens the setup'}
             accessibilityState={pickedNo !== null ? { selected: pickedNo > 0 } : undefined}
+            aria-selected={pickedNo !== null ? pickedNo > 0 : undefined}
             disabled={deleted}
             onPress={() => actions.onOpen(setup)}
             style={{ flex: 1 }}

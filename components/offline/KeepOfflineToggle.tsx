@@ -41,6 +41,7 @@ export function KeepOfflineToggle({ setupId, title, version, paper }: { setupId:
         accessibilityLabel="Keep offline"
         accessibilityState={{ checked: on, disabled: busy || (!on && !online), busy }}
         aria-checked={on}
+        aria-busy={busy}
         disabled={busy || (!on && !online) || kept === undefined}
         onPress={() => void toggle()}
         style={s.row}

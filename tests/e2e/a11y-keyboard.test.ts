@@ -50,6 +50,10 @@ describe('keyboard: skip link and focus after Delete', () => {
     const ids = await page.locator('[data-testid="plan"] [data-testid^="item-"]:not([data-testid^="item-glyph-"])').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!));
     const first = (await focused(page))!;
     expect(ids[0]).toBe(first);
+    // Focus selects it, and the plan says which item is selected (aria-pressed: react-native-web drops
+    // accessibilityState); the others say they are not.
+    await expect.poll(() => page.getByTestId(first).getAttribute('aria-pressed'), { timeout: 10_000 }).toBe('true');
+    expect(await page.getByTestId(ids[1]!).getAttribute('aria-pressed')).toBe('false');
     await page.keyboard.press('Delete');
     // The item is gone and the keyboard's focus is on the item after it (not lost to the page's start).
     await expect.poll(() => page.locator(`[data-testid="${first}"]`).count(), { timeout: 10_000 }).toBe(0);

@@ -35,6 +35,9 @@ describe('the phone sheet', () => {
 
     await page.getByRole('tab', { name: 'Side', exact: true }).tap();
     await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeLessThan(screenH - 300);
+    // The chosen tab is said to be chosen (aria-selected: react-native-web drops accessibilityState), and only it.
+    await expect.poll(() => page.getByRole('tab', { name: 'Side', exact: true, selected: true }).count(), { timeout: 10_000 }).toBe(1);
+    expect(await page.getByRole('tab', { name: 'Meter', exact: true, selected: false }).count()).toBe(1);
     await expect.poll(() => shownInSheet(page, page.getByText('Add a subject and a camera to see the setup from the side.')), { timeout: 10_000 }).toBeGreaterThan(10);
     await shot(page, 'phone-sheet-side-tab');
 
