@@ -1,4 +1,5 @@
 // Setup queries. Callers (server/routes) have already checked the caller's role. Every list is one query.
+import { isDeepStrictEqual } from 'node:util';
 import { and, arrayContains, asc, desc, eq, gt, ilike, inArray, isNotNull, isNull, or, sql, type Placeholder, type SQL } from 'drizzle-orm';
 import type { SetupDetail, SetupSaved, SetupSort, SetupSummary, TagCount } from '../model/api';
 import { CURRENT_SCHEMA_VERSION, parseDocument, type SetupDocument } from '../model/document';
@@ -285,6 +286,26 @@ export async function createSetup(
 }
 
 export type SetupChanges = { title?: string; notes?: string; tags?: string[]; document?: SetupDocument; isTemplate?: boolean };
+
+/**
+ * Whether a save refused for its version asked for nothing new: the state recorded at `fromVersion` with these
+ * changes applied is the current state (title, notes, tags and document; a template mark is never judged so).
+ * Then the sender's copy, once it takes the current version, matches the server's in full and nothing of anyone's
+ * is lost — e.g. the same queued change sent by two senders of one device after a reconnect. False when the
+ * version's state is not recorded (history pruned) or anything differs.
+ */
+export async function alreadyApplied(db: Db, id: string, fromVersion: number, c: SetupChanges, current: SetupDetail): Promise<boolean> {
+  if (c.isTemplate !== undefined && c.isTemplate !== current.isTemplate) return false;
+  const [base] = await db
+    .select({ title: setupVersions.title, notes: setupVersions.notes, tags: setupVersions.tags, document: setupVersions.document })
+    .from(setupVersions)
+    .where(and(eq(setupVersions.setupId, id), eq(setupVersions.version, fromVersion)));
+  if (!base) return false;
+  const wanted = { title: c.title ?? base.title, notes: c.notes ?? base.notes, tags: c.tags ?? base.tags, document: c.document ?? base.document };
+  const now = { title: current.title, notes: current.notes, tags: current.tags, document: current.document };
+  // Through JSON both sides: the stored document went through jsonb (key order, no undefined).
+  return isDeepStrictEqual(JSON.parse(JSON.stringify(wanted)), JSON.parse(JSON.stringify(now)));
+}
 
 /**
  * Save changes made from version `fromVersion`, atomically, in one statement: the UPDATE matches only while

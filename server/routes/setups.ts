@@ -9,6 +9,7 @@ import {
   duplicateSetup,
   getSetupAccess,
   getSetupDetail,
+  alreadyApplied,
   getSetupDetailObject,
   listSetups,
   restoreDeletedSetup,
@@ -128,6 +129,11 @@ export function setupRoutes(db: Db) {
     // Nothing matched: someone else saved first, or it was deleted meanwhile (410). Nothing was overwritten.
     checkSetup(await getSetupAccess(db, id, user.id), 'write');
     const current = await getSetupDetailObject(db, id, user.id);
+    // The same changes sent twice from one base (two senders on one device after a reconnect): already applied.
+    if (await alreadyApplied(db, id, version, changes, current!)) {
+      const { document: _document, role: _role, studioName: _studioName, ownerName: _ownerName, ...saved } = current!;
+      return void res.setHeader('Already-Applied', 'true').json(saved);
+    }
     throw new HttpError(409, 'version_conflict', `this setup was saved by someone else since version ${version}; it is now at version ${current!.version}`, { current });
   });
 

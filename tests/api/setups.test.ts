@@ -63,6 +63,23 @@ describe('create, read, save', () => {
     expect(stored.body.document).toEqual(s.document);
   });
 
+  it('the same changes sent again from the same base (a second sender on one device) are already applied: 200, not a 409; anything else from that base is still a 409', async () => {
+    const s = await newSetup(me.client, { title: 'Sent by two' });
+    const doc = documentWith(2);
+    const first = await me.client.put(`/api/setups/${s.id}`, { version: 1, document: doc, notes: 'Flag the key.' });
+    expect(first.status).toBe(200);
+    const again = await me.client.put(`/api/setups/${s.id}`, { version: 1, document: doc, notes: 'Flag the key.' });
+    expect(again.status, JSON.stringify(again.body)).toBe(200);
+    expect(again.headers.get('already-applied')).toBe('true');
+    expect(again.body).toMatchObject({ id: s.id, version: 2, notes: 'Flag the key.' });
+    expect((await me.client.get(`/api/setups/${s.id}`)).body.version).toBe(2);
+    // Part of it only: the sender's copy would still lack the notes, so it must hear of the conflict.
+    expect((await me.client.put(`/api/setups/${s.id}`, { version: 1, document: doc })).status).toBe(409);
+    // Something else from the old base: a conflict, as ever.
+    expect((await me.client.put(`/api/setups/${s.id}`, { version: 1, document: doc, notes: 'Other words.' })).status).toBe(409);
+    expect((await me.client.get(`/api/setups/${s.id}`)).body).toMatchObject({ version: 2, notes: 'Flag the key.' });
+  });
+
   it('history keeps every distinct state; a save that changes nothing adds no history row', async () => {
     const s = await newSetup(me.client, { title: 'Draft' });
     await me.client.put(`/api/setups/${s.id}`, { version: 1, title: 'Draft two' });
