@@ -191,19 +191,20 @@ function Ratios({ m }: { m: MeterResult }) {
       {bg ? (
         <View style={s.reading}>
           <Text style={s.readingLabel}>Background in the frame</Text>
-          <View style={{ alignItems: 'flex-end' }}>
-            <View style={{ flexDirection: 'row', alignItems: 'center', gap: 6 }}>
+          {/* Shrinks and wraps beside its label: three channels' stops overran a phone's width. */}
+          <View style={{ alignItems: 'flex-end', flexShrink: 1, marginLeft: space.sm }}>
+            <View style={{ flexDirection: 'row', alignItems: 'center', gap: 6, flexShrink: 1 }}>
               {bg.recorded.hex ? <View style={[s.swatch, { backgroundColor: bg.recorded.hex }]} /> : null}
-              <Text style={s.readingValue} testID="meter-background-recorded">
+              <Text style={[s.readingValue, { flexShrink: 1, textAlign: 'right' }]} testID="meter-background-recorded">
                 {toneWords(bg.recorded)}
               </Text>
             </View>
             {bg.range ? (
-              <Text style={s.readingDetail} testID="meter-background-range">
+              <Text style={[s.readingDetail, { textAlign: 'right' }]} testID="meter-background-range">
                 across the frame: {toneWords(bg.range.darkest)} to {toneWords(bg.range.brightest)}
               </Text>
             ) : null}
-            <Text style={s.readingDetail}>R G B vs a correctly exposed mid-grey</Text>
+            <Text style={[s.readingDetail, { textAlign: 'right' }]}>R G B vs a correctly exposed mid-grey</Text>
           </View>
         </View>
       ) : null}

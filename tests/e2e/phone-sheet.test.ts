@@ -82,6 +82,11 @@ describe('the phone sheet', () => {
         { timeout: 10_000 },
       )
       .toBeGreaterThan(150);
+    // The background's reading in the frame fits the phone's width (three channels' stops used to run off it).
+    for (const id of ['meter-background-recorded', 'meter-background-range']) {
+      const b = (await page.getByTestId(id).boundingBox())!;
+      expect(b.x + b.width, id).toBeLessThanOrEqual(viewports.phone.width);
+    }
     // The frame's tab opens at its top: the whole picture shows under the tabs.
     await page.getByRole('tab', { name: 'Frame', exact: true }).tap();
     await expect.poll(() => page.getByRole('tabpanel', { name: 'Frame' }).evaluate((el) => el.scrollTop), { timeout: 10_000 }).toBe(0);
