@@ -1,15 +1,17 @@
-// The frame view as the editor mounts it: reads the plan from the editor's store, sets the subject's skin
-// tone through the store's update action (so it is saved and undoable like any edit).
+// The frame view as the editor mounts it: reads the plan from the editor's store — the live plan while a hand
+// drags (the gesture's moves are not in the document until it ends), so the frame follows the drag with draft
+// pictures — and sets the subject's skin tone through the store's update action (saved and undoable like any edit).
 import { useContext } from 'react';
 import { useWindowDimensions } from 'react-native';
 import type { SkinTone } from '../../calc/frame/scene';
 import { EditorContext, useEditor } from '../../canvas/editor/react';
+import { liveDoc } from '../../canvas/editor/state';
 import { space } from '../../constants/theme';
 import { FrameView } from './FrameView';
 
 export function EditorFrame({ stepIndex, wide, readOnly }: { stepIndex?: number; wide: boolean; readOnly: boolean }) {
   const store = useContext(EditorContext);
-  const doc = useEditor((s) => s.doc);
+  const doc = useEditor(liveDoc);
   const { width } = useWindowDimensions();
   const subject = doc.items.find((i) => i.kind === 'subject');
   const paneWidth = wide ? 340 - 2 * space.md : Math.min(640, width - 2 * space.md);

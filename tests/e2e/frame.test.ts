@@ -63,6 +63,17 @@ describe('the frame view', () => {
         await refined(page, 'frame-picture-large');
         await page.screenshot({ path: join(artifactsDir, 'frame-wide-enlarged.png') });
         await page.getByRole('button', { name: 'Close the large frame' }).click();
+        // Dragging a light redraws the frame while the hand still holds it (draft pictures), not only at release.
+        await refined(page, 'frame-picture');
+        const src = () => page.getByTestId('frame-picture-image').locator('img').getAttribute('src');
+        const before = await src();
+        const kick = (await page.getByTestId('item-kick').boundingBox())!;
+        await page.mouse.move(kick.x + kick.width / 2, kick.y + kick.height / 2);
+        await page.mouse.down();
+        for (let k = 1; k <= 12; k++) await page.mouse.move(kick.x + kick.width / 2 + 4 * k, kick.y + kick.height / 2 + 2 * k);
+        await expect.poll(() => page.getByTestId('frame-picture-quality').textContent(), { timeout: 30_000 }).toBe('draft');
+        await expect.poll(src, { timeout: 30_000 }).not.toBe(before);
+        await page.mouse.up();
       }
     }
     expect(workerUrls.some((u) => u.endsWith('/workers/frame.js'))).toBe(true);
