@@ -385,15 +385,7 @@ export function directLight(L: RoomLight, occ: Occluders, r: FieldReceptor): Dir
   if (cosOff <= COS_EPSILON && L.modifier.backSpill <= 0) return directResult(base, 0, base.transmission);
   const unshaded = areaUnshaded(L, face, r, cosOff);
   if (unshaded <= 0) return directResult(base, 0, base.transmission);
-  // Transmission from a few points of the face.
-  let t = 0;
-  for (const [a, b] of SAMPLE_FRACTIONS) {
-    const sx = L.px + face.u[0] * a + face.v[0] * b;
-    const sy = L.py + face.u[1] * a + face.v[1] * b;
-    const sz = L.pz + face.u[2] * a + face.v[2] * b;
-    t += transmissionAlong(occ, sx, sy, sz, r.x, r.y, r.z);
-  }
-  t /= SAMPLE_FRACTIONS.length;
+  const t = faceTransmission(L, face, occ, r);
   return directResult(base, unshaded * t, t);
 }
 
@@ -434,6 +426,11 @@ export function directLux(L: RoomLight, occ: Occluders, r: FieldReceptor): numbe
   if (cosOff <= COS_EPSILON && L.modifier.backSpill <= 0) return 0;
   const unshaded = areaUnshaded(L, face, r, cosOff);
   if (unshaded <= 0) return 0;
+  return unshaded * faceTransmission(L, face, occ, r);
+}
+
+/** Transmission from a big face to a receptor: the mean over a few points of the face (SAMPLE_FRACTIONS). */
+function faceTransmission(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): number {
   let t = 0;
   for (const [a, b] of SAMPLE_FRACTIONS) {
     const sx = L.px + face.u[0] * a + face.v[0] * b;
@@ -441,8 +438,7 @@ export function directLux(L: RoomLight, occ: Occluders, r: FieldReceptor): numbe
     const sz = L.pz + face.u[2] * a + face.v[2] * b;
     t += transmissionAlong(occ, sx, sy, sz, r.x, r.y, r.z);
   }
-  t /= SAMPLE_FRACTIONS.length;
-  return unshaded * t;
+  return t / SAMPLE_FRACTIONS.length;
 }
 
 function prepareRoomLights(scene: Scene, occ: Occluders): RoomLight[] {
