@@ -1,7 +1,7 @@
 // The crew sheet panel and the photos panel against a stand-in API behind fetch: what crew and editors are
 // offered, the sheet's contents summary, and a result photo's settings beside the meter's prediction.
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { render, screen } from '@testing-library/react';
+import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { ReactElement } from 'react';
 import { CrewSheetPanel } from '../../components/crew/CrewSheetPanel';
@@ -55,8 +55,9 @@ describe('CrewSheetPanel', () => {
     // background, with an <img> for the browser's own image actions once it is loading).
     const preview = screen.getByTestId('crew-sheet-preview');
     expect(preview).toHaveAttribute('aria-label', expect.stringMatching(/^The plan as printed on the crew sheet: Stage 8\.00 m × 6\.00 m/));
-    const shown = preview.querySelector('img')?.getAttribute('src') ?? /url\("(.*)"\)/.exec(preview.querySelector<HTMLElement>('[style*="background-image"]')?.style.backgroundImage ?? '')?.[1];
-    expect(shown).toBe(`/api/setups/${SETUP}/plan.png?width=900&v=4`);
+    // react-native-web sets the image's address once its loader has started (a later task on a loaded machine).
+    const shown = () => preview.querySelector('img')?.getAttribute('src') ?? /url\("(.*)"\)/.exec(preview.querySelector<HTMLElement>('[style*="background-image"]')?.style.backgroundImage ?? '')?.[1];
+    await waitFor(() => expect(shown()).toBe(`/api/setups/${SETUP}/plan.png?width=900&v=4`), { timeout: 5_000 });
     for (const id of ['download-pdf', 'download-png', 'download-svg']) expect(screen.getByTestId(id)).toBeInTheDocument();
     expect(await screen.findByText('No links yet.')).toBeInTheDocument();
     expect(screen.queryByTestId('make-share-link')).toBeNull();
