@@ -1,7 +1,9 @@
 // One connection pool per process, and the Drizzle handle over it.
 //
 // PostgreSQL may restart or be unreachable for a while: an idle connection it ends raises an 'error' on the
-// pool, which must be handled (an unhandled one ends the process). The pool then simply opens new connections
+// pool, which must be handled (an unhandled one ends the process). A connection that is lent out (a transaction
+// between two of its queries) has no listener of the pool's, so every connection gets one of its own for its whole
+// life: its error then reaches whoever holds it as a failed query, never the process. The pool then simply opens new connections
 // for the next queries; until the database answers again those fail at once (or after CONNECT_TIMEOUT_MS) and
 // the API turns them into 503s (server/errors.ts, isDatabaseUnavailable).
 import { sql } from 'drizzle-orm';
@@ -22,6 +24,9 @@ export function createDb(url = process.env.DATABASE_URL, opts: { onError?: (err:
   if (!url) throw new Error('DATABASE_URL is not set (the scripts in scripts/ set it; see README).');
   const pool = new pg.Pool({ connectionString: url, max: Number(process.env.PG_POOL_MAX ?? 10), connectionTimeoutMillis: CONNECT_TIMEOUT_MS });
   pool.on('error', (err) => opts.onError?.(err));
+  // The pool reports an idle connection's error above (through its own listener, taken off while the connection is
+  // lent out); a lent-out one's error fails the holder's next query, and this listener keeps it from being unhandled.
+  pool.on('connect', (client) => client.on('error', () => undefined));
   const db = drizzle(pool, { schema, casing: 'snake_case' });
   return { db, pool };
 }
