@@ -3,6 +3,8 @@
 // along each wall as a strip on the wall's camera side (canvas/meter/mapNodes.ts), and each level labelled at
 // most once where its line is long and straight, clear of the lights, the items and their labels
 // (drawing/contourLabels.ts, placed here at the plan's zoom). The tint under them is HeatCanvas, drawn beneath the SVG.
+// While a hand drags on the plan the labels step aside (the lines move under the hand about 30 times a second, and
+// placing their labels anew each time costs the frames the glyph needs); they come back where they fit on release.
 import { memo, useMemo } from 'react';
 import { G } from 'react-native-svg';
 import type { LightMapResult } from '../../calc';
@@ -18,15 +20,17 @@ export const LightMapLayer = memo(function LightMapLayer({ map, ink, units }: { 
   const items = useEditor((s) => s.doc.items);
   const stage = useEditor((s) => s.doc.stage);
   const scale = useEditor((s) => s.camera?.scale ?? 80);
+  const dragging = useEditor((s) => s.drag !== null);
   const lines = useMemo(() => lightMapNodes(map, ink, { labels: false }), [map, ink]);
   const labels = useMemo(() => {
+    if (dragging) return null;
     const itemLabels = placeLabels(items, { pxPerM: scale, units, bounds: labelBounds(stage) });
     return g({}, ...contourLabelNodes(map, ink, { pxPerM: scale, items, itemLabels, units }));
-  }, [map, ink, items, stage, scale, units]);
+  }, [map, ink, items, stage, scale, units, dragging]);
   return (
     <G pointerEvents="none">
       <SketchView node={lines} />
-      <SketchView node={labels} />
+      {labels && <SketchView node={labels} />}
     </G>
   );
 });

@@ -3,6 +3,9 @@
 // changes wait and only the newest is sent next, so a drag never queues work and the glyph never waits.
 // When the hand stops (no change for a little while), a result for an older document is not shown: the
 // next one, for the document as it stands, is — so the meter is at most one update behind the glyph.
+// While a hand drags on the plan, jobs start at most every GESTURE_GAP_MS: the glyph moves every frame, and the
+// light map and panels that each result redraws (contours, tint, labels, the frame's draft) follow at about half
+// that rate, so their drawing does not take the frames the glyph needs.
 import { createStore, type StoreApi } from 'zustand';
 import type { SetupDocument } from '../../model/document';
 import { computeReadings, type Readings } from '../../model/setupReadings';
@@ -16,6 +19,8 @@ export type Meter = StoreApi<MeterState> & { setOptions: (o: Partial<MeterOption
 
 /** A change younger than this means the hand is still moving. */
 const SETTLE_MS = 40;
+/** During a pointer gesture, the least time between the starts of two jobs (about 30 results a second). */
+export const GESTURE_GAP_MS = 33;
 
 export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEngine = defaultEngine(), now: () => number = () => Date.now()): Meter {
   let options = opts;
@@ -26,9 +31,23 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
   let dirty = false;
   let lastChange = now();
   let disposed = false;
+  let sentAt = -Infinity;
+  let paced: ReturnType<typeof setTimeout> | null = null;
 
   const send = () => {
     if (disposed) return;
+    const wait = editor.getState().drag ? sentAt + GESTURE_GAP_MS - now() : 0;
+    if (wait > 0) {
+      // Too soon after the last job while a hand drags: the newest document goes when the gap is over.
+      running = true;
+      paced ??= setTimeout(() => {
+        paced = null;
+        sentAt = -Infinity;
+        send();
+      }, wait);
+      return;
+    }
+    sentAt = now();
     running = true;
     dirty = false;
     const doc = liveDoc(editor.getState());
@@ -61,6 +80,7 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
     },
     dispose: () => {
       disposed = true;
+      if (paced) clearTimeout(paced);
       unsubscribe();
       engine.dispose();
     },

@@ -12,6 +12,7 @@ import { graphiteTheme } from '../../canvas/views';
 import { Inspector } from '../../components/editor/Inspector';
 import { LiveMeterPanel, LiveSuggestedPower } from '../../components/editor/LiveMeter';
 import { demoSetups } from '../../db/seed-setups';
+import { formatStops } from '../../model/units';
 import { firePlanPointer } from './support/planPointer';
 
 // Every glyph drawn, by item id (the plan draws each item through ItemView).
@@ -82,6 +83,11 @@ describe('a drag on the plan', () => {
     const from = at(editor, 'rimR');
     const transforms = () => new Set(Array.from(m.view.container.querySelectorAll('[transform]')).map((e) => e.getAttribute('transform') ?? ''));
     const before = transforms();
+    // The light map's stop labels (one per contour level, drawing/contourLabels.ts) are on the plan at rest.
+    const levelWords = () => new Set((m.meter.getState().readings.map?.contours ?? []).map((c) => formatStops(c.stops)));
+    const plan = m.view.container.querySelector('[data-testid="item-glyph-rimR"]')!.closest('svg')!;
+    const stopLabels = () => Array.from(plan.querySelectorAll('text')).filter((t) => levelWords().has(t.textContent ?? '')).length;
+    expect(stopLabels()).toBeGreaterThan(0);
     const MOVES = 20;
     act(() => editor.pointer.down({ screen: from, pointer: 'mouse' }));
     for (let k = 1; k <= MOVES; k++) {
@@ -94,6 +100,8 @@ describe('a drag on the plan', () => {
     // The meter did follow the hand (it is not simply idle)…
     expect(editor.getState().drag?.items.get('rimR')).toBeTruthy();
     expect(m.meter.getState().doc.items.find((i) => i.id === 'rimR')).not.toBe(twinRims.items.find((i) => i.id === 'rimR'));
+    // The stop labels step aside while the hand drags (placing them again for every new map costs frames)…
+    expect(stopLabels()).toBe(0);
     // …but within one pace the meter's text re-rendered at most once, the inspector not at all.
     expect(MOVES * 5).toBeLessThan(PANEL_PACE_MS);
     expect(renders.get('meter') ?? 0).toBeLessThanOrEqual(1);
@@ -115,6 +123,7 @@ describe('a drag on the plan', () => {
     expect(renders.get('inspector') ?? 0).toBeGreaterThan(counts.inspector);
     expect(renders.get('meter') ?? 0).toBeGreaterThan(counts.meter);
     expect(m.view.getByTestId('meter-light-rimR')).toBeInTheDocument();
+    expect(stopLabels()).toBeGreaterThan(0); // and come back on release
     // At release React draws the dragged item from the document once more, and no other item.
     expect([...glyphRenders.keys()]).toEqual(['rimR']);
   });

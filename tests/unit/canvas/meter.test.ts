@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { createEditor } from '../../../canvas/editor/editor';
 import type { MeterEngine, MeterJob } from '../../../canvas/meter/engine';
-import { createMeter } from '../../../canvas/meter/meter';
+import { GESTURE_GAP_MS, createMeter } from '../../../canvas/meter/meter';
 import { demoSetups } from '../../../db/seed-setups';
 import { computeReadings } from '../../../model/setupReadings';
 
@@ -73,7 +73,10 @@ describe('the live meter', () => {
     expect(keyX(jobs[0]!.job.doc)).toBeCloseTo(4.2); // the first move went out at once
     jobs[0]!.resolve();
     await flush();
-    expect(jobs.length).toBe(2); // then the newest
+    // While the hand drags, the next job waits out the gap since the last one started (the clock has not moved)…
+    expect(jobs.length).toBe(1);
+    await new Promise((r) => setTimeout(r, GESTURE_GAP_MS + 15));
+    expect(jobs.length).toBe(2); // …then the newest goes
     expect(keyX(jobs[1]!.job.doc)).toBeCloseTo(5);
     t += 500;
     jobs[1]!.resolve();
@@ -83,6 +86,38 @@ describe('the live meter', () => {
     await flush();
     expect(keyX(e.getState().doc)).toBeCloseTo(5);
     expect(jobs.length).toBe(2); // the released document is the one just computed
+    m.dispose();
+  });
+
+  it('while a hand drags, jobs start at most every GESTURE_GAP_MS; edits outside a gesture go at once', async () => {
+    const e = createEditor(demoSetups[0]!.document);
+    e.dispatch('setCamera', { camera: { scale: 100, tx: 0, ty: 0 } });
+    const { engine, jobs } = manualEngine();
+    let t = 0;
+    const m = createMeter(e, { lightMap: false }, engine, () => t);
+    e.pointer.down({ screen: { x: 400, y: 410 }, pointer: 'mouse' });
+    e.pointer.move({ screen: { x: 420, y: 410 }, pointer: 'mouse' });
+    expect(jobs.length).toBe(1);
+    t += 10;
+    e.pointer.move({ screen: { x: 440, y: 410 }, pointer: 'mouse' });
+    jobs[0]!.resolve();
+    await flush();
+    expect(jobs.length).toBe(1); // 10 ms after the last start: waits
+    t += GESTURE_GAP_MS;
+    await new Promise((r) => setTimeout(r, GESTURE_GAP_MS + 15));
+    expect(jobs.length).toBe(2);
+    t += 500;
+    jobs[1]!.resolve();
+    e.pointer.up({ screen: { x: 440, y: 410 }, pointer: 'mouse' });
+    await flush();
+    // No gesture: a nudge right after a job started goes out as soon as that job is done, with no gap.
+    e.dispatch('select', { ids: ['key'] });
+    e.dispatch('nudge', { dx: 0.1, dy: 0 });
+    expect(jobs.length).toBe(3);
+    e.dispatch('nudge', { dx: 0.1, dy: 0 });
+    jobs[2]!.resolve();
+    await flush();
+    expect(jobs.length).toBe(4);
     m.dispose();
   });
 });
