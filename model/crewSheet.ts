@@ -57,17 +57,7 @@ export type CrewSheet = {
 };
 type ChecklistRow = { step: string | null; text: string };
 
-/** Items' names for people (label, or kind and number: never the internal id), worked out once per document. */
-const namesCache = new WeakMap<readonly Item[], Map<string, string>>();
-function namesIn(doc: SetupDocument): Map<string, string> {
-  let names = namesCache.get(doc.items);
-  if (!names) {
-    names = itemNames(doc.items);
-    namesCache.set(doc.items, names);
-  }
-  return names;
-}
-const nameOf = (doc: SetupDocument, i: Item) => namesIn(doc).get(i.id) ?? (i.label || kinds[i.kind].label);
+const nameOf = (doc: SetupDocument, i: Item) => itemNames(doc.items).get(i.id) ?? (i.label || kinds[i.kind].label);
 const round = (n: number) => Math.round(n);
 
 function sourceText(l: ItemOf<'light'>): string {
@@ -178,7 +168,7 @@ function readingsOf(doc: SetupDocument, readings: Readings): { rows: Reading[]; 
     const why = readings.build.missing.length ? `add ${readings.build.missing.join(' and ')} to the plan` : (readings.error ?? 'no reading');
     return { rows: [{ label: 'Meter', value: '—', detail: why }], warnings: [] };
   }
-  const names = namesIn(doc);
+  const names = itemNames(doc.items);
   const rows: Reading[] = [{ label: 'At the subject', value: formatAperture(m.subject.aperture), detail: `${formatStops(m.subject.stopsVsCamera)} stops vs the camera, ${RECEPTOR_WORDS[m.receptor]}` }];
   for (const l of m.lights) {
     if (!l.enabled) continue;
@@ -274,7 +264,7 @@ function checklistOf(doc: SetupDocument, lights: KitLight[], rows: Reading[]): C
 /** Everything a crew sheet prints for `doc`; pass `readings` when the caller has them already. */
 export function crewSheet(doc: SetupDocument, o: { title: string; units: Units; readings?: Readings; notes?: string }): CrewSheet {
   const readings = o.readings ?? computeReadings(doc);
-  const names = namesIn(doc);
+  const names = itemNames(doc.items);
   const { rows, warnings } = readingsOf(doc, readings);
   const lights = lightsOf(doc, o.units, readings);
   return {

@@ -148,21 +148,28 @@ export function fieldsOf<T extends Item>(item: T): readonly FieldSpec<T>[] {
  * What a person calls each item: its label, or its kind numbered among the unlabelled items of that kind
  * ("Light 2") when there is more than one, or the kind alone ("Camera"). Never the internal id.
  */
-export function itemNames(items: readonly Item[]): Map<string, string> {
-  const unlabelled = new Map<ItemKind, Item[]>();
-  for (const i of items) if (!i.label) unlabelled.set(i.kind, [...(unlabelled.get(i.kind) ?? []), i]);
+export function itemNames(items: readonly Item[]): ReadonlyMap<string, string> {
+  const hit = namesOf.get(items);
+  if (hit) return hit;
+  const count = new Map<ItemKind, number>();
+  for (const i of items) if (!i.label) count.set(i.kind, (count.get(i.kind) ?? 0) + 1);
+  const seen = new Map<ItemKind, number>();
   const out = new Map<string, string>();
   for (const i of items) {
     if (i.label) out.set(i.id, i.label);
     else {
-      const same = unlabelled.get(i.kind)!;
-      out.set(i.id, same.length > 1 ? `${kinds[i.kind].label} ${same.indexOf(i) + 1}` : kinds[i.kind].label);
+      const n = (seen.get(i.kind) ?? 0) + 1;
+      seen.set(i.kind, n);
+      out.set(i.id, count.get(i.kind)! > 1 ? `${kinds[i.kind].label} ${n}` : kinds[i.kind].label);
     }
   }
+  namesOf.set(items, out);
   return out;
 }
+/** Names by items array: the panels ask for the same document's names on every change of the editor. */
+const namesOf = new WeakMap<readonly Item[], Map<string, string>>();
 
 /** A meter warning as a person reads it: the light's name where the meter wrote its id. */
-export function warningText(w: { message: string; lightId?: string }, names: Map<string, string>): string {
+export function warningText(w: { message: string; lightId?: string }, names: ReadonlyMap<string, string>): string {
   return w.lightId && names.has(w.lightId) ? w.message.split(w.lightId).join(names.get(w.lightId)!) : w.message;
 }

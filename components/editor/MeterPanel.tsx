@@ -122,7 +122,7 @@ function Subject({ m, camera, assumedCamera }: { m: MeterResult; camera: { apert
   );
 }
 
-function Lights({ m, names }: { m: MeterResult; names: Map<string, string> }) {
+function Lights({ m, names }: { m: MeterResult; names: ReadonlyMap<string, string> }) {
   return (
     <View style={s.block}>
       <Text style={s.sub}>Each light alone</Text>

@@ -34,3 +34,19 @@ describe('item names', () => {
     expect(JSON.stringify(sheet, (k, v) => (k === 'id' ? undefined : v))).not.toMatch(/(camera|light|subject)-\d/);
   });
 });
+
+describe('item names, many items', () => {
+  it('numbers hundreds of unlabelled items in order, once per items array', () => {
+    const items = parseDocument({
+      schemaVersion: 2,
+      stage: { widthM: 8, depthM: 6 },
+      items: Array.from({ length: 400 }, (_, k) => ({ id: `l${k}`, kind: 'light', x: 1 + (k % 20) * 0.3, y: 1 + Math.floor(k / 20) * 0.2, source: { type: 'strobe', energyWs: 500 } })),
+    }).items;
+    const names = itemNames(items);
+    expect(names.get('l0')).toBe('Light 1');
+    expect(names.get('l399')).toBe('Light 400');
+    // The same array asks again: the same answer, not worked out anew.
+    expect(itemNames(items)).toBe(names);
+    expect(itemNames([...items])).not.toBe(names);
+  });
+});
