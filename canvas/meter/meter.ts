@@ -4,7 +4,7 @@
 // When the hand stops (no change for a little while), a result for an older document is not shown: the
 // next one, for the document as it stands, is — so the meter is at most one update behind the glyph.
 // While a hand drags on the plan, jobs start at most every GESTURE_GAP_MS: the glyph moves every frame, and the
-// light map and panels that each result redraws (contours, tint, labels, the frame's draft) follow at about half
+// light map and panels that each result redraws (contours, tint, meter text) follow at about half
 // that rate, so their drawing does not take the frames the glyph needs.
 import { createStore, type StoreApi } from 'zustand';
 import type { SetupDocument } from '../../model/document';

@@ -17,6 +17,15 @@ function manualEngine() {
   return { engine, jobs };
 }
 const flush = () => new Promise((r) => setTimeout(r, 0));
+/** A demo setup on a plan at 100 px/m, its meter on a manual engine and a clock the test moves. */
+function meterOnPlan() {
+  const e = createEditor(demoSetups[0]!.document);
+  e.dispatch('setCamera', { camera: { scale: 100, tx: 0, ty: 0 } });
+  const { engine, jobs } = manualEngine();
+  const clock = { t: 0 };
+  const m = createMeter(e, { lightMap: false }, engine, () => clock.t);
+  return { e, jobs, m, clock };
+}
 
 describe('the live meter', () => {
   it('runs one job at a time and sends only the newest document next', async () => {
@@ -60,11 +69,7 @@ describe('the live meter', () => {
   });
 
   it('follows a drag under way (the moves held beside the document), and the release computes nothing more', async () => {
-    const e = createEditor(demoSetups[0]!.document);
-    e.dispatch('setCamera', { camera: { scale: 100, tx: 0, ty: 0 } });
-    const { engine, jobs } = manualEngine();
-    let t = 0;
-    const m = createMeter(e, { lightMap: false }, engine, () => t);
+    const { e, jobs, m, clock } = meterOnPlan();
     const keyX = (d: { items: readonly { id: string }[] }) => (d.items.find((i) => i.id === 'key') as unknown as { x: number }).x;
     e.pointer.down({ screen: { x: 400, y: 410 }, pointer: 'mouse' });
     for (let k = 1; k <= 5; k++) e.pointer.move({ screen: { x: 400 + k * 20, y: 410 }, pointer: 'mouse' });
@@ -78,7 +83,7 @@ describe('the live meter', () => {
     await new Promise((r) => setTimeout(r, GESTURE_GAP_MS + 15));
     expect(jobs.length).toBe(2); // …then the newest goes
     expect(keyX(jobs[1]!.job.doc)).toBeCloseTo(5);
-    t += 500;
+    clock.t += 500;
     jobs[1]!.resolve();
     await flush();
     expect(keyX(m.getState().doc)).toBeCloseTo(5);
@@ -90,23 +95,19 @@ describe('the live meter', () => {
   });
 
   it('while a hand drags, jobs start at most every GESTURE_GAP_MS; edits outside a gesture go at once', async () => {
-    const e = createEditor(demoSetups[0]!.document);
-    e.dispatch('setCamera', { camera: { scale: 100, tx: 0, ty: 0 } });
-    const { engine, jobs } = manualEngine();
-    let t = 0;
-    const m = createMeter(e, { lightMap: false }, engine, () => t);
+    const { e, jobs, m, clock } = meterOnPlan();
     e.pointer.down({ screen: { x: 400, y: 410 }, pointer: 'mouse' });
     e.pointer.move({ screen: { x: 420, y: 410 }, pointer: 'mouse' });
     expect(jobs.length).toBe(1);
-    t += 10;
+    clock.t += 10;
     e.pointer.move({ screen: { x: 440, y: 410 }, pointer: 'mouse' });
     jobs[0]!.resolve();
     await flush();
     expect(jobs.length).toBe(1); // 10 ms after the last start: waits
-    t += GESTURE_GAP_MS;
+    clock.t += GESTURE_GAP_MS;
     await new Promise((r) => setTimeout(r, GESTURE_GAP_MS + 15));
     expect(jobs.length).toBe(2);
-    t += 500;
+    clock.t += 500;
     jobs[1]!.resolve();
     e.pointer.up({ screen: { x: 440, y: 410 }, pointer: 'mouse' });
     await flush();
