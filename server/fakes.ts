@@ -58,6 +58,11 @@ function startSmtp(port = 0, mails: CapturedMail[] = [], counter = { next: 1 }):
   return new Promise((resolve, reject) => {
     server.once('error', reject);
     server.listen(port, HOST, () => {
+      // smtp-server re-emits every connection's socket error (a client that drops mid-message: ECONNRESET) as
+      // an 'error' on the server. The listen's one-off listener above swallowed the first and the second ended
+      // the process; a dropped client is that client's business, so they are ignored from here on.
+      server.off('error', reject);
+      server.on('error', () => undefined);
       const bound = (server.server.address() as AddressInfo).port;
       resolve({ server, port: bound, mails, counter, inbox: { list: () => [...mails], clear: () => void mails.splice(0) } });
     });
