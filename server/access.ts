@@ -13,6 +13,7 @@ import { classRoleOf } from '../db/classes';
 import { lessonAccess, type LessonAccess } from '../db/lessons';
 import { isOperator } from '../db/operators';
 import { getSetupAccess, type SetupAccess } from '../db/setups';
+import { crewMayCopy } from '../db/studios';
 import type { ClassRole, StudioRole } from '../model/api';
 import { HttpError, notFound } from './errors';
 import { userOf } from './session';
@@ -53,6 +54,20 @@ export function checkSetup(a: SetupAccess | null, need: SetupNeed, opts: { delet
     throw new HttpError(403, 'forbidden', a.role ? `your role in this studio (${a.role}) cannot ${what} this setup` : `only members of the setup's studio can ${what} it`);
   }
   return a;
+}
+
+/**
+ * Copying a setup out of its studio (a duplicate, a lesson's snapshot, a submission to a class): crew may only
+ * when the studio's `crewMayCopy` setting is on (off by default); templates are made to be copied. Every route
+ * that takes a copy of a setup somewhere else asks this, after `checkSetup(…, 'read')`. `field` names the body
+ * field that chose the setup, when one did.
+ */
+export async function checkCopyOut(db: Db, a: SetupAccess, field?: string): Promise<void> {
+  if (a.role !== 'crew' || a.isTemplate || a.forEveryone) return;
+  if (await crewMayCopy(db, a.studioId)) return;
+  throw new HttpError(403, 'crew_copy_off', 'this studio does not let crew copy its setups (the studio setting crewMayCopy is off; an owner can turn it on)', {
+    fields: { crewMayCopy: 'off in this studio', ...(field ? { [field]: 'crew may not copy this studio’s setups out' } : {}) },
+  });
 }
 
 /** The setup named by `req.params.id`, checked for the caller and `need`. */

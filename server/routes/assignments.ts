@@ -22,7 +22,7 @@ import { studiosOf } from '../../db/studios';
 import { startAssignmentBody, submitBody, updateAssignmentBody } from '../../model/api';
 import { evaluateCheck } from '../../model/classes';
 import { emptyDocument } from '../../model/document';
-import { classCan, requireAssignment, studioCan } from '../access';
+import { checkCopyOut, classCan, requireAssignment, studioCan } from '../access';
 import { HttpError } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { parseBody } from '../validate';
@@ -94,6 +94,9 @@ export function assignmentRoutes(db: Db, mailer?: Mailer) {
     if (!setupId) throw new HttpError(409, 'not_started', 'start the assignment first (from the reference or a blank plan)', { fields: { setupId: 'nothing to submit yet' } });
     const sa = await getSetupAccess(db, setupId, user.id);
     if (!sa || !studioCan.read(sa.role) || sa.deletedAt) throw new HttpError(404, 'not_found', 'no such setup of yours', { fields: { setupId: 'not a setup you can read' } });
+    // A submission is a copy the class's instructors keep: out of a studio where the student is crew, only
+    // when that studio allows it.
+    await checkCopyOut(db, sa, 'setupId');
     const setup = (await getSetupDetailObject(db, setupId, user.id))!;
     const base = (await assignmentBase(db, id))!;
     const check = checkOf(base.summary.check);

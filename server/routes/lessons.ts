@@ -18,9 +18,9 @@ import {
   updateLessonSetup,
   type SetupSnapshot,
 } from '../../db/lessons';
-import { getSetupAccess, getSetupDetailObject } from '../../db/setups';
+import { getSetupAccess, getSetupDetailObject, type SetupAccess } from '../../db/setups';
 import { addLessonSetupBody, createAssignmentBody, updateLessonBody, updateLessonSetupBody } from '../../model/api';
-import { checkSetup, pathId, requireLesson } from '../access';
+import { checkCopyOut, checkSetup, pathId, requireLesson } from '../access';
 import { HttpError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { parseBody } from '../validate';
@@ -28,12 +28,15 @@ import { appLink, classMail, sendAll } from './classMail';
 
 /** The setup as the instructor can read it now (their studios' setups, or any template). */
 async function snapshotFor(db: Db, userId: string, setupId: string, field: string): Promise<SetupSnapshot> {
+  let access: SetupAccess;
   try {
-    checkSetup(await getSetupAccess(db, setupId, userId), 'read');
+    access = checkSetup(await getSetupAccess(db, setupId, userId), 'read');
   } catch (e) {
     if (e instanceof HttpError && e.status === 404) throw new HttpError(404, 'not_found', 'no such setup, or not one you can read', { fields: { [field]: 'no setup you can read' } });
     throw e;
   }
+  // A lesson keeps its own copy: taking one out of a studio where the caller is crew is the studio's call.
+  await checkCopyOut(db, access, field);
   const s = (await getSetupDetailObject(db, setupId, userId))!;
   return { id: s.id, title: s.title, document: s.document, version: s.version };
 }

@@ -20,10 +20,10 @@ import {
   softDeleteSetup,
   tagsInUse,
 } from '../../db/setups';
-import { crewMayCopy, studioRoleOf, studiosOf } from '../../db/studios';
+import { studioRoleOf, studiosOf } from '../../db/studios';
 import { createSetupBody, duplicateSetupBody, forEveryoneBody, listSetupsQuery, updateSetupBody, type ForEveryoneResponse, type StudioRole } from '../../model/api';
 import { emptyDocument } from '../../model/document';
-import { checkSetup, pathId, requireOperator, requireSetup, studioCan } from '../access';
+import { checkCopyOut, checkSetup, pathId, requireOperator, requireSetup, studioCan } from '../access';
 import { HttpError, notFound } from '../errors';
 import { userOf, type SessionUser } from '../session';
 import { parseBody, parseQuery } from '../validate';
@@ -154,11 +154,8 @@ export function setupRoutes(db: Db) {
   r.post('/setups/:id/duplicate', async (req, res) => {
     const { user, id, access } = await requireSetup(db, req, 'read');
     const body = parseBody(duplicateSetupBody, req);
-    // Crew copying a studio's setups out is the studio's call (owners turn it on; off by default). Templates
-    // are made to be copied.
-    if (access.role === 'crew' && !access.isTemplate && !(await crewMayCopy(db, access.studioId))) {
-      throw new HttpError(403, 'crew_copy_off', 'this studio does not let crew copy its setups (the studio setting crewMayCopy is off; an owner can turn it on)', { fields: { crewMayCopy: 'off in this studio' } });
-    }
+    // Crew copying a studio's setups out is the studio's call (server/access.ts).
+    await checkCopyOut(db, access);
     const studioId = await targetStudio(db, user, body.studioId, access);
     const copy = await duplicateSetup(db, id, { studioId, ownerId: user.id, title: body.title });
     if (!copy) throw notFound('no such setup');
