@@ -1,6 +1,6 @@
 import { Redirect } from 'expo-router';
 import { Loading } from '../components/Loading';
-import { useSession } from '../hooks/auth';
+import { useSession } from '../hooks/session';
 
 export default function Index() {
   const { data, isPending } = useSession();

@@ -57,6 +57,8 @@ const routes = {
   sharedMembership: route<A.ShareMembership>()('GET', '/shared/:token/membership'),
   sendToCrew: route<A.SendToCrewResult, In<typeof A.sendToCrewBody>>()('POST', '/setups/:id/send'),
   // Account
+  /** better-auth's own route, read without its client (hooks/session.ts). */
+  getSession: route<A.SessionResponse>()('GET', '/auth/get-session'),
   me: route<A.Me>()('GET', '/me'),
   updateMe: route<A.Me, In<typeof A.updateMeBody>>()('PATCH', '/me'),
   // Studios and invitations

@@ -27,18 +27,23 @@ export function lazyResolver<T extends FieldValues>(pick: (s: Schemas) => Schema
 
 /** Starts loading the schemas at the page's first pointer press, key or focus (web), or at once elsewhere. */
 export function useWarmForms() {
+  useWarmOnTouch(loadFormSchemas);
+}
+
+/** Calls `load` (once) at the page's first pointer press, key or focus on the web, or at once elsewhere. */
+export function useWarmOnTouch(load: () => Promise<unknown>) {
   useEffect(() => {
     if (typeof window === 'undefined' || typeof window.addEventListener !== 'function') {
-      void loadFormSchemas().catch(() => {});
+      void load().catch(() => {});
       return;
     }
     const events = ['pointerdown', 'keydown', 'focusin'] as const;
     const warm = () => {
       stop();
-      void loadFormSchemas().catch(() => {});
+      void load().catch(() => {});
     };
     const stop = () => events.forEach((e) => window.removeEventListener(e, warm, true));
     events.forEach((e) => window.addEventListener(e, warm, { capture: true, passive: true }));
     return stop;
-  }, []);
+  }, [load]);
 }

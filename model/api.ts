@@ -251,6 +251,18 @@ export type Me = {
   classes: { id: string; name: string; role: ClassRole }[];
 };
 
+/**
+ * GET /api/auth/get-session (better-auth's own route): who is signed in, or null. The client reads it with a
+ * plain fetch (hooks/session.ts); this names the part of better-auth's answer the app relies on (it sends more).
+ */
+export const sessionResponse = z
+  .object({
+    session: z.object({ id: z.string(), userId: z.string(), expiresAt: z.string() }),
+    user: z.object({ id: z.string(), name: z.string(), email: z.string(), emailVerified: z.boolean() }),
+  })
+  .nullable();
+export type SessionResponse = z.infer<typeof sessionResponse>;
+
 /** Every error body the API sends. */
 export type ApiError = { error: { code: string; message: string; fields?: Record<string, string> } };
 

@@ -4,7 +4,7 @@ import { useRef } from 'react';
 import { Platform, StyleSheet, View } from 'react-native';
 import { Loading } from '../../components/Loading';
 import { NavShell } from '../../components/NavShell';
-import { useSession } from '../../hooks/auth';
+import { useSession } from '../../hooks/session';
 
 export default function AppLayout() {
   const { data, isPending } = useSession();

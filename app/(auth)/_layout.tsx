@@ -1,7 +1,7 @@
 // Signed-out screens; a signed-in visitor goes straight on (to ?next= or their setups).
 import { Redirect, Slot } from 'expo-router';
 import { Loading } from '../../components/Loading';
-import { useSession } from '../../hooks/auth';
+import { useSession } from '../../hooks/session';
 import { useReturnPath } from '../../hooks/returnPath';
 
 export default function AuthLayout() {

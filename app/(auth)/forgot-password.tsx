@@ -6,7 +6,7 @@ import type { z } from 'zod';
 import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
-import { authClient } from '../../hooks/auth';
+import { loadAuthClient, useWarmAuth } from '../../hooks/auth';
 import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
 import type { forgotPasswordBody } from '../../model/forms';
 
@@ -16,10 +16,11 @@ export default function ForgotPassword() {
   const [sent, setSent] = useState<string | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
   useWarmForms();
+  useWarmAuth();
   const { control, handleSubmit, formState } = useForm<Values>({ resolver: lazyResolver((s) => s.forgotPasswordBody), defaultValues: { email: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
-    const { error } = await authClient.requestPasswordReset({ email: v.email, redirectTo: '/reset-password' });
+    const { error } = await (await loadAuthClient()).requestPasswordReset({ email: v.email, redirectTo: '/reset-password' });
     if (error) return setFailure(error.message ?? 'The link could not be sent. Try again in a moment.');
     setSent(v.email);
   });

@@ -6,7 +6,7 @@ import type { z } from 'zod';
 import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
-import { authClient } from '../../hooks/auth';
+import { loadAuthClient, useWarmAuth } from '../../hooks/auth';
 import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
 import type { resetPasswordBody } from '../../model/forms';
 
@@ -17,10 +17,11 @@ export default function ResetPassword() {
   const [done, setDone] = useState(false);
   const [failure, setFailure] = useState<string | null>(null);
   useWarmForms();
+  useWarmAuth();
   const { control, handleSubmit, formState } = useForm<Values>({ resolver: lazyResolver((s) => s.resetPasswordBody), defaultValues: { password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
-    const { error } = await authClient.resetPassword({ newPassword: v.password, token: token ?? '' });
+    const { error } = await (await loadAuthClient()).resetPassword({ newPassword: v.password, token: token ?? '' });
     if (error) return setFailure('This link has been used or has run out. Ask for a new one.');
     setDone(true);
   });

@@ -5,7 +5,7 @@ import type { z } from 'zod';
 import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
-import { authClient } from '../../hooks/auth';
+import { loadAuthClient, useSessionChanged, useWarmAuth } from '../../hooks/auth';
 import { useReturnPath } from '../../hooks/returnPath';
 import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
 import type { signInBody } from '../../model/forms';
@@ -16,12 +16,15 @@ export default function SignIn() {
   const next = useReturnPath();
   const [failure, setFailure] = useState<string | null>(null);
   useWarmForms();
+  useWarmAuth();
+  const sessionChanged = useSessionChanged();
   const { control, handleSubmit, formState } = useForm<Values>({ resolver: lazyResolver((s) => s.signInBody), defaultValues: { email: '', password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
-    const { error } = await authClient.signIn.email({ email: v.email, password: v.password });
+    const { error } = await (await loadAuthClient()).signIn.email({ email: v.email, password: v.password });
     if (error) return setFailure(error.status === 401 ? 'That e-mail and password do not match an account.' : (error.message ?? 'Sign-in failed.'));
-    // The signed-out layout sends the visitor on (to ?next=) as soon as the session arrives.
+    // The signed-out layout sends the visitor on (to ?next=) as soon as the session, read again now, arrives.
+    await sessionChanged();
   });
   return (
     <AuthFrame title="Sign in">

@@ -5,7 +5,7 @@ import type { z } from 'zod';
 import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
-import { authClient } from '../../hooks/auth';
+import { loadAuthClient, useSessionChanged, useWarmAuth } from '../../hooks/auth';
 import { useReturnPath } from '../../hooks/returnPath';
 import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
 import type { signUpBody } from '../../model/forms';
@@ -15,21 +15,24 @@ type Values = z.infer<typeof signUpBody>;
 export default function SignUp() {
   const next = useReturnPath();
   const [failure, setFailure] = useState<string | null>(null);
-  // Kept in the address too: better-auth's client re-reads the session after a sign-up, and the signed-out
-  // layout may remount this screen while it does.
+  // Kept in the address too: the session is read again after a sign-up, and the signed-out layout may remount
+  // this screen while it is.
   const { sent } = useLocalSearchParams<{ sent?: string }>();
   const [sentState, setSentTo] = useState<string | null>(null);
   const sentTo = sentState ?? (typeof sent === 'string' && sent ? sent : null);
   useWarmForms();
+  useWarmAuth();
+  const sessionChanged = useSessionChanged();
   const { control, handleSubmit, formState } = useForm<Values>({ resolver: lazyResolver((s) => s.signUpBody), defaultValues: { name: '', email: '', password: '' } });
   const submit = handleSubmit(async (v) => {
     setFailure(null);
     // The confirmation link signs the person in and opens ?next= (the signed-out layout sends them on).
-    const { error } = await authClient.signUp.email({ name: v.name, email: v.email, password: v.password, callbackURL: next });
+    const { error } = await (await loadAuthClient()).signUp.email({ name: v.name, email: v.email, password: v.password, callbackURL: next });
     if (error) return setFailure(error.message ?? 'Could not create the account.');
     // The same answer whether or not the address already had an account: the mail says which.
     setSentTo(v.email.trim());
     router.setParams({ sent: v.email.trim() });
+    void sessionChanged();
   });
   if (sentTo) {
     const local = typeof window !== 'undefined' && /^(localhost|127\.0\.0\.1|\[::1\])$/.test(window.location.hostname);

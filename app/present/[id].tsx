@@ -3,7 +3,7 @@
 import { Redirect, useLocalSearchParams } from 'expo-router';
 import { Loading } from '../../components/Loading';
 import { workspaceScreen } from '../../components/workspaceScreen';
-import { useSession } from '../../hooks/auth';
+import { useSession } from '../../hooks/session';
 
 // Loaded with the other plan screens when first shown (components/workspace.ts).
 const Presentation = workspaceScreen('Presentation');

@@ -2,6 +2,7 @@
 // revoked session is refused on the next request, and a password change or reset ends the other sessions.
 // (Across two server processes: tests/api/instances.test.ts.)
 import { describe, expect, inject, it } from 'vitest';
+import { sessionResponse } from '../../model/api';
 import { Client } from '../support/http';
 import { FRESH_PASSWORD, fresh } from './fixtures';
 
@@ -45,5 +46,19 @@ describe('sessions', () => {
     expect((await new Client(base).post('/api/auth/reset-password', { token, newPassword: 'a-reset-pass-42' })).status).toBe(200);
     expect((await u.client.get('/api/me')).status).toBe(401);
     expect((await other.get('/api/me')).status).toBe(401);
+  });
+
+  it('get-session answers what the client reads without better-auth’s client (model/api.ts sessionResponse)', async () => {
+    const nobody = await new Client(base).get('/api/auth/get-session');
+    expect(nobody.status).toBe(200);
+    expect(sessionResponse.parse(nobody.body)).toBeNull();
+    const u = await fresh(base, 'Reading Rhea');
+    const r = await u.client.get('/api/auth/get-session');
+    expect(r.status).toBe(200);
+    const s = sessionResponse.parse(r.body);
+    const me = await u.client.get<{ user: { id: string; email: string } }>('/api/me');
+    expect(s?.user.id).toBe(me.body.user.id);
+    expect(s?.user.email).toBe(me.body.user.email);
+    expect(s?.session.userId).toBe(me.body.user.id);
   });
 });

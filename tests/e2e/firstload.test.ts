@@ -68,12 +68,13 @@ describe('first load', () => {
 
     // What the page's scripts were built from: no plan, editor, classes or crew screens, no reanimated, no
     // gesture handler, no colour science, no setup document model, no zod (the form's schema arrives with the
-    // first touch: hooks/lazyResolver.ts), no react-native-svg (the web's glyphs are plain SVG).
+    // first touch: hooks/lazyResolver.ts), no react-native-svg (the web's glyphs are plain SVG), no better-auth
+    // client (it too arrives with the first touch: hooks/auth.ts; the session is read with a plain fetch).
     await expect.poll(() => page.getByRole('button', { name: 'Sign in' }).isVisible()).toBe(true);
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
     const sources = sourcesOf(scripts);
     expect(sources.length).toBeGreaterThan(100);
-    for (const heavy of ['react-native-reanimated', 'react-native-gesture-handler', 'node_modules/culori', '/components/editor/', '/components/classes/', '/components/crew/', '/components/photos/', '/canvas/PlanCanvas', '/model/document.ts', '/calc/', 'zod/v4/locales/index', 'node_modules/zod/', 'react-native-svg', '/model/forms.ts']) {
+    for (const heavy of ['react-native-reanimated', 'react-native-gesture-handler', 'node_modules/culori', '/components/editor/', '/components/classes/', '/components/crew/', '/components/photos/', '/canvas/PlanCanvas', '/model/document.ts', '/calc/', 'zod/v4/locales/index', 'node_modules/zod/', 'react-native-svg', '/model/forms.ts', 'node_modules/better-auth/', 'node_modules/@better-fetch/', 'node_modules/nanostores/', '/hooks/authClient.ts']) {
       // (The editor's small form fields serve the account page too.)
       expect(sources.filter((s) => s.includes(heavy) && !s.endsWith('/components/editor/fields.tsx')), heavy).toEqual([]);
     }
@@ -83,6 +84,7 @@ describe('first load', () => {
     await page.getByRole('button', { name: 'Sign in' }).click();
     await expect.poll(() => page.getByText('enter an e-mail address').isVisible(), { timeout: 30_000 }).toBe(true);
     expect(scripts.some((s) => /\/formSchemas-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    expect(scripts.some((s) => /\/authClient-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(errors).toEqual([]);
     await context.close();
   });
@@ -107,7 +109,9 @@ describe('first load', () => {
     const sources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
     // Nor gesture handler (the plan reads pointer events on the web), the forms library, or culori's colour
     // spaces CSS does not write (web/culoriCss.js).
-    for (const heavy of ['/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl']) {
+    // Nor better-auth's client: who is signed in is read with a plain fetch (hooks/session.ts).
+    expect(scripts.some((s) => /\/authClient-[0-9a-f]+\.js$/.test(s))).toBe(false);
+    for (const heavy of ['node_modules/better-auth/', 'node_modules/@better-fetch/', '/hooks/authClient.ts', '/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl']) {
       expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
     }
     // Every group layout loads on every page; what two of them share comes once (scripts/chunkTiers.cjs).
