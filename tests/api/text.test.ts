@@ -6,10 +6,10 @@ import { DOMParser } from '@xmldom/xmldom';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { createDb } from '../../db/client';
-import { setups } from '../../db/schema';
+import { setups, studios } from '../../db/schema';
 import { Client, freshEmail } from '../support/http';
 import { TEST_DATABASE_URL } from '../support/env';
-import { assignmentOn, classWith, lessonDocument, lessonWith } from './classes.support';
+import { assignmentOn, classWith, inboxFor, lessonDocument, lessonWith } from './classes.support';
 import { documentWith } from './documents';
 import { pdfText, raw } from './exports.helpers';
 import { FRESH_PASSWORD, fresh, newSetup, type Signed } from './fixtures';
@@ -158,6 +158,18 @@ describe('an empty PATCH is a 400 naming the body', () => {
 describe('a label stored before the text rules still exports', () => {
   const { db, pool } = createDb(TEST_DATABASE_URL);
   afterAll(() => pool.end());
+
+  it('a mail subject built from a name stored before the rules is one clean line (server/mail/queue.ts, cleanSubject)', async () => {
+    const st = await owner.client.post('/api/studios', { name: 'Plain name' });
+    expect(st.status).toBe(201);
+    await db.update(studios).set({ name: `Harbour\r\nBcc: all@example.test ${RLO}oiduts` }).where(eq(studios.id, st.body.id));
+    const to = freshEmail('subject');
+    const inv = await owner.client.post(`/api/studios/${st.body.id}/members`, { email: to, role: 'crew' });
+    expect(inv.status, JSON.stringify(inv.body)).toBe(201);
+    const [mail] = await inboxFor(base, to);
+    expect(mail?.subject).toBe('Join Harbour Bcc: all@example.test oiduts on Falloff');
+    expect(mail?.to).toEqual([to]);
+  });
 
   it('as well-formed SVG (XML), as a PNG and as a PDF', async () => {
     const s = await newSetup(owner.client, { title: 'Stored before the rules', document: documentWith(1) });
