@@ -110,9 +110,9 @@ export type ResolveCommentBody = z.infer<typeof resolveCommentBody>;
 export const daySheetBody = z
   .object({
     setupIds: z.array(uuid('a setup')).min(1, 'choose at least one setup').max(20, 'at most 20 setups').refine((a) => new Set(a).size === a.length, 'a setup is listed twice'),
-    title: z.string().trim().max(120, 'at most 120 characters').optional(),
+    title: oneLine({ max: 120 }).optional(),
     /** The day, as printed on the cover (free text: "Saturday 14 March"). */
-    date: z.string().trim().max(60, 'at most 60 characters').optional(),
+    date: oneLine({ max: 60 }).optional(),
   })
   .strict();
 export type DaySheetBody = z.infer<typeof daySheetBody>;

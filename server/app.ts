@@ -128,7 +128,9 @@ export function createApp({ db, auth, logger, limits = createLimits(db), webDir,
   app.use('/api', mailRoutes(db, mailer, limits));
   app.use('/api', photoRoutes(db, store));
   app.use('/api', apiNotFound);
-  if (inbox && devInboxAllowed()) app.use('/dev', devOnlyLoopback, devInboxRoutes(inbox));
+  // Decided on the address this app is served at (PUBLIC_URL, or what startServer listened on), not only on the
+  // environment: an app given a public address by its caller keeps the inbox closed as well.
+  if (inbox && devInboxAllowed({ ...process.env, PUBLIC_URL: publicUrl ?? process.env.PUBLIC_URL })) app.use('/dev', devOnlyLoopback, devInboxRoutes(inbox));
 
   if (webDir && existsSync(join(webDir, 'index.html'))) {
     // An invitation link opened signed out: remember its token through sign-up (see routes/invitations.ts).

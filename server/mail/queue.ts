@@ -33,10 +33,29 @@ export class MailQueueUnavailable extends HttpError {
 /** Messages fetched and sent together by one poll of the mail worker. */
 const MAIL_BATCH = 20;
 
+/** Characters a subject keeps at most (a longer one ends in an ellipsis); mail clients show far fewer. */
+export const SUBJECT_MAX = 160;
+/** Bidirectional embedding, override and isolate controls, and the invisible direction marks. */
+const BIDI = /[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
+/** Control characters (C0 with CR, LF and tab, DEL, C1) and the Unicode line and paragraph separators. */
+const BREAKS_AND_CONTROLS = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/g;
+
+/**
+ * Every mail subject as one clean line: line breaks and other control characters become a space, bidi controls
+ * go (a title cannot read backwards in an inbox), runs of white space shrink to one, the ends are trimmed and the
+ * length is capped at SUBJECT_MAX characters (whole characters, never half a surrogate pair). Subjects are built
+ * from names and titles people typed, some stored before the text rules (model/text.ts) held them.
+ */
+export function cleanSubject(subject: string): string {
+  const line = subject.toWellFormed().replace(BIDI, '').replace(BREAKS_AND_CONTROLS, ' ').replace(/\s+/g, ' ').trim();
+  const chars = Array.from(line);
+  return chars.length <= SUBJECT_MAX ? line : `${chars.slice(0, SUBJECT_MAX - 1).join('').trimEnd()}…`;
+}
+
 type StoredMessage = Omit<Message, 'attachments'> & { attachments?: (Omit<Attachment, 'content'> & { content: string })[] };
 
-const toStored = (m: Message): StoredMessage => ({ ...m, attachments: m.attachments?.map((a) => ({ ...a, content: a.content.toString('base64') })) });
-const fromStored = (m: StoredMessage): Message => ({ ...m, attachments: m.attachments?.map((a) => ({ ...a, content: Buffer.from(a.content, 'base64') })) });
+const toStored = (m: Message): StoredMessage => ({ ...m, subject: cleanSubject(m.subject), attachments: m.attachments?.map((a) => ({ ...a, content: a.content.toString('base64') })) });
+const fromStored = (m: StoredMessage): Message => ({ ...m, subject: cleanSubject(m.subject), attachments: m.attachments?.map((a) => ({ ...a, content: Buffer.from(a.content, 'base64') })) });
 
 /** Where a job is written: pg-boss's own pool, or a caller's transaction (db/client.ts, txExecutor). */
 type QueueExecutor = PgBoss.Db;

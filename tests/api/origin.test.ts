@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { createDb } from '../../db/client';
 import { createApp, devInboxAllowed } from '../../server/app';
 import { createAuth } from '../../server/auth';
+import type { Inbox } from '../../server/fakes';
 import { loggerOptions, redactUrl } from '../../server/logging';
 import { Client } from '../support/http';
 import { TEST_DATABASE_URL } from '../support/env';
@@ -71,7 +72,45 @@ describe('headers over plain http', () => {
   });
 });
 
+/** An app on its own loopback port served as `publicUrl`, with a local inbox holding one message. */
+function appServedAs(publicUrl: string) {
+  const server = createServer();
+  const { db, pool } = createDb(TEST_DATABASE_URL);
+  pool.on('error', () => undefined);
+  const inbox: Inbox = { list: () => [{ id: 1, receivedAt: new Date(0).toISOString(), from: 'a@example.test', to: ['b@example.test'], subject: 'Reset your password', text: 'a reset link', html: '', attachments: [] }], clear: () => undefined };
+  let url = '';
+  beforeAll(async () => {
+    await new Promise<void>((r) => server.listen(0, '127.0.0.1', r));
+    url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+    const auth = createAuth(db, { baseURL: url, secret: 'dev-inbox-test-secret-0123456789abcdef' });
+    server.on('request', createApp({ db, auth, logger: pino({ level: 'silent' }), inbox, publicUrl }));
+  });
+  afterAll(async () => {
+    server.closeAllConnections();
+    await new Promise((r) => server.close(r));
+    await pool.end();
+  });
+  return { base: () => url };
+}
+
 describe('the dev inbox', () => {
+  describe('is closed on an app whose public address is not this machine, PUBLIC_URL unset in the environment', () => {
+    const far = appServedAs('https://falloff.example');
+    const lan = appServedAs('http://192.0.2.10:8080');
+    const local = appServedAs('http://localhost:8080');
+    it('a public or LAN address: 404 even from loopback; a loopback address: open', async () => {
+      expect(process.env.PUBLIC_URL).toBeUndefined();
+      for (const app of [far, lan]) {
+        const r = await fetch(`${app.base()}/dev/inbox.json`);
+        expect(r.status, app.base()).toBe(404);
+        expect(await r.text()).not.toContain('reset link');
+      }
+      const open = await fetch(`${local.base()}/dev/inbox.json`);
+      expect(open.status).toBe(200);
+      expect(await open.text()).toContain('reset link');
+    });
+  });
+
   it('answers this machine, not a client a proxy forwards from elsewhere', async () => {
     expect((await fetch(`${base}/dev/inbox.json`)).status).toBe(200);
     const far = await fetch(`${base}/dev/inbox.json`, { headers: { 'x-forwarded-for': '203.0.113.7' } });

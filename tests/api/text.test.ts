@@ -6,11 +6,12 @@ import { DOMParser } from '@xmldom/xmldom';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { createDb } from '../../db/client';
-import { setups } from '../../db/schema';
+import { setups, studios } from '../../db/schema';
 import { Client, freshEmail } from '../support/http';
 import { TEST_DATABASE_URL } from '../support/env';
-import { assignmentOn, classWith, lessonDocument, lessonWith } from './classes.support';
+import { assignmentOn, classWith, inboxFor, lessonDocument, lessonWith } from './classes.support';
 import { documentWith } from './documents';
+import { pdfText, raw } from './exports.helpers';
 import { FRESH_PASSWORD, fresh, newSetup, type Signed } from './fixtures';
 
 const base = inject('baseUrl');
@@ -30,8 +31,9 @@ beforeAll(async () => {
 
 /** A 400 whose `fields` names `field`, with a message about control characters. */
 function expectRefused(r: { status: number; body: any }, field: string, pattern = /control characters/) {
-  expect(r.status, JSON.stringify(r.body)).toBe(400);
-  expect(r.body.error.fields, JSON.stringify(r.body)).toHaveProperty([field]);
+  const said = (JSON.stringify(r.body) ?? '').slice(0, 500);
+  expect(r.status, said).toBe(400);
+  expect(r.body.error.fields, said).toHaveProperty([field]);
   expect(r.body.error.fields[field]).toMatch(pattern);
 }
 
@@ -157,6 +159,18 @@ describe('a label stored before the text rules still exports', () => {
   const { db, pool } = createDb(TEST_DATABASE_URL);
   afterAll(() => pool.end());
 
+  it('a mail subject built from a name stored before the rules is one clean line (server/mail/queue.ts, cleanSubject)', async () => {
+    const st = await owner.client.post('/api/studios', { name: 'Plain name' });
+    expect(st.status).toBe(201);
+    await db.update(studios).set({ name: `Harbour\r\nBcc: all@example.test ${RLO}oiduts` }).where(eq(studios.id, st.body.id));
+    const to = freshEmail('subject');
+    const inv = await owner.client.post(`/api/studios/${st.body.id}/members`, { email: to, role: 'crew' });
+    expect(inv.status, JSON.stringify(inv.body)).toBe(201);
+    const [mail] = await inboxFor(base, to);
+    expect(mail?.subject).toBe('Join Harbour Bcc: all@example.test oiduts on Falloff');
+    expect(mail?.to).toEqual([to]);
+  });
+
   it('as well-formed SVG (XML), as a PNG and as a PDF', async () => {
     const s = await newSetup(owner.client, { title: 'Stored before the rules', document: documentWith(1) });
     // Written straight into the database, as an older server would have let it through.
@@ -183,5 +197,28 @@ describe('a label stored before the text rules still exports', () => {
     // And the setup still opens in the editor: the read path cleans the stored text.
     const read = await owner.client.get(`/api/setups/${s.id}`);
     expect(read.status).toBe(200);
+  });
+});
+
+describe('the day sheet cover follows the text rules', () => {
+  it('a NUL, a control character or 100 000 characters in its title or date is a 400 naming the field', async () => {
+    const c = owner.client;
+    const post = (body: Record<string, unknown>) => c.post('/api/day-sheet.pdf', { setupIds: [setupId], ...body });
+    expectRefused(await post({ title: `Shoot${NUL}day` }), 'title');
+    expectRefused(await post({ date: `Saturday\u0007 14 March` }), 'date');
+    expectRefused(await post({ title: 'Shoot\nday' }), 'title');
+    expectRefused(await post({ title: 'x'.repeat(100_000) }), 'title', /at most 120 characters/);
+    expectRefused(await post({ date: 'x'.repeat(100_000) }), 'date', /at most 60 characters/);
+  });
+
+  it('bidi override and isolate controls are taken out of the title and date printed on the cover', async () => {
+    const body = JSON.stringify({ setupIds: [setupId], title: `${RLO}Track day\u202c`, date: `\u2066Saturday${RLO} 14 March\u2069` });
+    const r = await raw(base, owner.client, '/api/day-sheet.pdf', { method: 'POST', body, headers: { 'content-type': 'application/json' } });
+    expect(r.status, r.body.toString().slice(0, 300)).toBe(200);
+    expect(r.disposition).toContain('day-sheets-track-day.pdf');
+    const { text } = await pdfText(r.body);
+    expect(text).toContain('Track day');
+    expect(text).toContain('Saturday 14 March');
+    expect(text).not.toMatch(/[\u202a-\u202e\u2066-\u2069]/);
   });
 });
