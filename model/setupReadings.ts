@@ -22,6 +22,14 @@ export function mapGridFor(stage: SetupDocument['stage']) {
   };
 }
 
+/** What a screen shows while its readings are still being computed (hooks that compute off the main thread). */
+export const readingsPending: Readings = {
+  build: { scene: null, missing: [], assumedCamera: false },
+  meter: null,
+  map: null,
+  error: 'the meter is still reading the plan',
+};
+
 export function computeReadings(doc: SetupDocument, opts: { stepIndex?: number; lightMap?: boolean; cache?: LightMapCache } = {}): Readings {
   const build = sceneFromDocument(doc, { stepIndex: opts.stepIndex });
   if (!build.scene) return { build, meter: null, map: null, error: build.error ?? null };

@@ -12,6 +12,7 @@ import { ApiRequestError } from '../../hooks/api';
 import { useShareMembership, useSharedSetup } from '../../hooks/shares';
 import { CommentThread } from '../comments/CommentThread';
 import { crewSheet, type CrewSheet, type Reading } from '../../model/crewSheet';
+import { readingsPending } from '../../model/setupReadings';
 import { Loading } from '../Loading';
 import { Body, Title } from '../ui';
 import { FrameView } from '../frame/FrameView';
@@ -44,8 +45,9 @@ function Shared({ token, data }: { token: string; data: NonNullable<ReturnType<t
   const { width, height } = useWindowDimensions();
   const doc = data.document;
   const store = useMemo(() => createEditor(doc, { readOnly: true }), [doc]);
+  // From the meter's worker, after the plan has painted (null until then: the sheet says it is reading).
   const readings = useReadings(doc, { lightMap: true });
-  const sheet = useMemo(() => crewSheet(doc, { title: data.title, units: data.units, readings }), [doc, data.title, data.units, readings]);
+  const sheet = useMemo(() => crewSheet(doc, { title: data.title, units: data.units, readings: readings ?? readingsPending }), [doc, data.title, data.units, readings]);
   const planH = Math.round(Math.min(Math.max(280, Math.min(width, 760) * ((doc.stage.depthM + 1) / (doc.stage.widthM + 1))), height * 0.62));
   const saved = formatDate(data.updatedAt);
   return (
@@ -59,11 +61,11 @@ function Shared({ token, data }: { token: string; data: NonNullable<ReturnType<t
         <Text style={s.meta}>
           {data.studioName} · version {data.version} · saved {saved}
         </Text>
-        <FirstNumbers sheet={sheet} />
+        <FirstNumbers sheet={sheet} reading={!readings} />
       </View>
       <View style={[s.plan, { height: planH }]} testID="shared-plan">
         <EditorContext.Provider value={store}>
-          <PlanCanvas theme={graphiteTheme} units={data.units} lightMap={readings.map} testID="plan" />
+          <PlanCanvas theme={graphiteTheme} units={data.units} lightMap={readings?.map ?? null} testID="plan" />
         </EditorContext.Provider>
       </View>
       <View style={s.column}>
@@ -121,7 +123,7 @@ function MemberComments({ token, data }: { token: string; data: NonNullable<Retu
   );
 }
 
-function FirstNumbers({ sheet }: { sheet: CrewSheet }) {
+function FirstNumbers({ sheet, reading }: { sheet: CrewSheet; reading: boolean }) {
   const cam = sheet.camera[0]!;
   const subject = sheet.readings[0]!;
   return (
@@ -134,7 +136,9 @@ function FirstNumbers({ sheet }: { sheet: CrewSheet }) {
       </View>
       <View style={s.firstRow}>
         <Text style={s.firstLabel}>SUBJECT READS</Text>
-        <Text style={s.firstValue}>{subject.value}</Text>
+        <Text style={[s.firstValue, reading && { color: colours.textDim }]} testID="shared-subject">
+          {reading ? 'reading…' : subject.value}
+        </Text>
       </View>
     </View>
   );

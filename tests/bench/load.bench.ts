@@ -7,7 +7,8 @@
  *   sign-in   /sign-in, usable when the e-mail field shows
  *   library   /setups signed in, usable when setup cards show
  *   editor    /setups/<id> signed in, usable when the plan shows its items and the meter its subject reading
- *   share     a read-only link /s/<token> with no account, usable when the plan and the camera settings show
+ *   share     a read-only link /s/<token> with no account, usable when the plan, the camera settings and the
+ *             subject's reading (from the meter's worker) show
  * and the same for an Expo Router hello-world built from the very same package versions in a temp folder (its
  * node_modules is a link to ours: nothing is downloaded), usable when its text shows.
  * For each: first contentful paint, usable, JavaScript and font bytes transferred (compressed, as sent), and the
@@ -28,20 +29,14 @@ import { basename, join } from 'node:path';
 import express from 'express';
 import { TraceMap, decodedMappings } from '@jridgewell/trace-mapping';
 import { chromium, type Browser } from 'playwright-core';
-import { startServer } from '../../server/main';
 import { webFiles } from '../../server/web';
 import { precompressDir } from '../../scripts/precompress.mjs';
-import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
-import { TEST_DATABASE_URL } from '../support/env';
-import { Client } from '../support/http';
+import { appPages, has, ownerOf, launchChromium, phone, phonePage, type Cookie, type PageSpec } from './loadPages';
 
 const root = join(__dirname, '..', '..');
 const RUNS = Number(process.env.LOAD_RUNS ?? 3);
 const SETTLE_MS = 1500;
 const USABLE_TIMEOUT_MS = 90_000;
-const phone = { downKbps: 1600, upKbps: 750, rttMs: 150, cpu: 4 };
-
-type PageSpec = { name: string; url: string; cookies?: boolean; usable: string };
 type Run = { fcp: number | null; usable: number | null; jsBytes: number; fontBytes: number; otherBytes: number; longTasks: number[]; scripts: string[] };
 
 // ——— the hello-world ———
@@ -119,22 +114,10 @@ const watcher = (usable: string) => `
   requestAnimationFrame(tick);
 })();`;
 
-async function loadOnce(browser: Browser, spec: PageSpec, cookies: { name: string; value: string; url: string }[]): Promise<Run> {
-  const context = await browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 3, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+async function loadOnce(browser: Browser, spec: PageSpec, cookies: Cookie[]): Promise<Run> {
+  const { context, page, cdp } = await phonePage(browser, spec, cookies);
   try {
-    if (spec.cookies) await context.addCookies(cookies);
-    const page = await context.newPage();
     await page.addInitScript(watcher(spec.usable));
-    const cdp = await context.newCDPSession(page);
-    await cdp.send('Network.enable');
-    await cdp.send('Network.setCacheDisabled', { cacheDisabled: true });
-    await cdp.send('Network.emulateNetworkConditions', {
-      offline: false,
-      latency: phone.rttMs,
-      downloadThroughput: (phone.downKbps * 1000) / 8,
-      uploadThroughput: (phone.upKbps * 1000) / 8,
-    });
-    await cdp.send('Emulation.setCPUThrottlingRate', { rate: phone.cpu });
     const kinds = new Map<string, { type: string; url: string }>();
     const bytes = { js: 0, font: 0, other: 0 };
     const scripts: string[] = [];
@@ -164,17 +147,6 @@ async function loadOnce(browser: Browser, spec: PageSpec, cookies: { name: strin
 }
 
 // ——— what the JavaScript is made of (source maps) ———
-
-/** Package (node_modules/<name> or @scope/name) or our own top folder for a source path from a map. */
-function ownerOf(source: string): string {
-  const nm = source.lastIndexOf('node_modules/');
-  if (nm >= 0) {
-    const rest = source.slice(nm + 'node_modules/'.length).split('/');
-    return rest[0]!.startsWith('@') ? `${rest[0]}/${rest[1]}` : rest[0]!;
-  }
-  const parts = source.replace(/^(\.\.\/|\.\/|\/)+/, '').split('/');
-  return parts.length > 1 ? `${parts[0]}/ (ours)` : `${parts[0]} (ours)`;
-}
 
 /** Raw bytes of one built file per owner, by walking its mappings (a segment owns the columns up to the next). */
 function breakdown(jsPath: string, mapPath: string, into: Map<string, number>) {
@@ -225,40 +197,11 @@ const sec = (ms: number) => (Number.isFinite(ms) ? `${(ms / 1000).toFixed(2)} s`
 async function main() {
   const helloDir = helloWorld();
   const hello = await serveHello(helloDir);
-  const app = await startServer({ databaseUrl: TEST_DATABASE_URL, port: 0, logLevel: 'error' });
-  const base = app.url;
-  // The demo owner's session (signed in once, through the API) and one of their setups, and a read-only link to it.
-  const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
-  const list = await owner.get<{ setups: { id: string; title: string }[] }>('/api/setups');
-  if (list.status !== 200 || !list.body.setups?.length) throw new Error(`the demo owner has no setups: ${list.status}`);
-  const setup = list.body.setups[0]!;
-  const made = await owner.post<{ url: string }>(`/api/setups/${setup.id}/shares`, { label: 'Load bench' });
-  if (made.status !== 201) throw new Error(`making a link failed: ${made.status} ${JSON.stringify(made.body)}`);
-  const shareUrl = new URL(new URL(made.body.url).pathname, base).href;
-  const cookies = owner
-    .cookieHeader()
-    .split('; ')
-    .filter(Boolean)
-    .map((c) => ({ name: c.slice(0, c.indexOf('=')), value: c.slice(c.indexOf('=') + 1), url: base }));
+  const app = await appPages();
+  const specs: PageSpec[] = [{ name: 'hello-world', url: `${hello.url}/`, usable: `() => ${has('[data-testid="hello"]')}` }, ...app.specs];
+  const cookies = app.cookies;
 
-  const has = (sel: string) => `document.querySelector(${JSON.stringify(sel)})`;
-  const specs: PageSpec[] = [
-    { name: 'hello-world', url: `${hello.url}/`, usable: `() => ${has('[data-testid="hello"]')}` },
-    { name: 'sign-in', url: `${base}/sign-in`, usable: `() => ${has('input[type="email"], input[autocomplete="email"], input[aria-label="E-mail"]')}` },
-    { name: 'library', url: `${base}/setups`, cookies: true, usable: `() => ${has('[data-testid="setup-card"]')}` },
-    {
-      name: 'editor',
-      url: `${base}/setups/${setup.id}`,
-      cookies: true,
-      usable: `() => document.querySelectorAll('[data-testid="plan"] [data-testid^="item-"]').length > 0 && /^Subject/.test(${has('[data-testid="meter-peek"]')}?.textContent ?? '')`,
-    },
-    { name: 'share', url: shareUrl, usable: `() => ${has('[data-testid="shared-plan"] svg')} && ${has('[data-testid="shared-camera"]')}` },
-  ];
-
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
+  const browser = await launchChromium(chromium);
   mkdirSync(join(root, 'tests', '.artifacts'), { recursive: true });
   const results = new Map<string, Run[]>();
   let broken = 0;

@@ -98,10 +98,19 @@ describe('first load', () => {
     const page = await context.newPage();
     const errors = watchErrors(page);
     const scripts: string[] = [];
+    const workers: string[] = [];
     page.on('request', (r) => r.resourceType() === 'script' && scripts.push(new URL(r.url()).pathname));
+    page.on('worker', (w) => workers.push(new URL(w.url()).pathname));
     await page.goto(new URL(new URL(made.body.url).pathname, base).href);
     await expect.poll(() => page.getByTestId('shared-camera').isVisible(), { timeout: 30_000 }).toBe(true);
     expect(await page.getByTestId('shared-plan').locator('svg').count()).toBeGreaterThan(0);
+    // The readings come from the live meter's Web Worker (canvas/useReadings.ts), after the plan: an aperture
+    // at the subject, and the same in the sheet's meter section.
+    await expect.poll(() => page.getByTestId('shared-subject').textContent(), { timeout: 30_000 }).toMatch(/^f\/\d/);
+    const subject = (await page.getByTestId('shared-subject').textContent())!;
+    await expect.poll(() => page.getByText('At the subject').first().isVisible()).toBe(true);
+    expect(await page.getByText(subject, { exact: true }).count()).toBeGreaterThanOrEqual(2);
+    expect(workers).toContain('/workers/meter.js');
     // Its own chunk (the plan, the meter, the document model), not the editor's workspace chunk.
     expect(scripts.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
