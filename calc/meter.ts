@@ -72,6 +72,8 @@ type SurfaceHit = { t: number; x: number; y: number; nx: number; ny: number; sur
 function firstSurfaceHit(scene: Scene, ox: number, oy: number, dx: number, dy: number, tMin: number, accept: (s: Scene['surfaces'][number], t: number) => boolean = () => true): SurfaceHit | null {
   let hit: SurfaceHit | null = null;
   for (const s of scene.surfaces) {
+    // A tilted panel (a card or reflector leaning back) is never taken for the background.
+    if (s.tiltDeg) continue;
     const ex = s.x2 - s.x1;
     const ey = s.y2 - s.y1;
     const denom = dx * ey - dy * ex;

@@ -151,7 +151,7 @@ function withBody(o: Occluders, scene: Scene): Occluders {
   const surface = new Int32Array(n);
   surface.set(o.surface);
   surface.fill(BODY_SURFACE, o.count);
-  return {
+  const out: Occluders = {
     count: n,
     ax: grow(o.ax, (i) => body[i]!.ax),
     ay: grow(o.ay, (i) => body[i]!.ay),
@@ -162,13 +162,20 @@ function withBody(o: Occluders, scene: Scene): Occluders {
     transmission: grow(o.transmission, () => 0),
     surface,
   };
+  if (o.tilted) {
+    // The body's panels are upright: zeros in the tilted panels' arrays.
+    const tilted = new Uint8Array(n);
+    tilted.set(o.tilted);
+    Object.assign(out, { tilted, vx: grow(o.vx!, () => 0), vy: grow(o.vy!, () => 0), vz: grow(o.vz!, () => 0), nx: grow(o.nx!, () => 0), ny: grow(o.ny!, () => 0), nz: grow(o.nz!, () => 0) });
+  }
+  return out;
 }
 
 /** Walls (opaque surfaces) a light stands on, within 1 mm of the line and inside their height. */
 function wallsUnder(L: PreparedLight, o: Occluders): RoomLight['onWalls'] {
   const out: RoomLight['onWalls'] = [];
   for (let i = 0; i < o.count; i++) {
-    if (o.surface[i]! < 0 || o.transmission[i]! > 0) continue;
+    if (o.surface[i]! < 0 || o.transmission[i]! > 0 || o.tilted?.[i] === 1) continue;
     const ex = o.ex[i]!;
     const ey = o.ey[i]!;
     const len2 = ex * ex + ey * ey;
