@@ -396,13 +396,13 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
 
 const shadowRows = new Int32Array(2);
 
-/** Shadows of one light on the grid: walls and flags from the light (or the nine points of a big face), then the body. */
+/** Shadows of one light on the grid: walls and flags from the light (or the 16 points of a big face), then the body. */
 function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
   out.fill(1);
   if (L.face) {
     // Mean transmission over the face's points: out sums what each point's shadows take (1 − t, only over the
     // rows its shadows touched; tmp is put back to 1 there), then becomes (count − sum)/count. Opaque shadows sum
-    // whole numbers, so a point every sample sees shaded is exactly 0, as the mean of the nine was.
+    // whole numbers, so a point every sample sees shaded is exactly 0, as the mean of the samples.
     out.fill(0);
     tmp.fill(1);
     const nx = g.frame.nx;
@@ -461,7 +461,7 @@ function areaAt(L: RoomLight, g: Geometry, k: number): number {
 /**
  * Direct exposure of one light at every grid point, lux·s, as the meter's directLight: beam profile, the
  * receptor's response (flat: cos i; dome: (1 + cos i)/2; pointed: 1), near-field term, shadows (soft from
- * a big face's nine points). Big faces: the exact polygon integral on the coarse grid and near the light,
+ * a big face's 16 points). Big faces: the exact polygon integral on the coarse grid and near the light,
  * its ratio to the point form interpolated between (coarse, then refined where it changes fast).
  */
 export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { parseScene, type SceneInput } from '../../../calc';
+import { lightMap, meter, parseScene, type SceneInput } from '../../../calc';
 import { buildOccluders, buildPatches, panelFrame } from '../../../calc/flatScene';
 import { castShadows } from '../../../calc/shadows';
 import { transmissionAlong } from '../../../calc/transport';
@@ -94,5 +94,30 @@ describe('tilted panels', () => {
       }),
       { numRuns: 150 },
     );
+  });
+});
+
+describe('a flag over part of a big source', () => {
+  // A 90 cm softbox 2 m in front of the face, aimed at it; the flag stands halfway, its edge on the line from the
+  // face to the box's middle, so it hides the half of the face on one side (seen from the subject).
+  const box = { id: 'box', kind: 'flash' as const, x: 2, y: 0, heightM: 1.6, aimDeg: 180, output: { type: 'energy' as const, ratedWs: 400 }, modifier: 'softbox' as const };
+  const half = { id: 'flag', x1: 1, y1: -1, x2: 1, y2: 0, baseM: 0, topM: 3 };
+  const at = (flags: SceneInput['flags'], receptor: 'flat-face' | 'dome-camera' | 'flat-light') =>
+    meter({ lights: [box], flags, subject: { x: 0, y: 0, heightM: 1.6, facingDeg: 0 }, camera: { ...camera, x: 3, y: 0.5 }, options: { bounce: false, receptor } });
+
+  it.each(['flat-face', 'dome-camera', 'flat-light'] as const)('a flag over half of a softbox (seen from the subject) cuts one stop of that light (%s)', (receptor) => {
+    const open = at([], receptor).lights[0]!.luxSeconds;
+    const flagged = at([half], receptor).lights[0]!.luxSeconds;
+    expect(Math.log2(flagged / open)).toBeCloseTo(-1, 2);
+    // A quarter of the face hidden (the flag's edge a quarter of the way across, seen from the face): a quarter off.
+    const quarter = at([{ ...half, y2: -0.45 / 2 / 2 }], receptor).lights[0]!.luxSeconds;
+    expect(Math.log2(quarter / open)).toBeCloseTo(Math.log2(0.75), 2);
+  });
+
+  it('the light map at the subject reads the flagged softbox as the meter does', () => {
+    const sc = { lights: [box], flags: [half], subject: { x: 0, y: 0, heightM: 1.6, facingDeg: 0 }, camera: { ...camera, x: 3, y: 0.5 }, options: { bounce: false } };
+    const m = meter(sc);
+    const map = lightMap(sc, { x0: -1, y0: -1, x1: 1, y1: 1, nx: 21, ny: 21 });
+    expect(map.luxSeconds[10 * 21 + 10]! / m.subject.luxSeconds).toBeCloseTo(1, 2);
   });
 });
