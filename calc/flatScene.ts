@@ -164,8 +164,41 @@ export function prepareLight(l: Light, index: number, scene: Scene): PreparedLig
 }
 
 /**
+ * A panel's plane (a surface, or a flag with heights): the lower edge runs from A = (ax, ay, az) along E = (ex,
+ * ey, 0) (end 1 → end 2), the panel rises from it along V (length topM − baseM, leaning back by the tilt), and
+ * N is the unit front normal (on the right of the walk from end 1 to end 2, turned up by the tilt).
+ */
+export type PanelFrame = { ax: number; ay: number; az: number; ex: number; ey: number; vx: number; vy: number; vz: number; nx: number; ny: number; nz: number; tilted: boolean };
+
+export function panelFrame(p: { x1: number; y1: number; x2: number; y2: number; baseM: number; topM: number; tiltDeg?: number }): PanelFrame {
+  const ex = p.x2 - p.x1;
+  const ey = p.y2 - p.y1;
+  const len = Math.hypot(ex, ey);
+  const hx = len > 0 ? -ey / len : 0;
+  const hy = len > 0 ? ex / len : 0;
+  const tilt = p.tiltDeg ?? 0;
+  const h = p.topM - p.baseM;
+  if (tilt === 0) return { ax: p.x1, ay: p.y1, az: p.baseM, ex, ey, vx: 0, vy: 0, vz: h, nx: hx, ny: hy, nz: 0, tilted: false };
+  const t = (tilt * Math.PI) / 180;
+  const c = Math.abs(tilt) === 90 ? 0 : Math.cos(t);
+  const sn = Math.sin(t);
+  return { ax: p.x1, ay: p.y1, az: p.baseM, ex, ey, vx: -hx * sn * h, vy: -hy * sn * h, vz: c * h, nx: hx * c, ny: hy * c, nz: sn, tilted: true };
+}
+
+/** A panel's plan segment where it crosses height z (tilted panels lean, so it moves with z), or null. */
+export function panelSectionAt(p: { x1: number; y1: number; x2: number; y2: number; baseM: number; topM: number; tiltDeg?: number }, z: number): { x1: number; y1: number; x2: number; y2: number } | null {
+  if (!p.tiltDeg) return p.baseM <= z && z <= p.topM ? p : null;
+  const f = panelFrame(p);
+  if (!(f.vz > 0) || z < f.az || z > f.az + f.vz) return null;
+  const w = (z - f.az) / f.vz;
+  return { x1: f.ax + f.vx * w, y1: f.ay + f.vy * w, x2: f.ax + f.ex + f.vx * w, y2: f.ay + f.ey + f.vy * w };
+}
+
+/**
  * Occluders as a structure of arrays. Each is the plan segment A + s·E (s ∈ [0, 1]) blocking between zLo and
  * zHi with the given transmission. `surface` is the index of the surface it belongs to, −1 for flags.
+ * A tilted panel (`tilted[i]` = 1) is the parallelogram A + s·E + w·V (s, w ∈ [0, 1]) with A at height zLo and unit
+ * normal N; its zLo–zHi is then the height range it spans (for bounding tests).
  */
 export type Occluders = {
   count: number;
@@ -177,24 +210,40 @@ export type Occluders = {
   zHi: Float64Array;
   transmission: Float64Array;
   surface: Int32Array;
+  /** Tilted panels only (absent when none is): 1 for a tilted one, its up edge V and unit normal N. */
+  tilted?: Uint8Array;
+  vx?: Float64Array;
+  vy?: Float64Array;
+  vz?: Float64Array;
+  nx?: Float64Array;
+  ny?: Float64Array;
+  nz?: Float64Array;
 };
 
 export function buildOccluders(scene: Scene): Occluders {
-  const items: { ax: number; ay: number; ex: number; ey: number; zLo: number; zHi: number; t: number; s: number }[] = [];
+  type It = { ax: number; ay: number; ex: number; ey: number; zLo: number; zHi: number; t: number; s: number; f: PanelFrame | null };
+  const items: It[] = [];
+  const framed = (p: Parameters<typeof panelFrame>[0]) => {
+    const f = panelFrame(p);
+    return f.tilted ? f : null;
+  };
   scene.surfaces.forEach((s, i) => {
     if (!s.occludes) return;
-    items.push({ ax: s.x1, ay: s.y1, ex: s.x2 - s.x1, ey: s.y2 - s.y1, zLo: s.baseM, zHi: s.topM, t: 0, s: i });
+    const f = framed(s);
+    items.push({ ax: s.x1, ay: s.y1, ex: s.x2 - s.x1, ey: s.y2 - s.y1, zLo: s.baseM, zHi: f ? f.az + f.vz : s.topM, t: 0, s: i, f });
   });
-  for (const f of scene.flags) {
+  for (const fl of scene.flags) {
+    const f = fl.baseM !== undefined && fl.topM !== undefined ? framed({ ...fl, baseM: fl.baseM, topM: fl.topM }) : null;
     items.push({
-      ax: f.x1,
-      ay: f.y1,
-      ex: f.x2 - f.x1,
-      ey: f.y2 - f.y1,
-      zLo: f.baseM ?? -Infinity,
-      zHi: f.topM ?? Infinity,
-      t: f.transmission,
+      ax: fl.x1,
+      ay: fl.y1,
+      ex: fl.x2 - fl.x1,
+      ey: fl.y2 - fl.y1,
+      zLo: fl.baseM ?? -Infinity,
+      zHi: f ? f.az + f.vz : (fl.topM ?? Infinity),
+      t: fl.transmission,
       s: -1,
+      f,
     });
   }
   const n = items.length;
@@ -219,12 +268,22 @@ export function buildOccluders(scene: Scene): Occluders {
     o.transmission[i] = it.t;
     o.surface[i] = it.s;
   });
+  if (items.some((it) => it.f)) {
+    o.tilted = Uint8Array.from(items, (it) => (it.f ? 1 : 0));
+    const arr = (k: 'vx' | 'vy' | 'vz' | 'nx' | 'ny' | 'nz') => Float64Array.from(items, (it) => (it.f ? it.f[k] : 0));
+    o.vx = arr('vx');
+    o.vy = arr('vy');
+    o.vz = arr('vz');
+    o.nx = arr('nx');
+    o.ny = arr('ny');
+    o.nz = arr('nz');
+  }
   return o;
 }
 
 /**
  * Bounce patches of all bouncing surfaces, as a structure of arrays. Walls: horizontal normal (front side),
- * w along the wall on the plan, v straight up. Floor (normal up) and ceiling (normal down): w = +x, v = +y.
+ * w along the wall on the plan, v straight up (a tilted panel: v up along the panel, the normal turned up). Floor (normal up) and ceiling (normal down): w = +x, v = +y.
  * Surface index: scene.surfaces order, then the floor (surfaces.length) and the ceiling (surfaces.length + 1).
  */
 export type Patches = {
@@ -281,8 +340,11 @@ export function buildPatches(scene: Scene, patchSizeM: number, maxPerSurface: nu
     const len = Math.hypot(dx, dy);
     const wx = dx / len;
     const wy = dy / len;
-    // front: on your right walking from end 1 to end 2 on screen (y down)
-    return { ox: s.x1, oy: s.y1, oz: s.baseM, w: [wx, wy], v: [0, 0, 1], n: [-wy, wx, 0], lw: len, lv: s.topM - s.baseM };
+    const lv = s.topM - s.baseM;
+    // front: on your right walking from end 1 to end 2 on screen (y down), turned up by the tilt
+    if (!s.tiltDeg) return { ox: s.x1, oy: s.y1, oz: s.baseM, w: [wx, wy], v: [0, 0, 1], n: [-wy, wx, 0], lw: len, lv };
+    const f = panelFrame(s);
+    return { ox: s.x1, oy: s.y1, oz: s.baseM, w: [wx, wy], v: [f.vx / lv, f.vy / lv, f.vz / lv], n: [f.nx, f.ny, f.nz], lw: len, lv };
   });
   const f = scene.floor;
   const floorRect = (z: number, up: boolean): Rect | null =>

@@ -6,7 +6,7 @@
  * coarse grid point) and the sample points along the walls.
  */
 import type { GridFrame } from './contours';
-import { type Occluders, MIN_DISTANCE_SQ_M2 } from './flatScene';
+import { type Occluders, MIN_DISTANCE_SQ_M2, panelFrame, panelSectionAt } from './flatScene';
 import type { LightMapGrid } from './lightmap';
 import { PROFILE_LUT_SIZE } from './modifiers';
 import { type FieldReceptor, type Room, type RoomLight, type Weights, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse, patchWeights } from './room';
@@ -144,7 +144,33 @@ function wallStrips(room: Room, z: number): WallStrip[] {
   const scene = room.scene;
   const out: WallStrip[] = [];
   const cam = scene.camera;
-  scene.surfaces.forEach((s, i) => {
+  scene.surfaces.forEach((surface, i) => {
+    if (surface.tiltDeg) {
+      // A tilted panel: its strip runs where it crosses the map's height (clamped to its lower or upper edge),
+      // read 1 mm off its face by a flat disc along its tilted normal, on the camera's side.
+      const f = panelFrame(surface);
+      const w = f.vz > 0 ? Math.min(1, Math.max(0, (z - f.az) / f.vz)) : 0.5;
+      const ox = f.ax + f.vx * w;
+      const oy = f.ay + f.vy * w;
+      const oz = f.az + f.vz * w;
+      const len = Math.hypot(f.ex, f.ey);
+      if (len === 0) return;
+      const sg = (cam.x - ox) * f.nx + (cam.y - oy) * f.ny + (cam.heightM - oz) * f.nz < 0 ? -1 : 1;
+      const count = Math.min(WALL_MAX_SAMPLES, Math.max(2, Math.ceil(len / WALL_SAMPLE_M)));
+      const receptors: FieldReceptor[] = [];
+      for (let k = 0; k < count; k++) {
+        const t = (k + 0.5) / count;
+        receptors.push({ x: ox + f.ex * t + sg * f.nx * 1e-3, y: oy + f.ey * t + sg * f.ny * 1e-3, z: oz + sg * f.nz * 1e-3, nx: sg * f.nx, ny: sg * f.ny, nz: sg * f.nz, kind: 'flat' });
+      }
+      // The strip's plan normal says which side it shows (a panel lying flat: its front's plan direction).
+      const hl = Math.hypot(f.nx, f.ny);
+      const pnx = hl > 1e-9 ? (sg * f.nx) / hl : (-sg * f.ey) / len;
+      const pny = hl > 1e-9 ? (sg * f.ny) / hl : (sg * f.ex) / len;
+      const bounce = receptors.map((r) => patchWeights(room, room.coarse, r, false, 2));
+      out.push({ surfaceIndex: i, surfaceId: surface.id, receptors, bounce, x1: ox, y1: oy, x2: ox + f.ex, y2: oy + f.ey, nx: pnx, ny: pny });
+      return;
+    }
+    const s = surface;
     const ex = s.x2 - s.x1;
     const ey = s.y2 - s.y1;
     const len = Math.hypot(ex, ey);
@@ -198,7 +224,10 @@ function segmentDistance(x: number, y: number, ax: number, ay: number, ex: numbe
  * point whose corners are all left out keeps plain bilinear weights.
  */
 function interpolationWeights(scene: Scene, frame: GridFrame, coarse: GridFrame, step: number, z: number, cell: Int32Array, weights: Float32Array): void {
-  const segs = scene.surfaces.filter((s) => s.baseM <= z && z <= s.topM).map((s) => [s.x1, s.y1, s.x2 - s.x1, s.y2 - s.y1] as const);
+  const segs = scene.surfaces.flatMap((s) => {
+    const c = panelSectionAt(s, z);
+    return c ? [[c.x1, c.y1, c.x2 - c.x1, c.y2 - c.y1] as const] : [];
+  });
   const { nx, ny } = frame;
   const kx = coarse.nx;
   const ky = coarse.ny;
@@ -367,13 +396,13 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
 
 const shadowRows = new Int32Array(2);
 
-/** Shadows of one light on the grid: walls and flags from the light (or the nine points of a big face), then the body. */
+/** Shadows of one light on the grid: walls and flags from the light (or the 16 points of a big face), then the body. */
 function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
   out.fill(1);
   if (L.face) {
     // Mean transmission over the face's points: out sums what each point's shadows take (1 − t, only over the
     // rows its shadows touched; tmp is put back to 1 there), then becomes (count − sum)/count. Opaque shadows sum
-    // whole numbers, so a point every sample sees shaded is exactly 0, as the mean of the nine was.
+    // whole numbers, so a point every sample sees shaded is exactly 0, as the mean of the samples.
     out.fill(0);
     tmp.fill(1);
     const nx = g.frame.nx;
@@ -432,7 +461,7 @@ function areaAt(L: RoomLight, g: Geometry, k: number): number {
 /**
  * Direct exposure of one light at every grid point, lux·s, as the meter's directLight: beam profile, the
  * receptor's response (flat: cos i; dome: (1 + cos i)/2; pointed: 1), near-field term, shadows (soft from
- * a big face's nine points). Big faces: the exact polygon integral on the coarse grid and near the light,
+ * a big face's 16 points). Big faces: the exact polygon integral on the coarse grid and near the light,
  * its ratio to the point form interpolated between (coarse, then refined where it changes fast).
  */
 export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {

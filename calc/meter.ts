@@ -11,9 +11,10 @@ import { type Rgb, cctOfLinearRgb, hueHex, kelvinToLinearRgb, linearRgbToHex, re
 import { apertureForFlashExposure, exposureValue, guideNumberFromCandelaSeconds, luxFromEv100, luxSecondsForAperture } from './exposure';
 import { angleOfViewDeg } from './photometry';
 import type { ByReceptor, ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice, RecordedTone, VsKeyAdvice } from './results';
-import { type Gathered, type Room, bodyPanels, buildRoom, gather, gatherCoarse, subjectReceptors } from './room';
+import { panelFrame } from './flatScene';
+import { type FieldReceptor, type Gathered, type Room, bodyPanels, buildRoom, gather, gatherCoarse, patchResponse, subjectReceptors, unitVector } from './room';
 import { type LightRole, type ReceptorId, type Scene, type SceneInput, parseScene } from './sceneSchema';
-import type { Receptor } from './transport';
+import { type Receptor, transmissionAlong } from './transport';
 import { DEG } from './vec';
 
 
@@ -72,6 +73,8 @@ type SurfaceHit = { t: number; x: number; y: number; nx: number; ny: number; sur
 function firstSurfaceHit(scene: Scene, ox: number, oy: number, dx: number, dy: number, tMin: number, accept: (s: Scene['surfaces'][number], t: number) => boolean = () => true): SurfaceHit | null {
   let hit: SurfaceHit | null = null;
   for (const s of scene.surfaces) {
+    // A tilted panel (a card or reflector leaning back) is never taken for the background.
+    if (s.tiltDeg) continue;
     const ex = s.x2 - s.x1;
     const ey = s.y2 - s.y1;
     const denom = dx * ey - dy * ex;
@@ -198,6 +201,62 @@ function chooseKeyFill(
   };
 }
 
+/**
+ * A panel (reflector or v-flat) is on the fill side when its centre lies more than this far around the subject
+ * from the key (the 3-D angle at the subject's face between the key and the panel). Our own line, not a rule
+ * of the trade: a card beside or below the face, across from the key, fills; one next to the key adds to it.
+ */
+export const FILL_SIDE_MIN_DEG = 45;
+
+/**
+ * The key's light that one panel returns to a receptor at the subject, lux·s (luminance of the key's first and
+ * later bounces on the panel's patches × each patch's response at the receptor × the path's transmission).
+ */
+function panelReturn(room: Room, keyIndex: number, surfaceIndex: number, r: FieldReceptor): number {
+  const P = room.patches;
+  const lay = P.layout[surfaceIndex];
+  if (!lay) return 0;
+  const lum = room.lum[keyIndex]!;
+  let h = 0;
+  for (let i = lay.start; i < lay.start + lay.nu * lay.nv; i++) {
+    const f = patchResponse(P, i, r, 4);
+    if (f === 0) continue;
+    const b = 6 * i + (f > 0 ? 0 : 3);
+    const y = 0.2126 * lum[b]! + 0.7152 * lum[b + 1]! + 0.0722 * lum[b + 2]!;
+    if (y <= 0) continue;
+    h += y * Math.abs(f) * transmissionAlong(room.occFree, P.cx[i]!, P.cy[i]!, P.cz[i]!, r.x, r.y, r.z, P.surface[i]!);
+  }
+  return h;
+}
+
+/**
+ * The key's light returned to the face by fill-side panels (FILL_SIDE_MIN_DEG): read on the fill side by a flat
+ * disc pointed at each panel's centre (the flat-face receptor: by the face's disc, as its ratios are), and the
+ * same panels' share of the key's own ratio reading (`inKey`), which moves from the key side to the fill side.
+ */
+function fillPanels(room: Room, keyIndex: number, keyReceptor: FieldReceptor, flatFace: FieldReceptor | null): { luxSeconds: number; inKey: number; panelIds: string[] } {
+  const out = { luxSeconds: 0, inKey: 0, panelIds: [] as string[] };
+  if (room.lights[keyIndex]!.axialCdS <= 0) return out;
+  const scene = room.scene;
+  const sub = scene.subject;
+  const L = room.lights[keyIndex]!;
+  const k = unitVector(L.px - sub.x, L.py - sub.y, L.pz - sub.heightM);
+  const cosMax = Math.cos(FILL_SIDE_MIN_DEG * DEG);
+  scene.surfaces.forEach((s, i) => {
+    if (!s.bounces || (s.kind !== 'reflector' && s.kind !== 'v-flat')) return;
+    const f = panelFrame(s);
+    const c = unitVector(f.ax + (f.ex + f.vx) / 2 - sub.x, f.ay + (f.ey + f.vy) / 2 - sub.y, f.az + f.vz / 2 - sub.heightM);
+    if (c.nx * k.nx + c.ny * k.ny + c.nz * k.nz >= cosMax) return;
+    const r: FieldReceptor = flatFace ?? { x: sub.x, y: sub.y, z: sub.heightM, ...c, kind: 'flat' };
+    const h = panelReturn(room, keyIndex, i, r);
+    if (h <= 0) return;
+    out.luxSeconds += h;
+    out.inKey += panelReturn(room, keyIndex, i, keyReceptor);
+    out.panelIds.push(s.id);
+  });
+  return out;
+}
+
 /** Meter a scene (validated and defaulted by sceneSchema; throws with the field path if invalid). */
 export function meter(input: SceneInput | Scene): MeterResult {
   return meterParsed(parseScene(input));
@@ -314,8 +373,11 @@ export function meterParsed(scene: Scene): MeterResult {
   const ratioH = ratioReads.map(sumH);
   const kf = chooseKeyFill(scene.lights.map((l, i) => ({ id: l.id, role: l.role, enabled: l.enabled, luxSeconds: ratioH[i]! })));
   const keyIndex = kf.keyId ? scene.lights.findIndex((l) => l.id === kf.keyId) : -1;
-  const keyH = keyIndex >= 0 ? ratioH[keyIndex]! : 0;
-  const fillH = kf.fillIds.reduce((s, id) => s + ratioH[scene.lights.findIndex((l) => l.id === id)]!, 0);
+  // The key's light returned by fill-side panels counts on the fill side of key:fill (and leaves the key's side).
+  const panels =
+    keyIndex >= 0 ? fillPanels(room, keyIndex, receptorId === 'flat-face' ? at.face : at.pointedAt(lights[keyIndex]!), receptorId === 'flat-face' ? at.face : null) : { luxSeconds: 0, inKey: 0, panelIds: [] };
+  const keyH = keyIndex >= 0 ? Math.max(0, ratioH[keyIndex]! - panels.inKey) : 0;
+  const fillH = kf.fillIds.reduce((s, id) => s + ratioH[scene.lights.findIndex((l) => l.id === id)]!, 0) + panels.luxSeconds;
   const keyPointedH = keyIndex >= 0 ? sumH(pointed[keyIndex]!) : 0;
 
   const warnings: MeterWarning[] = [];
@@ -466,6 +528,7 @@ export function meterParsed(scene: Scene): MeterResult {
       ratio: keyH > DARK_LUX_SECONDS && fillH > DARK_LUX_SECONDS ? keyH / fillH : null,
       ratioStops: safeLog2Ratio(keyH, fillH),
       litToShadowRatio: keyH > DARK_LUX_SECONDS && fillH > DARK_LUX_SECONDS ? (keyH + fillH) / fillH : null,
+      fillPanels: { luxSeconds: panels.luxSeconds, panelIds: panels.panelIds },
     },
     background,
     probes: scene.probes.map((p, k) => {

@@ -161,6 +161,12 @@ export type MeterResult = {
     ratioStops: number | null;
     /** (key + fill):fill, the lit side over the shadow side. */
     litToShadowRatio: number | null;
+    /**
+     * The key's light returned to the face by panels on the fill side (reflectors and v-flats more than
+     * FILL_SIDE_MIN_DEG around the subject from the key), lux·s: counted in the fill side of the ratio and taken
+     * out of the key's side. Read pointed at each panel (flat-face receptor: by the face's disc).
+     */
+    fillPanels: { luxSeconds: number; panelIds: string[] };
     /** How the key and fill were chosen: from roles set in the scene, or automatically. */
     rule: 'roles' | 'brightest';
   };

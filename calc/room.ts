@@ -151,7 +151,7 @@ function withBody(o: Occluders, scene: Scene): Occluders {
   const surface = new Int32Array(n);
   surface.set(o.surface);
   surface.fill(BODY_SURFACE, o.count);
-  return {
+  const out: Occluders = {
     count: n,
     ax: grow(o.ax, (i) => body[i]!.ax),
     ay: grow(o.ay, (i) => body[i]!.ay),
@@ -162,13 +162,20 @@ function withBody(o: Occluders, scene: Scene): Occluders {
     transmission: grow(o.transmission, () => 0),
     surface,
   };
+  if (o.tilted) {
+    // The body's panels are upright: zeros in the tilted panels' arrays.
+    const tilted = new Uint8Array(n);
+    tilted.set(o.tilted);
+    Object.assign(out, { tilted, vx: grow(o.vx!, () => 0), vy: grow(o.vy!, () => 0), vz: grow(o.vz!, () => 0), nx: grow(o.nx!, () => 0), ny: grow(o.ny!, () => 0), nz: grow(o.nz!, () => 0) });
+  }
+  return out;
 }
 
 /** Walls (opaque surfaces) a light stands on, within 1 mm of the line and inside their height. */
 function wallsUnder(L: PreparedLight, o: Occluders): RoomLight['onWalls'] {
   const out: RoomLight['onWalls'] = [];
   for (let i = 0; i < o.count; i++) {
-    if (o.surface[i]! < 0 || o.transmission[i]! > 0) continue;
+    if (o.surface[i]! < 0 || o.transmission[i]! > 0 || o.tilted?.[i] === 1) continue;
     const ex = o.ex[i]!;
     const ey = o.ey[i]!;
     const len2 = ex * ex + ey * ey;
@@ -243,8 +250,12 @@ function areaFace(L: PreparedLight): AreaFace | null {
 
 const polyBuf = new Float64Array(3 * 8);
 const quadBuf = new Float64Array(12);
-/** Points of a big face its occlusion is tested from: a 3 × 3 grid at the centres of its thirds. */
-const SAMPLE_FRACTIONS: readonly (readonly [number, number])[] = [-2 / 3, 0, 2 / 3].flatMap((a) => [-2 / 3, 0, 2 / 3].map((b) => [a, b] as const));
+/**
+ * Points of a big face its occlusion is tested from: a 4 × 4 grid at the centres of its quarters. An even count
+ * across: a flag edge over the face's middle (half the face hidden) cuts exactly half (−1 stop), where a 3 × 3
+ * grid with a middle column counted that column all in or all out (−1.6 or −0.6 stop).
+ */
+const SAMPLE_FRACTIONS: readonly (readonly [number, number])[] = [-3 / 4, -1 / 4, 1 / 4, 3 / 4].flatMap((a) => [-3 / 4, -1 / 4, 1 / 4, 3 / 4].map((b) => [a, b] as const));
 
 /**
  * Irradiance per unit luminance from a convex polygon (corners relative to the receptor) on a flat receptor
@@ -337,7 +348,7 @@ export function areaUnshaded(L: RoomLight, face: AreaFace, r: FieldReceptor, cos
   return (L.axialCdS / face.area) * resp * shape;
 }
 
-/** The points of a big face its occlusion is tested from (3 × 3 over the face), absolute plan coordinates. */
+/** The points of a big face its occlusion is tested from (4 × 4 over the face), absolute plan coordinates. */
 export function faceSamplePoints(L: RoomLight, face: AreaFace): [number, number, number][] {
   return SAMPLE_FRACTIONS.map(([a, b]) => [
     L.px + face.u[0] * a + face.v[0] * b,
@@ -358,7 +369,7 @@ function directResult(base: DirectResult, luxSeconds: number, transmission: numb
  * g the receptor's response (flat: cos i; dome: (1 + cos i)/2). Area sources (big modifiers): the face as a
  * Lambertian polygon of luminance I/A, integrated exactly over the receptor (so side-on readings close to a
  * softbox see only the part of the face above their horizon), times the beam's shape beyond a Lambertian face
- * (p(θ)/cos θ, at most 1); transmission averaged over nine points of the face, so a flag over part of the
+ * (p(θ)/cos θ, at most 1); transmission averaged over 16 points of the face, so a flag over part of the
  * face cuts part of the light.
  */
 export function directLight(L: RoomLight, occ: Occluders, r: FieldReceptor): DirectResult {
@@ -429,8 +440,60 @@ export function directLux(L: RoomLight, occ: Occluders, r: FieldReceptor): numbe
   return unshaded * faceTransmission(L, face, occ, r);
 }
 
-/** Transmission from a big face to a receptor: the mean over a few points of the face (SAMPLE_FRACTIONS). */
+/**
+ * Could any occluder stand between a big face and a receptor? A bounding-box test: the box around the face's
+ * corners and the receptor against each occluder's box (its plan extent, a tilted panel's lean included, and
+ * its heights). Conservative: false only when no ray from the face to the receptor can meet an occluder.
+ */
+function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): boolean {
+  let x0 = r.x;
+  let x1 = r.x;
+  let y0 = r.y;
+  let y1 = r.y;
+  let z0 = r.z;
+  let z1 = r.z;
+  for (let k = 0; k < face.n; k++) {
+    const x = L.px + face.pts[3 * k]!;
+    const y = L.py + face.pts[3 * k + 1]!;
+    const z = L.pz + face.pts[3 * k + 2]!;
+    if (x < x0) x0 = x;
+    if (x > x1) x1 = x;
+    if (y < y0) y0 = y;
+    if (y > y1) y1 = y;
+    if (z < z0) z0 = z;
+    if (z > z1) z1 = z;
+  }
+  const tl = occ.tilted;
+  for (let i = 0; i < occ.count; i++) {
+    if (occ.zHi[i]! < z0 || occ.zLo[i]! > z1) continue;
+    const ax = occ.ax[i]!;
+    const ay = occ.ay[i]!;
+    const bx = ax + occ.ex[i]!;
+    const by = ay + occ.ey[i]!;
+    let lx = Math.min(ax, bx);
+    let hx = Math.max(ax, bx);
+    let ly = Math.min(ay, by);
+    let hy = Math.max(ay, by);
+    if (tl !== undefined && tl[i] === 1) {
+      const vx = occ.vx![i]!;
+      const vy = occ.vy![i]!;
+      lx = Math.min(lx, lx + vx);
+      hx = Math.max(hx, hx + vx);
+      ly = Math.min(ly, ly + vy);
+      hy = Math.max(hy, hy + vy);
+    }
+    if (hx < x0 || lx > x1 || hy < y0 || ly > y1) continue;
+    return true;
+  }
+  return false;
+}
+
+/**
+ * Transmission from a big face to a receptor: the mean over the face's points (SAMPLE_FRACTIONS), each ray tested
+ * only when some occluder's box meets the face–receptor box (most receptors in a room have none in the way).
+ */
 function faceTransmission(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): number {
+  if (!anyOccluderNear(L, face, occ, r)) return 1;
   let t = 0;
   for (const [a, b] of SAMPLE_FRACTIONS) {
     const sx = L.px + face.u[0] * a + face.v[0] * b;

@@ -112,6 +112,14 @@ const continuousLightSchema = z.object({
 const lightSchema = z.discriminatedUnion('kind', [flashLightSchema, continuousLightSchema]);
 
 /**
+ * A panel's tilt, degrees: 0 upright; positive turns its front face up (its lower edge stays on the plan
+ * segment at baseM and the panel leans back, away from the side its front faces), negative turns it down (it
+ * leans forward). Its height topM − baseM is measured along the panel, so a tilted panel's top edge is lower
+ * than topM: baseM + (topM − baseM)·cos tilt. ±90 lies flat.
+ */
+const panelTilt = z.number().min(-90).max(90).default(0);
+
+/**
  * A vertical surface standing on the plan segment (x1, y1)–(x2, y2), from baseM to topM: wall, backdrop,
  * reflector or v-flat. It bounces light (one bounce) and blocks light crossing it. Its front side is on your
  * right as you walk from (x1, y1) to (x2, y2) on screen; backColour/backReflectance apply to the other side
@@ -134,6 +142,7 @@ const surfaceSchema = z
     backReflectance: z.number().min(0).max(1).optional(),
     bounces: z.boolean().default(true),
     occludes: z.boolean().default(true),
+    tiltDeg: panelTilt,
   })
   .refine((s) => Math.hypot(s.x2 - s.x1, s.y2 - s.y1) >= 0.01, {
     message: 'surface is shorter than 1 cm',
@@ -144,7 +153,7 @@ const surfaceSchema = z
 /**
  * A flag, scrim or negative fill on the segment (x1, y1)–(x2, y2): blocks light, does not bounce.
  * transmission: fraction passed (0 = opaque flag; 0.5 = a one-stop scrim). Height range optional: absent
- * bounds mean it blocks at every height (plain plan occlusion).
+ * bounds mean it blocks at every height (plain plan occlusion), and then tiltDeg is ignored.
  */
 const flagSchema = z
   .object({
@@ -156,6 +165,7 @@ const flagSchema = z
     baseM: heightM.optional(),
     topM: heightM.optional(),
     transmission: z.number().min(0).max(1).default(0),
+    tiltDeg: panelTilt,
   })
   .refine((f) => f.baseM === undefined || f.topM === undefined || f.topM > f.baseM, {
     message: 'topM must be above baseM',

@@ -11,8 +11,17 @@
 import type { GridFrame } from './contours';
 import type { Occluders } from './flatScene';
 
-const qu = new Float64Array(4);
-const qv = new Float64Array(4);
+const qu = new Float64Array(8);
+const qv = new Float64Array(8);
+/** Clipping buffers for a tilted panel's polygon (3-D corners, at most 4 + 2 clips). */
+const cx = new Float64Array(8);
+const cy = new Float64Array(8);
+const cz = new Float64Array(8);
+const tx = new Float64Array(8);
+const ty = new Float64Array(8);
+const tz = new Float64Array(8);
+/** Crossings nearer the source than this fraction of the way project beyond any grid (a tilted panel's polygon is clipped there). */
+const TILT_NEAR_T = 1e-7;
 /** Rows in which the last castShadows changed any cell (rowLo > rowHi: none). */
 let rowLo = 0;
 let rowHi = -1;
@@ -44,6 +53,10 @@ export function castShadows(
     if (skipSurface >= 0 && occ.surface[o] === skipSurface) continue;
     const T = occ.transmission[o]!;
     if (T === 1) continue;
+    if (occ.tilted !== undefined && occ.tilted[o] === 1) {
+      castTilted(occ, o, sx, sy, sz, zQ, frame, trans, T);
+      continue;
+    }
     // Range of the crossing fraction t for which the ray's height is inside the occluder.
     let tMin: number;
     let tMax: number;
@@ -89,11 +102,95 @@ export function castShadows(
   }
 }
 
-/** Multiply cells (i, j) inside the quad (qu, qv) by T, edges included. */
-function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number): void {
+/**
+ * A tilted panel's shadow on the plane z = zQ: the points Q whose ray from S crosses the panel are the central
+ * projections Q = S + (C − S)/t of its points C with t = (C.z − S.z)/(zQ − S.z) in (0, 1) — the panel's
+ * parallelogram clipped to that slab of heights, then projected corner by corner (a projection from a point on
+ * one side of the plane keeps a convex polygon convex). With the grid at the source's height the rays are
+ * level and cross the panel only along its section at that height: the shadow of that segment.
+ */
+function castTilted(occ: Occluders, o: number, sx: number, sy: number, sz: number, zQ: number, frame: GridFrame, trans: Float32Array, T: number): void {
+  const { nx, ny, x0, y0, dx, dy } = frame;
+  const ax = occ.ax[o]!;
+  const ay = occ.ay[o]!;
+  const az = occ.zLo[o]!;
+  const ex = occ.ex[o]!;
+  const ey = occ.ey[o]!;
+  const vx = occ.vx![o]!;
+  const vy = occ.vy![o]!;
+  const vz = occ.vz![o]!;
+  const dzQ = zQ - sz;
+  if (dzQ === 0) {
+    if (!(vz > 0) || sz < az || sz > az + vz) return;
+    const w = (sz - az) / vz;
+    const px = ax + vx * w - sx;
+    const py = ay + vy * w - sy;
+    const segLen = Math.hypot(ex, ey);
+    const cr = px * (py + ey) - py * (px + ex);
+    if (Math.abs(cr) < 1e-12 || segLen === 0) return;
+    const h = Math.abs(cr) / segLen;
+    const gridSpan = Math.hypot((nx - 1) * dx, (ny - 1) * dy);
+    const toGrid = Math.hypot(x0 + ((nx - 1) * dx) / 2 - sx, y0 + ((ny - 1) * dy) / 2 - sy);
+    const kFar = Math.max(1, (gridSpan + toGrid + 1) / h);
+    qu[0] = (sx + px - x0) / dx;
+    qv[0] = (sy + py - y0) / dy;
+    qu[1] = (sx + px + ex - x0) / dx;
+    qv[1] = (sy + py + ey - y0) / dy;
+    qu[2] = (sx + (px + ex) * kFar - x0) / dx;
+    qv[2] = (sy + (py + ey) * kFar - y0) / dy;
+    qu[3] = (sx + px * kFar - x0) / dx;
+    qv[3] = (sy + py * kFar - y0) / dy;
+    fillConvexQuad(trans, nx, ny, T, 4);
+    return;
+  }
+  // Corners A, A + E, A + E + V, A + V; clip to TILT_NEAR_T ≤ t ≤ 1 − 1e-9 (t linear in the height).
+  cx[0] = ax; cy[0] = ay; cz[0] = az;
+  cx[1] = ax + ex; cy[1] = ay + ey; cz[1] = az;
+  cx[2] = ax + ex + vx; cy[2] = ay + ey + vy; cz[2] = az + vz;
+  cx[3] = ax + vx; cy[3] = ay + vy; cz[3] = az + vz;
+  let m = clipByT(4, sz, dzQ, TILT_NEAR_T, 1, cx, cy, cz, tx, ty, tz);
+  m = clipByT(m, sz, dzQ, 1 - 1e-9, -1, tx, ty, tz, cx, cy, cz);
+  if (m < 3) return;
+  for (let k = 0; k < m; k++) {
+    const k1 = dzQ / (cz[k]! - sz);
+    qu[k] = (sx + (cx[k]! - sx) * k1 - x0) / dx;
+    qv[k] = (sy + (cy[k]! - sy) * k1 - y0) / dy;
+  }
+  fillConvexQuad(trans, nx, ny, T, m);
+}
+
+/**
+ * Sutherland–Hodgman against one bound on t = (z − sz)/dzQ: keep t ≥ bound (sign 1) or t ≤ bound (sign −1).
+ * Writes the clipped polygon into (ox, oy, oz) and returns its corner count.
+ */
+function clipByT(n: number, sz: number, dzQ: number, bound: number, sign: number, ix: Float64Array, iy: Float64Array, iz: Float64Array, ox: Float64Array, oy: Float64Array, oz: Float64Array): number {
+  let m = 0;
+  for (let k = 0; k < n; k++) {
+    const k1 = k + 1 === n ? 0 : k + 1;
+    const fa = sign * ((iz[k]! - sz) / dzQ - bound);
+    const fb = sign * ((iz[k1]! - sz) / dzQ - bound);
+    if (fa >= 0) {
+      ox[m] = ix[k]!;
+      oy[m] = iy[k]!;
+      oz[m] = iz[k]!;
+      m++;
+    }
+    if ((fa >= 0) !== (fb >= 0)) {
+      const u = fa / (fa - fb);
+      ox[m] = ix[k]! + (ix[k1]! - ix[k]!) * u;
+      oy[m] = iy[k]! + (iy[k1]! - iy[k]!) * u;
+      oz[m] = iz[k]! + (iz[k1]! - iz[k]!) * u;
+      m++;
+    }
+  }
+  return m;
+}
+
+/** Multiply cells (i, j) inside the convex polygon (qu, qv) of `count` corners by T, edges included. */
+function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number, count = 4): void {
   let vMin = Infinity;
   let vMax = -Infinity;
-  for (let k = 0; k < 4; k++) {
+  for (let k = 0; k < count; k++) {
     const v = qv[k]!;
     if (v < vMin) vMin = v;
     if (v > vMax) vMax = v;
@@ -103,11 +200,12 @@ function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number):
   for (let j = j0; j <= j1; j++) {
     let uMin = Infinity;
     let uMax = -Infinity;
-    for (let k = 0; k < 4; k++) {
+    for (let k = 0; k < count; k++) {
+      const k1 = k + 1 === count ? 0 : k + 1;
       const ua = qu[k]!;
       const va = qv[k]!;
-      const ub = qu[(k + 1) & 3]!;
-      const vb = qv[(k + 1) & 3]!;
+      const ub = qu[k1]!;
+      const vb = qv[k1]!;
       if ((va > j && vb > j) || (va < j && vb < j)) continue; // edge does not reach this row (compared, not multiplied: tiny products underflow)
       let u: number;
       if (va === vb) {

@@ -38,11 +38,18 @@ export function transmissionAlong(
   const dx = qx - px;
   const dy = qy - py;
   const { ax, ay, ex, ey, surface } = o;
+  const tilted = o.tilted;
   let trans = 1;
   for (let i = 0; i < o.count; i++) {
     if (skipSurface >= 0 && surface[i] === skipSurface) continue;
     const exi = ex[i]!;
     const eyi = ey[i]!;
+    if (tilted !== undefined && tilted[i] === 1) {
+      if (!crossesTilted(o, i, px, py, pz, dx, dy, qz - pz)) continue;
+      trans *= o.transmission[i]!;
+      if (trans === 0) return 0;
+      continue;
+    }
     let denom = dx * eyi - dy * exi;
     if (denom === 0) continue; // parallel
     const apx = ax[i]! - px;
@@ -62,6 +69,38 @@ export function transmissionAlong(
     if (trans === 0) return 0;
   }
   return trans;
+}
+
+/**
+ * Does the segment P → P + D cross tilted panel i (the parallelogram A + s·E + w·V, s, w ∈ [0, 1]) strictly
+ * between its ends? E and V are perpendicular (E is horizontal, V lies in the vertical plane across it).
+ */
+function crossesTilted(o: Occluders, i: number, px: number, py: number, pz: number, dx: number, dy: number, dz: number): boolean {
+  const zA = o.zLo[i]!;
+  // Bounding test first: the segment's height range must meet the panel's.
+  if (Math.max(pz, pz + dz) < zA || Math.min(pz, pz + dz) > o.zHi[i]!) return false;
+  const nx = o.nx![i]!;
+  const ny = o.ny![i]!;
+  const nz = o.nz![i]!;
+  const den = dx * nx + dy * ny + dz * nz;
+  if (den === 0) return false;
+  const apx = o.ax[i]! - px;
+  const apy = o.ay[i]! - py;
+  const apz = zA - pz;
+  const t = (apx * nx + apy * ny + apz * nz) / den;
+  if (t <= 1e-9 || t >= 1 - 1e-9) return false;
+  const rx = t * dx - apx;
+  const ry = t * dy - apy;
+  const rz = t * dz - apz;
+  const ex = o.ex[i]!;
+  const ey = o.ey[i]!;
+  const s = (rx * ex + ry * ey) / (ex * ex + ey * ey);
+  if (s < 0 || s > 1) return false;
+  const vx = o.vx![i]!;
+  const vy = o.vy![i]!;
+  const vz = o.vz![i]!;
+  const w = (rx * vx + ry * vy + rz * vz) / (vx * vx + vy * vy + vz * vz);
+  return w >= 0 && w <= 1;
 }
 
 /** Direct result of one light at one receptor, with the geometry the meter reports. */

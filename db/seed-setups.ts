@@ -15,7 +15,7 @@ const clamshell = {
     { id: 'sitter', kind: 'subject', label: 'Sitter', x: 4, y: 3.2, facingDeg: 90, faceHeightM: 1.25, pose: 'seated' },
     { id: 'stool', kind: 'prop', label: 'Posing stool', shape: 'stool', x: 4, y: 3.1 },
     { id: 'key', kind: 'light', label: 'Key — octa above', x: 4, y: 4.1, heightM: 2.1, aimDeg: -90, tiltDeg: -40, source: { type: 'strobe', energyWs: 500 }, power: 1 / 8, modifier: 'octa', role: 'key', stand: 'boom', sandbagged: true },
-    { id: 'under', kind: 'reflector', label: 'Silver under the chin', x: 4, y: 3.75, rotationDeg: -90, widthM: 0.8, heightM: 0.6, finish: 'silver' },
+    { id: 'under', kind: 'reflector', label: 'Silver under the chin', x: 4, y: 3.75, rotationDeg: -90, widthM: 0.8, heightM: 0.6, baseM: 0.65, tiltDeg: 45, finish: 'silver' },
     { id: 'cam', kind: 'camera', label: 'Camera', x: 4, y: 5.4, heightM: 1.3, aimDeg: -90, focalMm: 85, iso: 100, aperture: 8, shutterS: 1 / 160 },
     { id: 'tape1', kind: 'tape', a: { x: 4, y: 3.2 }, b: { x: 4, y: 1.2 } },
   ],

@@ -9,7 +9,7 @@
  * 0.18, sRGB ≈ 118 (IEC 61966-2-1). Channels are clipped at 1 when the look is applied (looks.ts).
  */
 import { kelvinToLinearRgb, linearRgbOf, surfaceReflectance } from '../colour';
-import { surfaceOptics } from '../flatScene';
+import { panelFrame, surfaceOptics } from '../flatScene';
 import type { RoomLight } from '../room';
 import { type Field, type Receptor, bounceInto, directInto, exposureAt, prepareField } from './field';
 import { type FrameInput, type FrameScene, SKIN_HUE, SKIN_TONES, parseFrameInput } from './scene';
@@ -180,31 +180,57 @@ const CLOTH = MAT_CLOTH;
 const TILE_SHIFT = 3;
 const TILE = 1 << TILE_SHIFT;
 
-/** Vertical panels (surfaces, then flags) as flat numbers: x1, y1, ex, ey, base, top, unit normal (nx, ny). */
-const PANEL_STRIDE = 8;
-type Panels = { count: number; data: Float64Array; transmission: Float64Array };
+/**
+ * Panels (surfaces, then flags) as flat numbers: x1, y1, ex, ey, base, top, unit normal (nx, ny, nz), and for a
+ * tilted panel its up edge (vx, vy, vz) with `tilted` 1 (upright panels: the plan test with a height range).
+ */
+const PANEL_STRIDE = 12;
+type Panels = { count: number; data: Float64Array; transmission: Float64Array; tilted: Uint8Array };
 function buildPanels(scene: FrameScene['scene']): Panels {
   const list = [
-    ...scene.surfaces.map((s) => ({ x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, base: s.baseM, top: s.topM, tr: 0 })),
-    ...scene.flags.map((s) => ({ x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, base: s.baseM ?? 0, top: s.topM ?? 2.5, tr: s.transmission })),
+    ...scene.surfaces.map((s) => ({ x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, base: s.baseM, top: s.topM, tr: 0, tilt: s.tiltDeg })),
+    ...scene.flags.map((s) => ({ x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, base: s.baseM ?? 0, top: s.topM ?? 2.5, tr: s.transmission, tilt: s.baseM !== undefined && s.topM !== undefined ? s.tiltDeg : 0 })),
   ];
   const data = new Float64Array(list.length * PANEL_STRIDE);
   const transmission = new Float64Array(list.length);
+  const tilted = new Uint8Array(list.length);
   list.forEach((q, i) => {
-    const ex = q.x2 - q.x1;
-    const ey = q.y2 - q.y1;
-    const len = Math.sqrt(ex * ex + ey * ey) || 1;
-    data.set([q.x1, q.y1, ex, ey, q.base, q.top, -ey / len, ex / len], i * PANEL_STRIDE);
+    const f = panelFrame({ x1: q.x1, y1: q.y1, x2: q.x2, y2: q.y2, baseM: q.base, topM: q.top, tiltDeg: q.tilt });
+    data.set([q.x1, q.y1, f.ex, f.ey, q.base, f.tilted ? q.base + f.vz : q.top, f.nx, f.ny, f.nz, f.vx, f.vy, f.vz], i * PANEL_STRIDE);
     transmission[i] = q.tr;
+    tilted[i] = f.tilted ? 1 : 0;
   });
-  return { count: list.length, data, transmission };
+  return { count: list.length, data, transmission, tilted };
 }
 
 /** Where ray o + t·d meets panel i, t in (1e-6, best), or −1. */
-function hitPanel(P: Float64Array, i: number, ox: number, oy: number, oz: number, dx: number, dy: number, dz: number, best: number): number {
+function hitPanel(P: Float64Array, i: number, tilted: boolean, ox: number, oy: number, oz: number, dx: number, dy: number, dz: number, best: number): number {
   const k = i * PANEL_STRIDE;
   const ex = P[k + 2]!;
   const ey = P[k + 3]!;
+  if (tilted) {
+    // The parallelogram A + s·E + w·V: meet its plane, then its two edge coordinates (E ⟂ V).
+    const nx = P[k + 6]!;
+    const ny = P[k + 7]!;
+    const nz = P[k + 8]!;
+    const den = dx * nx + dy * ny + dz * nz;
+    if (den === 0) return -1;
+    const apx = P[k]! - ox;
+    const apy = P[k + 1]! - oy;
+    const apz = P[k + 4]! - oz;
+    const t = (apx * nx + apy * ny + apz * nz) / den;
+    if (t <= 1e-6 || t >= best) return -1;
+    const rx = t * dx - apx;
+    const ry = t * dy - apy;
+    const rz = t * dz - apz;
+    const su = (rx * ex + ry * ey) / (ex * ex + ey * ey);
+    if (su < 0 || su > 1) return -1;
+    const vx = P[k + 9]!;
+    const vy = P[k + 10]!;
+    const vz = P[k + 11]!;
+    const w = (rx * vx + ry * vy + rz * vz) / (vx * vx + vy * vy + vz * vz);
+    return w >= 0 && w <= 1 ? t : -1;
+  }
   const denom = dx * ey - dy * ex;
   if (denom === 0) return -1;
   const apx = P[k]! - ox;
@@ -367,7 +393,7 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
       // (near-black); scrims pass the view through at their transmission.
       let panel = -1;
       for (let i = 0; i < panels.count; i++) {
-        const t = hitPanel(panels.data, i, ox, oy, oz, dx, dy, dz, best);
+        const t = hitPanel(panels.data, i, panels.tilted[i] === 1, ox, oy, oz, dx, dy, dz, best);
         if (t < 0) continue;
         const tr = panels.transmission[i]!;
         if (tr > 0) {
@@ -381,14 +407,16 @@ export function renderFrame(input: FrameInput | PreparedFrame, opts: RenderOptio
         const k = panel * PANEL_STRIDE;
         let nx = panels.data[k + 6]!;
         let ny = panels.data[k + 7]!;
-        const front = nx * dx + ny * dy < 0;
+        let nz = panels.data[k + 8]!;
+        const front = nx * dx + ny * dy + nz * dz < 0;
         if (!front) {
           nx = -nx;
           ny = -ny;
+          nz = -nz;
         }
         n[0] = nx;
         n[1] = ny;
-        n[2] = 0;
+        n[2] = nz;
         if (panel < nSurf) {
           id = ID_SURFACE + panel;
           const side = front ? optics[panel]!.front : optics[panel]!.back;

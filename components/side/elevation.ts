@@ -116,7 +116,12 @@ export function sideScene(doc: SetupDocument, refId?: string | null, shown?: rea
       case 'vflat':
       case 'scrim': {
         const { u, off } = along(line, i);
-        shapes.push({ kind: 'panel', id: i.id, bottom: { u, z: i.baseM }, top: { u, z: i.baseM + i.heightM }, faint: off > NEAR_LINE_M, label: names.get(i.id) ?? (i.label || i.kind) });
+        // A tilted panel leans back from its lower edge, away from the way its face points: its top edge moves
+        // by h·sin(tilt) against the facing (projected on the line) and drops to h·cos(tilt) over the lower edge.
+        const t = (i.tiltDeg * Math.PI) / 180;
+        const r = (i.rotationDeg * Math.PI) / 180;
+        const lean = i.heightM * Math.sin(t) * ((Math.cos(r) * (line.to.x - line.from.x) + Math.sin(r) * (line.to.y - line.from.y)) / Math.hypot(line.to.x - line.from.x, line.to.y - line.from.y));
+        shapes.push({ kind: 'panel', id: i.id, bottom: { u, z: i.baseM }, top: { u: u - lean, z: i.baseM + i.heightM * Math.cos(t) }, faint: off > NEAR_LINE_M, label: names.get(i.id) ?? (i.label || i.kind) });
         break;
       }
       case 'wall': {
@@ -126,8 +131,8 @@ export function sideScene(doc: SetupDocument, refId?: string | null, shown?: rea
       }
     }
   }
-  const us = shapes.flatMap((s) => (s.kind === 'panel' ? [s.bottom.u] : s.kind === 'wall' ? [s.u] : [s.at.u]));
-  const zs = shapes.flatMap((s) => (s.kind === 'panel' ? [s.top.z] : s.kind === 'wall' ? [Math.min(s.top, 4)] : [s.at.z]));
+  const us = shapes.flatMap((s) => (s.kind === 'panel' ? [s.bottom.u, s.top.u] : s.kind === 'wall' ? [s.u] : [s.at.u]));
+  const zs = shapes.flatMap((s) => (s.kind === 'panel' ? [s.top.z, s.bottom.z] : s.kind === 'wall' ? [Math.min(s.top, 4)] : [s.at.z]));
   const ceiling = doc.meter.ceiling.heightM;
   const u0 = Math.min(0, ...us) - 0.6;
   const u1 = Math.max(...us, along(line, line.to).u) + 0.8;

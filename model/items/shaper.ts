@@ -17,6 +17,11 @@ const panel = (d: { widthM: number; heightM: number; baseM: number }) => ({
   heightM: positiveMetres(10).default(d.heightM),
   /** Height of the panel's lower edge above the floor. */
   baseM: z.number().min(0).max(10).default(d.baseM),
+  /**
+   * Tilt, degrees: 0 upright; positive turns the working face up (the lower edge stays put and the panel leans
+   * back, e.g. a card under the chin at 45° facing up at the face), negative turns it down (a flag over a head).
+   */
+  tiltDeg: z.number().min(-90).max(90).default(0),
 });
 
 const reflectorSchema = z
@@ -66,6 +71,7 @@ function panelSurface(p: Reflector | VFlat): SurfaceInput {
     y2: b.y,
     baseM: p.baseM,
     topM: p.baseM + p.heightM,
+    tiltDeg: p.tiltDeg,
     colour: face.colour,
     reflectance: face.reflectance,
     backColour: back.colour,
@@ -83,15 +89,23 @@ function panelFlag(p: Flag | Scrim): FlagInput {
     y2: b.y,
     baseM: p.baseM,
     topM: p.baseM + p.heightM,
+    tiltDeg: p.tiltDeg,
     transmission: p.kind === 'scrim' ? 2 ** -p.lossStops : 0,
   };
 }
 
 const size = (p: Panel, units: Units) => `${formatLength(p.widthM, units)} × ${formatLength(p.heightM, units)}`;
 const lowerEdge = (p: Panel, units: Units) => `lower edge at ${formatLength(p.baseM, units)}`;
+/** The crew sheet's words for a tilt ("tilted 45° face up"), or nothing for an upright panel. */
+export const tiltWords = (p: Panel): string => (p.tiltDeg === 0 ? '' : `, tilted ${Math.abs(p.tiltDeg)}° face ${p.tiltDeg > 0 ? 'up' : 'down'}`);
 
 /** Size fields every panel has, after its own. */
-const sizeFields = <T extends Panel>(): FieldSpec<T>[] => [lengthField<T>('Width', 'widthM', 0.1), lengthField<T>('Height', 'heightM', 0.1), lengthField<T>('Lower edge', 'baseM', 0.1, { min: 0, max: 10 })];
+const sizeFields = <T extends Panel>(): FieldSpec<T>[] => [
+  lengthField<T>('Width', 'widthM', 0.1),
+  lengthField<T>('Height', 'heightM', 0.1),
+  lengthField<T>('Lower edge', 'baseM', 0.1, { min: 0, max: 10 }),
+  numberField<T>('Tilt (°)', 'tiltDeg', { by: 5, min: -90, max: 90 }),
+];
 
 const panelKind = {
   group: 'shaper',
@@ -110,7 +124,7 @@ export const reflectorKind = defineKind({
   label: 'Reflector',
   fields: [choiceField<Reflector>('Finish', 'finish', [{ id: 'white', label: 'white' }, { id: 'silver', label: 'silver' }, { id: 'gold', label: 'gold' }]), ...sizeFields<Reflector>()],
   meter: (p) => ({ surface: panelSurface(p) }),
-  gear: (p, units) => `${p.finish} reflector, ${size(p, units)}, ${lowerEdge(p, units)}`,
+  gear: (p, units) => `${p.finish} reflector, ${size(p, units)}, ${lowerEdge(p, units)}${tiltWords(p)}`,
 });
 
 export const flagKind = defineKind({
@@ -120,7 +134,7 @@ export const flagKind = defineKind({
   label: 'Flag',
   fields: sizeFields<Flag>(),
   meter: (p) => ({ flag: panelFlag(p) }),
-  gear: (p, units) => `flag, ${size(p, units)}, ${lowerEdge(p, units)}`,
+  gear: (p, units) => `flag, ${size(p, units)}, ${lowerEdge(p, units)}${tiltWords(p)}`,
 });
 
 export const vflatKind = defineKind({
@@ -130,7 +144,7 @@ export const vflatKind = defineKind({
   label: 'V-flat',
   fields: [choiceField<VFlat>('Face towards the set', 'face', [{ id: 'white', label: 'white (bounce)' }, { id: 'black', label: 'black (negative fill)' }]), ...sizeFields<VFlat>()],
   meter: (p) => ({ surface: panelSurface(p) }),
-  gear: (p, units) => `v-flat, ${p.face} side to the set, ${size(p, units)}`,
+  gear: (p, units) => `v-flat, ${p.face} side to the set, ${size(p, units)}${tiltWords(p)}`,
 });
 
 export const scrimKind = defineKind({
@@ -140,5 +154,5 @@ export const scrimKind = defineKind({
   label: 'Scrim',
   fields: [numberField<Scrim>('Loss (stops)', 'lossStops', { digits: 1, by: 0.5, min: 0, max: 6 }), ...sizeFields<Scrim>()],
   meter: (p) => ({ flag: panelFlag(p) }),
-  gear: (p, units) => `scrim, ${size(p, units)}, about ${formatStops(-p.lossStops)} stops`,
+  gear: (p, units) => `scrim, ${size(p, units)}, about ${formatStops(-p.lossStops)} stops${tiltWords(p)}`,
 });

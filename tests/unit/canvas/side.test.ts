@@ -27,6 +27,17 @@ describe('the cut along the camera', () => {
     expect(sc.shapes.find((s) => s.id === 'backdrop')).toMatchObject({ kind: 'wall', u: expect.closeTo(4.2, 9) });
   });
 
+  it('leans a tilted panel: the card under the chin, turned 45° face up, leans back towards the camera from its lower edge', () => {
+    const base = doc();
+    const items = base.items.map((i) => (i.id === 'under' && i.kind === 'reflector' ? { ...i, tiltDeg: 45, baseM: 0.75 } : i));
+    const card = sideScene({ ...base, items }, 'cam')!.shapes.find((s) => s.id === 'under')!;
+    // The card (4, 3.75) is 1.65 m along the camera's line; it faces the sitter (away from the camera), so its top
+    // leans 0.6·sin 45° back towards the camera and sits 0.6·cos 45° over its lower edge.
+    expect(card).toMatchObject({ kind: 'panel', bottom: { u: expect.closeTo(1.65, 9), z: 0.75 }, top: { u: expect.closeTo(1.65 - 0.6 * Math.SQRT1_2, 9), z: expect.closeTo(0.75 + 0.6 * Math.SQRT1_2, 9) } });
+    const upright = sideScene({ ...base, items: base.items.map((i) => (i.id === 'under' && i.kind === 'reflector' ? { ...i, tiltDeg: 0 } : i)) }, 'cam')!.shapes.find((s) => s.id === 'under')!;
+    expect(upright.kind === 'panel' && upright.top.u).toBeCloseTo(upright.kind === 'panel' ? upright.bottom.u : NaN, 9);
+  });
+
   it('cuts along a chosen light instead', () => {
     const sc = sideScene(doc(), 'key')!;
     expect(sc.line.fromId).toBe('key');

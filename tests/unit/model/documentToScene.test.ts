@@ -5,6 +5,7 @@ import { demoSetups } from '../../../db/seed-setups';
 import { parseDocument, type SetupDocument } from '../../../model/document';
 import { itemsAtStep, sceneFromDocument } from '../../../model/documentToScene';
 import { panelEnds } from '../../../model/items/shaper';
+import { kindOf } from '../../../model/kinds';
 
 function doc(items: unknown[], extra: Record<string, unknown> = {}): SetupDocument {
   return parseDocument({ schemaVersion: 1, stage: { widthM: 8, depthM: 6 }, items, ...extra });
@@ -33,6 +34,19 @@ describe('sceneFromDocument', () => {
     const over = sceneFromDocument(doc([subject, camera, ...lights(65)]));
     expect(over.scene).toBeNull();
     expect(over.error).toBe('The meter takes at most 64 lights; this plan has 65. Remove or merge some to read the light.');
+  });
+
+  it('a tilted card reaches the meter tilted: under a key from above, a card turned 45° face up returns more to the face than an upright one; the crew sheet names the tilt', () => {
+    const key = keyAt(4.2, { heightM: 2.4, tiltDeg: -50, aimDeg: -90 });
+    const card = (tiltDeg: number) => ({ id: 'card', kind: 'reflector', x: 4, y: 3.45, rotationDeg: -90, widthM: 0.6, heightM: 0.5, baseM: 1.1, tiltDeg });
+    const upright = sceneFromDocument(doc([subject, camera, key, card(0)])).scene!;
+    const tilted = sceneFromDocument(doc([subject, camera, key, card(45)])).scene!;
+    expect(tilted.surfaces!.find((s) => s.id === 'card')!.tiltDeg).toBe(45);
+    const bounce = (sc: typeof upright) => meter(sc).subject.bounceLuxSeconds;
+    expect(bounce(tilted)).toBeGreaterThan(1.5 * bounce(upright));
+    const parsed = doc([subject, camera, key, card(45)]).items.find((i) => i.id === 'card')!;
+    expect(kindOf(parsed).gear?.(parsed, 'metric')).toContain('tilted 45° face up');
+    expect(kindOf(doc([card(0)]).items[0]!).gear?.(doc([card(0)]).items[0]!, 'metric')).not.toContain('tilted');
   });
 
   it('says what is missing before a plan can be metered', () => {
