@@ -125,12 +125,13 @@ export function accessibleName(i: Item): string {
 }
 
 /**
- * Every inspector field of an item, in order: its label, position (items placed at a point), the angle it
- * points along (in steps of 5°), the kind's own fields, and the lock.
+ * Every inspector field of an item, in order: the kind's fields changed most (`lead`: a light's power, modifier,
+ * grid and gel), its label, position (items placed at a point), the angle it points along (in steps of 5°), the
+ * kind's other fields, and the lock.
  */
 export function fieldsOf<T extends Item>(item: T): readonly FieldSpec<T>[] {
   const kind = kindOf(item);
-  const out: FieldSpec<T>[] = [textField<T>('Label', 'label')];
+  const out: FieldSpec<T>[] = [...((kind.lead ?? []) as readonly FieldSpec<T>[]), textField<T>('Label', 'label')];
   if (kind.shape !== 'segment') {
     // Positions stay on the stage: a value off it is refused (with the stage's extent in the message), and the
     // steppers stop at its edge, so "fit" always finds the item.

@@ -8,7 +8,7 @@ import { anchorOf, angleTo, createItem, isSegment, moveItem, withAngle, itemsInB
 import { itemSchema } from '../../model/document';
 import { clampScale, fitStage, panBy, zoomAt, type Camera } from './camera';
 import { commit, holdOrCommit, mapItems, nextId, redo, settleDrag, undo, type EditorState, type InputState } from './state';
-import { snapPoint, tidy } from './snap';
+import { gridStepM, snapPoint, tidy } from './snap';
 import { cameraSpot, freeSpot, initialAim, viewCentre } from './placement';
 import { insetCamera } from './inset';
 import { setHeight, setTilt } from './heights';
@@ -27,6 +27,8 @@ export type Action<A = void> = {
 
 const writable = (s: EditorState) => !s.readOnly;
 const hasSelection = (s: EditorState) => !s.readOnly && s.selection.length > 0;
+/** The snapping grid for the view as it is zoomed (0.1 m with no view yet): see snap.ts. */
+const gridOf = (s: EditorState) => gridStepM(s.camera?.scale);
 const unlockedSelection = (s: EditorState) =>
   new Set(s.doc.items.filter((i) => s.selection.includes(i.id) && !i.locked).map((i) => i.id));
 
@@ -94,7 +96,7 @@ export const actions = {
     label: 'Draw a wall',
     enabled: writable,
     perform: (s, { at, gestureKey }) => {
-      const p = s.snap ? snapPoint(at, s.doc.items, new Set()) : at;
+      const p = s.snap ? snapPoint(at, s.doc.items, new Set(), gridOf(s)) : at;
       const end = { x: tidy(p.x), y: tidy(p.y) };
       const wall = createItem('wall', nextId(s.doc, 'wall'), end);
       const next = commit(s, { ...s.doc, items: [...s.doc.items, { ...wall, a: end, b: end }] }, gestureKey);
@@ -123,7 +125,7 @@ export const actions = {
       const ids = new Set(movable.map((i) => i.id));
       const a = anchorOf(first);
       const target = { x: a.x + dx, y: a.y + dy };
-      const snapped = s.snap ? snapPoint(target, s.doc.items, ids) : target;
+      const snapped = s.snap ? snapPoint(target, s.doc.items, ids, gridOf(s)) : target;
       const ddx = snapped.x - a.x;
       const ddy = snapped.y - a.y;
       const byId = new Map(movable.map((i) => [i.id, i]));
@@ -137,7 +139,7 @@ export const actions = {
     label: 'Move end',
     enabled: writable,
     perform: (s, { id, end, to, gestureKey, live }) => {
-      const p = s.snap ? snapPoint(to, s.doc.items, new Set([id])) : to;
+      const p = s.snap ? snapPoint(to, s.doc.items, new Set([id]), gridOf(s)) : to;
       return holdOrCommit(
         s,
         mapItems(s.doc, new Set([id]), (i) => (isSegment(i) && !i.locked ? { ...i, [end]: { x: tidy(p.x), y: tidy(p.y) } } : i)),

@@ -34,6 +34,8 @@ export type KindDef<S extends z.ZodType<ItemLike>> = {
   create: (at: Point) => Record<string, unknown>;
   /** The kind's own inspector fields (label, position, angle and lock are common to all). */
   fields: readonly FieldSpec<z.infer<S>>[];
+  /** Fields changed most often, shown first, before the label and position (a light's power, modifier, gel). */
+  lead?: readonly FieldSpec<z.infer<S>>[];
   /** What it adds to the meter's scene (nothing for items that do not change the light). */
   meter?: (item: z.infer<S>) => MeterPart | null;
   /** Its line in the crew sheet's kit list ("silver reflector, 1 m × 1 m …"), if it has one. */

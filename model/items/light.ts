@@ -162,8 +162,8 @@ export const lightKind = defineKind({
   radiusM: 0.25,
   angle: { key: 'aimDeg', label: 'Aim (°)' },
   create: (at) => ({ x: at.x, y: at.y, aimDeg: -90, source: defaultSources.strobe, power: 1 / 4, modifier: 'softbox' }),
-  fields: [
-    switchField<Light>('On', 'on'),
+  // What is changed most comes first (the inspector opens at it): power, then the modifier, its grid and the gel.
+  lead: [
     {
       type: 'number',
       label: 'Power',
@@ -176,6 +176,18 @@ export const lightKind = defineKind({
       step: (l, d) => ({ power: Math.min(1, Math.max(1 / 256, l.power * third ** d)) }),
       testID: 'field-power',
     },
+    choiceField<Light>('Modifier', 'modifier', modifierChoices),
+    {
+      type: 'choice',
+      label: 'Fabric grid',
+      get: (l) => (l.gridDeg === null ? 'none' : String(l.gridDeg)),
+      options: [{ id: 'none', label: 'none' }, ...['10', '20', '30', '40'].map((g) => ({ id: g, label: `${g}°` }))],
+      set: (v) => ({ gridDeg: v === 'none' ? null : Number(v) }),
+    },
+    choiceField<Light>('Gel', 'gel', gelChoices.map((g) => ({ id: g.id, label: g.label, swatch: g.tint }))),
+  ],
+  fields: [
+    switchField<Light>('On', 'on'),
     lengthField<Light>('Height', 'heightM', 0.1),
     numberField<Light>('Tilt (°, down is −)', 'tiltDeg', { by: 5, min: -90, max: 90 }),
     {
@@ -199,15 +211,6 @@ export const lightKind = defineKind({
     sourceField('continuous', 'Output (lumens)', 'lumens', { min: 1, max: 1e6 }, { luxAt1m: null }),
     sourceField('continuous', 'Draw (W)', 'watts', { min: 0, max: 20000 }),
     sourceField('continuous', 'Colour temperature (K)', 'kelvin', { min: 1000, max: 20000 }),
-    choiceField<Light>('Modifier', 'modifier', modifierChoices),
-    {
-      type: 'choice',
-      label: 'Fabric grid',
-      get: (l) => (l.gridDeg === null ? 'none' : String(l.gridDeg)),
-      options: [{ id: 'none', label: 'none' }, ...['10', '20', '30', '40'].map((g) => ({ id: g, label: `${g}°` }))],
-      set: (v) => ({ gridDeg: v === 'none' ? null : Number(v) }),
-    },
-    choiceField<Light>('Gel', 'gel', gelChoices.map((g) => ({ id: g.id, label: g.label, swatch: g.tint }))),
     choiceField<Light>('Role', 'role', wordOptions(lightRoles)),
     choiceField<Light>('Stand', 'stand', wordOptions(['stand', 'boom', 'floor', 'handheld'])),
     switchField<Light>('Sandbagged', 'sandbagged'),

@@ -5,7 +5,7 @@ import { sketches } from '../../../drawing/glyphs';
 import { graphiteTheme } from '../../../drawing/theme';
 import { itemSchema, parseDocument, type Item } from '../../../model/document';
 import { sceneFromDocument } from '../../../model/documentToScene';
-import { checkNumber, rangeOf, type FieldContext, type FieldSpec } from '../../../model/fields';
+import { checkNumber, fieldLabel, rangeOf, type FieldContext, type FieldSpec } from '../../../model/fields';
 import { roleToMeter } from '../../../model/items/light';
 import { panelEnds } from '../../../model/items/shaper';
 import { angleOf, createItem, fieldsOf, kindOrder, kinds, withAngle } from '../../../model/kinds';
@@ -20,6 +20,19 @@ const numberField = (item: Item, label: string) => {
 };
 
 describe('kinds', () => {
+  it("a light's settings open with what is changed most: power, modifier, grid and gel, then its label, position, aim and height", () => {
+    const labels = fieldsOf(createItem('light', 'l', { x: 1, y: 1 })).map((f) => fieldLabel(f, 'metric'));
+    expect(labels.slice(0, 5)).toEqual(['Power', 'Modifier', 'Fabric grid', 'Gel', 'Label']);
+    const at = (l: string) => labels.findIndex((x) => x.startsWith(l));
+    expect(at('Across')).toBeGreaterThan(at('Gel'));
+    expect(at('Height')).toBeGreaterThan(at('Across'));
+    expect(at('Aim (°)')).toBeGreaterThan(at('Gel'));
+    // Every field once: moving them changed the order, not the set.
+    expect(new Set(labels).size).toBe(labels.length);
+    // A kind without fields of its own to put first keeps its label first.
+    expect(fieldLabel(fieldsOf(createItem('subject', 's', { x: 1, y: 1 }))[0]!, 'metric')).toBe('Label');
+  });
+
   it.each(kindOrder)('%s: a new one parses, has its sketch, and its kind names itself', (kind) => {
     const item = createItem(kind, 'n1', { x: 2, y: 3 });
     expect(item.kind).toBe(kind);
