@@ -33,7 +33,7 @@ import { submissionRoutes } from './routes/submissions';
 import { createLimits, type LimitName, type Limits } from './limits';
 import { authHandler, requireUser } from './session';
 import type { ObjectStore } from './storage/objects';
-import { helmetOptionsFor, securityHeaders, webFiles } from './web';
+import { securityHeaders, webFiles } from './web';
 
 /** mailer and store are optional: without them the routes that need them answer 503 (the route list stays the same).
  *  inbox: the local fake SMTP server's captured mail, served at /dev/inbox on a local machine.
@@ -88,7 +88,7 @@ export function createApp({ db, auth, logger, limits = createLimits(db), webDir,
   // Bodies under COMPRESS_MIN_BYTES go as they are (compressing them costs more than it saves); the web app's
   // files are compressed once at build time (server/web.ts), so this only ever compresses API answers.
   app.use(compression({ threshold: COMPRESS_MIN_BYTES }));
-  app.use(securityHeaders(helmetOptionsFor(publicUrl)));
+  app.use(securityHeaders());
 
   // Same-origin rule for every state-changing request, better-auth's included (server/origin.ts).
   app.use('/api', requireSameOrigin(trustedOrigins(publicUrl ?? '')));

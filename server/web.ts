@@ -6,10 +6,10 @@ import type { IncomingMessage, ServerResponse } from 'node:http';
 import { readdirSync, statSync } from 'node:fs';
 import { extname, join, relative, sep } from 'node:path';
 
-/** helmet's options for the whole app, served at `publicUrl` (the CSP asks browsers to upgrade to https only
- *  when the app is served over https: over plain http — a LAN address, a test host — it would turn every request
- *  into a failing https one and leave a blank page). */
-export function helmetOptionsFor(publicUrl?: string): Parameters<typeof helmet>[0] {
+/** helmet's options for the whole app. `upgrade`: the CSP asks browsers to upgrade to https — only for a page
+ *  that itself came over https (securityHeaders decides per request): over plain http — a LAN address, a test
+ *  host — it would turn every request into a failing https one and leave a blank page. */
+export function helmetOptionsFor({ upgrade }: { upgrade: boolean }): Parameters<typeof helmet>[0] {
   return {
     contentSecurityPolicy: {
       directives: {
@@ -18,20 +18,18 @@ export function helmetOptionsFor(publicUrl?: string): Parameters<typeof helmet>[
         'style-src': ["'self'", "'unsafe-inline'"],
         'img-src': ["'self'", 'data:', 'blob:'],
         'font-src': ["'self'", 'data:'],
-        'upgrade-insecure-requests': publicUrl?.startsWith('https://') ? [] : null,
+        'upgrade-insecure-requests': upgrade ? [] : null,
       },
     },
   };
 }
-export const helmetOptions = helmetOptionsFor(undefined);
+export const helmetOptions = helmetOptionsFor({ upgrade: false });
 
-/**
- * helmet's headers as one precomputed list: helmet is run once against a recording response and its result is
- * replayed per request (helmet's own chain is about a dozen middleware calls per request). Every header helmet
- * sets here is the same for every request; a header it would remove is removed.
- */
-export function securityHeaders(options = helmetOptions): RequestHandler {
-  const set: [string, string | string[]][] = [];
+type Recorded = { set: [string, string | string[]][]; removed: string[] };
+
+/** What helmet does to a response with `options`, recorded once (it sets the same headers for every request). */
+function recordHelmet(options: Parameters<typeof helmet>[0]): Recorded {
+  const set: Recorded['set'] = [];
   const removed: string[] = [];
   const recorder = {
     setHeader: (name: string, value: string | string[]) => set.push([name, value]),
@@ -41,7 +39,20 @@ export function securityHeaders(options = helmetOptions): RequestHandler {
   let called = false;
   helmet(options)({} as IncomingMessage, recorder as unknown as ServerResponse, () => (called = true));
   if (!called) throw new Error('helmet did not finish synchronously: its headers cannot be precomputed');
-  return (_req, res, next) => {
+  return { set, removed };
+}
+
+/**
+ * helmet's headers as precomputed lists: helmet is run once against a recording response and its result is
+ * replayed per request (helmet's own chain is about a dozen middleware calls per request). Two lists: a request
+ * that came over https (`req.secure`: TLS here, or `X-Forwarded-Proto: https` from a proxy the app trusts, see
+ * `trust proxy` in server/app.ts) gets the CSP's upgrade-insecure-requests, a plain-http one does not.
+ */
+export function securityHeaders(): RequestHandler {
+  const plain = recordHelmet(helmetOptionsFor({ upgrade: false }));
+  const secure = recordHelmet(helmetOptionsFor({ upgrade: true }));
+  return (req, res, next) => {
+    const { set, removed } = req.secure ? secure : plain;
     for (const [name, value] of set) res.setHeader(name, value);
     for (const name of removed) res.removeHeader(name);
     next();

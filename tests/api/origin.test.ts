@@ -70,6 +70,21 @@ describe('headers over plain http', () => {
     expect(csp).toContain("default-src 'self'");
     expect(csp).not.toContain('upgrade-insecure-requests');
   });
+
+  it('behind a trusted proxy that says the page came over https (X-Forwarded-Proto), the CSP asks for the upgrade', async () => {
+    // The test server has no https PUBLIC_URL: the answer follows the request, not the configuration.
+    const csp = async (headers: Record<string, string>) => (await fetch(`${base}/api/health`, { headers })).headers.get('content-security-policy') ?? '';
+    const overHttps = await csp({ 'x-forwarded-proto': 'https' });
+    expect(overHttps).toContain('upgrade-insecure-requests');
+    expect(overHttps).toContain("default-src 'self'");
+    expect(await csp({ 'x-forwarded-proto': 'http' })).not.toContain('upgrade-insecure-requests');
+    expect(await csp({})).not.toContain('upgrade-insecure-requests');
+    // An error answer too (signed out: 401).
+    const refused = await fetch(`${base}/api/me`, { headers: { 'x-forwarded-proto': 'https' } });
+    await refused.arrayBuffer();
+    expect(refused.status).toBe(401);
+    expect(refused.headers.get('content-security-policy')).toContain('upgrade-insecure-requests');
+  });
 });
 
 /** An app on its own loopback port served as `publicUrl`, with a local inbox holding one message. */

@@ -189,6 +189,36 @@ describe('POST /api/setups/:id/photos', () => {
     expect(await exifr.gps(served.body).catch(() => undefined)).toBeUndefined();
   });
 
+  it('strips XMP and EXIF locations from PNG and WebP too: the served copy and the thumbnail carry neither', async () => {
+    const picture = () => sharp({ create: { width: 640, height: 480, channels: 3, background: '#5c6670' } });
+    const exifGps = { IFD0: { Make: 'Falloff', Model: 'Falloff Bench Camera' }, IFD3: GPS };
+    const cases = [
+      { name: 'phone.png', type: 'image/png', bytes: await picture().png().withExif(exifGps).withXmp(XMP_WITH_GPS).toBuffer() },
+      { name: 'phone.webp', type: 'image/webp', bytes: await picture().webp().withExif(exifGps).withXmp(XMP_WITH_GPS).toBuffer() },
+    ];
+    for (const c of cases) {
+      // The upload says where it was taken, in XMP and in EXIF.
+      // (PNG keeps its XMP in a compressed text chunk, so its words are not in the file's bytes as they are.)
+      const given = await sharp(c.bytes).metadata();
+      expect(given.xmp?.toString('utf8'), c.name).toContain('exif:GPSLatitude');
+      expect(given.exif, c.name).toBeDefined();
+      expect(given.exif!.includes(Buffer.from('Falloff Bench Camera')), c.name).toBe(true);
+      const r = await upload(team.crew.client, c.bytes, c.name, c.type);
+      expect(r.status, r.body.toString()).toBe(201);
+      expect(r.json.mime).toBe(c.type);
+      for (const url of [r.json.url, r.json.thumbnailUrl]) {
+        const served = await raw(base, team.owner.client, url);
+        expect(served.status, `${c.name} ${url}`).toBe(200);
+        for (const mark of ['xmpmeta', 'XML:com.adobe.xmp', 'eXIf', 'XMP ', 'EXIF']) expect(served.body.includes(Buffer.from(mark, 'latin1')), `${c.name} ${url}: ${mark}`).toBe(false);
+        expect(served.body.includes(Buffer.from('GPSLatitude')), `${c.name} ${url}`).toBe(false);
+        expect(served.body.includes(Buffer.from('Falloff Bench Camera')), `${c.name} ${url}`).toBe(false);
+        const meta = await sharp(served.body).metadata();
+        expect(meta.xmp, `${c.name} ${url}`).toBeUndefined();
+        expect(meta.exif, `${c.name} ${url}`).toBeUndefined();
+      }
+    }
+  });
+
   it('refuses a picture of more than 64 million pixels from its header, before decoding it (413 naming the photo)', async () => {
     const before = await stored();
     const bomb = pngHeaderOnly(16_000, 16_000);
