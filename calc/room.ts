@@ -19,7 +19,7 @@ import {
   surfaceOptics,
 } from './flatScene';
 import type { Scene } from './sceneSchema';
-import { COS_EPSILON, type Receptor, directAt, patchFormFactor, patchIncident, transmissionAlong } from './transport';
+import { COS_EPSILON, type Receptor, directAt, patchFormFactor, patchIncident, transmissionAlong, transmissionAlongListed } from './transport';
 
 /** Most patches one surface is split into by the meter (first bounce). */
 const METER_MAX_PATCHES_PER_SURFACE = 400;
@@ -441,11 +441,12 @@ export function directLux(L: RoomLight, occ: Occluders, r: FieldReceptor): numbe
 }
 
 /**
- * Could any occluder stand between a big face and a receptor? A bounding-box test: the box around the face's
- * corners and the receptor against each occluder's box (its plan extent, a tilted panel's lean included, and
- * its heights). Conservative: false only when no ray from the face to the receptor can meet an occluder.
+ * The occluders that could stand between a big face and a receptor, listed in `nearList` (their count returned):
+ * a bounding-box test of the box around the face's corners and the receptor against each occluder's box (its plan
+ * extent, a tilted panel's lean included, and its heights). Conservative: one left out meets no such ray.
  */
-function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): boolean {
+let nearList = new Int32Array(64);
+function occludersNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): number {
   let x0 = r.x;
   let x1 = r.x;
   let y0 = r.y;
@@ -464,6 +465,7 @@ function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldR
     if (z > z1) z1 = z;
   }
   const tl = occ.tilted;
+  let n = 0;
   for (let i = 0; i < occ.count; i++) {
     if (occ.zHi[i]! < z0 || occ.zLo[i]! > z1) continue;
     const ax = occ.ax[i]!;
@@ -483,9 +485,10 @@ function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldR
       hy = Math.max(hy, hy + vy);
     }
     if (hx < x0 || lx > x1 || hy < y0 || ly > y1) continue;
-    return true;
+    if (nearList.length < occ.count) nearList = new Int32Array(occ.count);
+    nearList[n++] = i;
   }
-  return false;
+  return n;
 }
 
 /**
@@ -493,13 +496,15 @@ function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldR
  * only when some occluder's box meets the face–receptor box (most receptors in a room have none in the way).
  */
 function faceTransmission(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): number {
-  if (!anyOccluderNear(L, face, occ, r)) return 1;
+  const n = occludersNear(L, face, occ, r);
+  if (n === 0) return 1;
+  const list = nearList;
   let t = 0;
   for (const [a, b] of SAMPLE_FRACTIONS) {
     const sx = L.px + face.u[0] * a + face.v[0] * b;
     const sy = L.py + face.u[1] * a + face.v[1] * b;
     const sz = L.pz + face.u[2] * a + face.v[2] * b;
-    t += transmissionAlong(occ, sx, sy, sz, r.x, r.y, r.z);
+    t += transmissionAlongListed(occ, list, n, sx, sy, sz, r.x, r.y, r.z);
   }
   return t / SAMPLE_FRACTIONS.length;
 }
