@@ -877,6 +877,32 @@ export function buildRoom(scene: Scene): Room {
   };
 }
 
+/**
+ * A receptor at the subject's weights on one surface's fine patches (response × transmission, the body not in the
+ * way), cached per room geometry like every receptor's weights: key:fill's fill-side panels read them per call.
+ */
+export function surfaceWeights(room: Room, surfaceIndex: number, r: FieldReceptor): Weights {
+  const key = `s${surfaceIndex}|${receptorKey(r, true)}`;
+  const hit = room.weightsCache.get(key);
+  if (hit) return hit;
+  const P = room.patches;
+  const lay = P.layout[surfaceIndex];
+  const count = lay ? lay.nu * lay.nv : 0;
+  const off = new Int32Array(count);
+  const w = new Float64Array(count);
+  let n = 0;
+  for (let i = lay ? lay.start : 0; i < (lay ? lay.start + count : 0); i++) {
+    const f = patchResponse(P, i, r, 4);
+    if (f === 0) continue;
+    const t = transmissionAlong(room.occFree, P.cx[i]!, P.cy[i]!, P.cz[i]!, r.x, r.y, r.z, P.surface[i]!);
+    if (t <= 0) continue;
+    off[n] = 6 * i + (f > 0 ? 0 : 3);
+    w[n] = Math.abs(f) * t;
+    n++;
+  }
+  return remember(room.weightsCache, key, { off: off.slice(0, n), w: w.slice(0, n), n }, WEIGHTS_CACHE_MAX);
+}
+
 /** Weights of a receptor on a patch set (response × patch → receptor transmission), cached per room geometry. */
 function receptorWeights(room: Room, P: Patches, set: 'fine' | 'coarse', r: FieldReceptor, self: boolean, exactWithin: number): Weights {
   const key = `${set}|${receptorKey(r, self)}`;
