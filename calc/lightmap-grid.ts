@@ -395,6 +395,7 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
 }
 
 const shadowRows = new Int32Array(2);
+let shadowSpans = new Int32Array(2 * 256);
 
 /** Shadows of one light on the grid: walls and flags from the light (or the 16 points of a big face), then the body. */
 function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
@@ -407,14 +408,19 @@ function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Ar
     tmp.fill(1);
     const nx = g.frame.nx;
     const pts = faceSamplePoints(L, L.face);
+    if (shadowSpans.length < 2 * g.frame.ny) shadowSpans = new Int32Array(2 * g.frame.ny);
     for (const [sx, sy, sz] of pts) {
-      castShadows(g.occ, sx, sy, sz, g.z, g.frame, tmp, -1, shadowRows);
-      const end = (shadowRows[1]! + 1) * nx;
-      for (let k = shadowRows[0]! * nx; k < end; k++) {
-        const t = tmp[k]!;
-        if (t === 1) continue;
-        out[k]! += 1 - t;
-        tmp[k] = 1;
+      castShadows(g.occ, sx, sy, sz, g.z, g.frame, tmp, -1, shadowRows, shadowSpans);
+      // Only the cells its shadows touched (each row's changed columns).
+      for (let j = shadowRows[0]!; j <= shadowRows[1]!; j++) {
+        const row = j * nx;
+        const end = row + shadowSpans[2 * j + 1]!;
+        for (let k = row + shadowSpans[2 * j]!; k <= end; k++) {
+          const t = tmp[k]!;
+          if (t === 1) continue;
+          out[k]! += 1 - t;
+          tmp[k] = 1;
+        }
       }
     }
     const m = pts.length;

@@ -12,9 +12,9 @@ import { apertureForFlashExposure, exposureValue, guideNumberFromCandelaSeconds,
 import { angleOfViewDeg } from './photometry';
 import type { ByReceptor, ColourReading, LightReading, MeterResult, MeterWarning, PointReading, PowerAdvice, RecordedTone, VsKeyAdvice } from './results';
 import { panelFrame } from './flatScene';
-import { type FieldReceptor, type Gathered, type Room, bodyPanels, buildRoom, gather, gatherCoarse, patchResponse, subjectReceptors, unitVector } from './room';
+import { type FieldReceptor, type Gathered, type Room, bodyPanels, buildRoom, gather, gatherCoarse, subjectReceptors, surfaceWeights, unitVector } from './room';
 import { type LightRole, type ReceptorId, type Scene, type SceneInput, parseScene } from './sceneSchema';
-import { type Receptor, transmissionAlong } from './transport';
+import type { Receptor } from './transport';
 import { DEG } from './vec';
 
 
@@ -213,18 +213,12 @@ export const FILL_SIDE_MIN_DEG = 45;
  * later bounces on the panel's patches × each patch's response at the receptor × the path's transmission).
  */
 function panelReturn(room: Room, keyIndex: number, surfaceIndex: number, r: FieldReceptor): number {
-  const P = room.patches;
-  const lay = P.layout[surfaceIndex];
-  if (!lay) return 0;
+  const W = surfaceWeights(room, surfaceIndex, r);
   const lum = room.lum[keyIndex]!;
   let h = 0;
-  for (let i = lay.start; i < lay.start + lay.nu * lay.nv; i++) {
-    const f = patchResponse(P, i, r, 4);
-    if (f === 0) continue;
-    const b = 6 * i + (f > 0 ? 0 : 3);
-    const y = 0.2126 * lum[b]! + 0.7152 * lum[b + 1]! + 0.0722 * lum[b + 2]!;
-    if (y <= 0) continue;
-    h += y * Math.abs(f) * transmissionAlong(room.occFree, P.cx[i]!, P.cy[i]!, P.cz[i]!, r.x, r.y, r.z, P.surface[i]!);
+  for (let m = 0; m < W.n; m++) {
+    const b = W.off[m]!;
+    h += (0.2126 * lum[b]! + 0.7152 * lum[b + 1]! + 0.0722 * lum[b + 2]!) * W.w[m]!;
   }
   return h;
 }

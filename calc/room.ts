@@ -19,7 +19,7 @@ import {
   surfaceOptics,
 } from './flatScene';
 import type { Scene } from './sceneSchema';
-import { COS_EPSILON, type Receptor, directAt, patchFormFactor, patchIncident, transmissionAlong } from './transport';
+import { COS_EPSILON, type Receptor, directAt, patchFormFactor, patchIncident, transmissionAlong, transmissionAlongListed } from './transport';
 
 /** Most patches one surface is split into by the meter (first bounce). */
 const METER_MAX_PATCHES_PER_SURFACE = 400;
@@ -441,11 +441,12 @@ export function directLux(L: RoomLight, occ: Occluders, r: FieldReceptor): numbe
 }
 
 /**
- * Could any occluder stand between a big face and a receptor? A bounding-box test: the box around the face's
- * corners and the receptor against each occluder's box (its plan extent, a tilted panel's lean included, and
- * its heights). Conservative: false only when no ray from the face to the receptor can meet an occluder.
+ * The occluders that could stand between a big face and a receptor, listed in `nearList` (their count returned):
+ * a bounding-box test of the box around the face's corners and the receptor against each occluder's box (its plan
+ * extent, a tilted panel's lean included, and its heights). Conservative: one left out meets no such ray.
  */
-function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): boolean {
+let nearList = new Int32Array(64);
+function occludersNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): number {
   let x0 = r.x;
   let x1 = r.x;
   let y0 = r.y;
@@ -464,6 +465,7 @@ function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldR
     if (z > z1) z1 = z;
   }
   const tl = occ.tilted;
+  let n = 0;
   for (let i = 0; i < occ.count; i++) {
     if (occ.zHi[i]! < z0 || occ.zLo[i]! > z1) continue;
     const ax = occ.ax[i]!;
@@ -483,9 +485,10 @@ function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldR
       hy = Math.max(hy, hy + vy);
     }
     if (hx < x0 || lx > x1 || hy < y0 || ly > y1) continue;
-    return true;
+    if (nearList.length < occ.count) nearList = new Int32Array(occ.count);
+    nearList[n++] = i;
   }
-  return false;
+  return n;
 }
 
 /**
@@ -493,13 +496,15 @@ function anyOccluderNear(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldR
  * only when some occluder's box meets the face–receptor box (most receptors in a room have none in the way).
  */
 function faceTransmission(L: RoomLight, face: AreaFace, occ: Occluders, r: FieldReceptor): number {
-  if (!anyOccluderNear(L, face, occ, r)) return 1;
+  const n = occludersNear(L, face, occ, r);
+  if (n === 0) return 1;
+  const list = nearList;
   let t = 0;
   for (const [a, b] of SAMPLE_FRACTIONS) {
     const sx = L.px + face.u[0] * a + face.v[0] * b;
     const sy = L.py + face.u[1] * a + face.v[1] * b;
     const sz = L.pz + face.u[2] * a + face.v[2] * b;
-    t += transmissionAlong(occ, sx, sy, sz, r.x, r.y, r.z);
+    t += transmissionAlongListed(occ, list, n, sx, sy, sz, r.x, r.y, r.z);
   }
   return t / SAMPLE_FRACTIONS.length;
 }
@@ -870,6 +875,32 @@ export function buildRoom(scene: Scene): Room {
     directCache: g.direct,
     ids: g.ids,
   };
+}
+
+/**
+ * A receptor at the subject's weights on one surface's fine patches (response × transmission, the body not in the
+ * way), cached per room geometry like every receptor's weights: key:fill's fill-side panels read them per call.
+ */
+export function surfaceWeights(room: Room, surfaceIndex: number, r: FieldReceptor): Weights {
+  const key = `s${surfaceIndex}|${receptorKey(r, true)}`;
+  const hit = room.weightsCache.get(key);
+  if (hit) return hit;
+  const P = room.patches;
+  const lay = P.layout[surfaceIndex];
+  const count = lay ? lay.nu * lay.nv : 0;
+  const off = new Int32Array(count);
+  const w = new Float64Array(count);
+  let n = 0;
+  for (let i = lay ? lay.start : 0; i < (lay ? lay.start + count : 0); i++) {
+    const f = patchResponse(P, i, r, 4);
+    if (f === 0) continue;
+    const t = transmissionAlong(room.occFree, P.cx[i]!, P.cy[i]!, P.cz[i]!, r.x, r.y, r.z, P.surface[i]!);
+    if (t <= 0) continue;
+    off[n] = 6 * i + (f > 0 ? 0 : 3);
+    w[n] = Math.abs(f) * t;
+    n++;
+  }
+  return remember(room.weightsCache, key, { off: off.slice(0, n), w: w.slice(0, n), n }, WEIGHTS_CACHE_MAX);
 }
 
 /** Weights of a receptor on a patch set (response × patch → receptor transmission), cached per room geometry. */

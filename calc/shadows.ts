@@ -25,12 +25,15 @@ const TILT_NEAR_T = 1e-7;
 /** Rows in which the last castShadows changed any cell (rowLo > rowHi: none). */
 let rowLo = 0;
 let rowHi = -1;
+/** Per row, the first and last column the last castShadows changed, when the caller asked for spans (else null). */
+let spans: Int32Array | null = null;
 
 /**
  * Multiply into `trans` (row-major, frame.nx × frame.ny) the transmission of every occluder's shadow cast
  * from source (sx, sy, sz) onto the grid plane at height zQ. skipSurface: a surface index that casts nothing
  * (the surface a bounce patch sits on). `rows`, if given, gets the first and last row in which any cell changed
- * (first > last: none), so a caller can undo or sum just those rows.
+ * (first > last: none), so a caller can undo or sum just those rows; `colSpans` (2 per row), the first and last
+ * changed column of each row (first > last: none), to sum just those cells.
  */
 export function castShadows(
   occ: Occluders,
@@ -42,10 +45,16 @@ export function castShadows(
   trans: Float32Array,
   skipSurface = -1,
   rows?: Int32Array,
+  colSpans?: Int32Array,
 ): void {
   const { nx, ny, x0, y0, dx, dy } = frame;
   rowLo = ny;
   rowHi = -1;
+  spans = colSpans ?? null;
+  if (spans) for (let j = 0; j < ny; j++) {
+    spans[2 * j] = nx;
+    spans[2 * j + 1] = -1;
+  }
   const gridSpan = Math.hypot((nx - 1) * dx, (ny - 1) * dy);
   const toGrid = Math.hypot(x0 + ((nx - 1) * dx) / 2 - sx, y0 + ((ny - 1) * dy) / 2 - sy);
   const dzQ = zQ - sz;
@@ -225,6 +234,10 @@ function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number, 
     if (i0 > i1) continue;
     if (j < rowLo) rowLo = j;
     if (j > rowHi) rowHi = j;
+    if (spans) {
+      if (i0 < spans[2 * j]!) spans[2 * j] = i0;
+      if (i1 > spans[2 * j + 1]!) spans[2 * j + 1] = i1;
+    }
     const row = j * nx;
     for (let i = i0; i <= i1; i++) trans[row + i]! *= T;
   }

@@ -72,6 +72,46 @@ export function transmissionAlong(
 }
 
 /**
+ * transmissionAlong over the listed occluders only (`list[0 … count − 1]`, indices into `o`): the same test, for
+ * callers that found by a bounding test which occluders can be in the way (a big face's 16 rays).
+ */
+export function transmissionAlongListed(o: Occluders, list: Int32Array, count: number, px: number, py: number, pz: number, qx: number, qy: number, qz: number): number {
+  const dx = qx - px;
+  const dy = qy - py;
+  const { ax, ay, ex, ey } = o;
+  const tilted = o.tilted;
+  let trans = 1;
+  for (let m = 0; m < count; m++) {
+    const i = list[m]!;
+    if (tilted !== undefined && tilted[i] === 1) {
+      if (!crossesTilted(o, i, px, py, pz, dx, dy, qz - pz)) continue;
+      trans *= o.transmission[i]!;
+      if (trans === 0) return 0;
+      continue;
+    }
+    const exi = ex[i]!;
+    const eyi = ey[i]!;
+    let denom = dx * eyi - dy * exi;
+    if (denom === 0) continue;
+    const apx = ax[i]! - px;
+    const apy = ay[i]! - py;
+    let tn = apx * eyi - apy * exi;
+    let sn = apx * dy - apy * dx;
+    if (denom < 0) {
+      denom = -denom;
+      tn = -tn;
+      sn = -sn;
+    }
+    if (sn < 0 || sn > denom || tn <= 1e-9 * denom || tn >= (1 - 1e-9) * denom) continue;
+    const z = pz + (tn / denom) * (qz - pz);
+    if (z < o.zLo[i]! || z > o.zHi[i]!) continue;
+    trans *= o.transmission[i]!;
+    if (trans === 0) return 0;
+  }
+  return trans;
+}
+
+/**
  * Does the segment P → P + D cross tilted panel i (the parallelogram A + s·E + w·V, s, w ∈ [0, 1]) strictly
  * between its ends? E and V are perpendicular (E is horizontal, V lies in the vertical plane across it).
  */

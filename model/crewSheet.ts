@@ -209,7 +209,11 @@ function readingsOf(doc: SetupDocument, readings: Readings): { rows: Reading[]; 
     const alone = l.aperture === null ? (l.incidenceDeg >= 90 ? 'from behind: no reading at the face' : 'does not reach the subject') : `alone, ${formatStops(l.stopsVsCamera)} stops${set}`;
     rows.push({ label: name, value: formatAperture(l.aperture), detail: alone });
   }
-  if (m.keyFill.ratio !== null) rows.push({ label: 'Key : fill', value: `${m.keyFill.ratio.toFixed(1)}:1`, detail: `${m.keyFill.ratioStops!.toFixed(1)} stops` });
+  if (m.keyFill.ratio !== null) {
+    // Panels on the fill side (a card under the chin) return the key: say which.
+    const panels = m.keyFill.fillPanels.panelIds.map((id) => names.get(id) ?? 'a panel');
+    rows.push({ label: 'Key : fill', value: `${m.keyFill.ratio.toFixed(1)}:1`, detail: `${m.keyFill.ratioStops!.toFixed(1)} stops${panels.length > 0 ? `; fill side with the key off ${panels.join(', ')}` : ''}` });
+  }
   if (m.background?.stopsVsSubject != null) {
     const bg = m.background;
     const top = (t: { stops: (number | null)[] }) => Math.max(...t.stops.map((x) => x ?? -Infinity));

@@ -311,3 +311,20 @@ describe('looks', () => {
     expect(out[0]).toBe(out[12]);
   });
 });
+
+describe('tilted panels in the frame', () => {
+  it('a card between the camera and the subject, tilted 60° face up, is seen where it leans, not where it would stand upright', () => {
+    // Faces the subject (−y) on the segment (0.3, 3)–(−0.3, 3), lower edge at 1.2 m, 0.4 m along the card.
+    const card = { id: 'card', kind: 'reflector' as const, x1: 0.3, y1: 3, x2: -0.3, y2: 3, baseM: 1.2, topM: 1.6, colour: '#ffffff' };
+    const tilted = renderFrame({ scene: baseScene({ surfaces: [...baseScene().surfaces!, { ...card, tiltDeg: 60 }] }) }, { width: W });
+    const upright = renderFrame({ scene: baseScene({ surfaces: [...baseScene().surfaces!, card] }) }, { width: W });
+    const cardId = ID_SURFACE + 2;
+    // 0.3 m up the tilted card: leaned back 0.3·sin 60° towards the camera, 0.3·cos 60° over its lower edge.
+    const onTilted = pixelAt(tilted, 0, 3 + 0.3 * Math.sin(Math.PI / 3), 1.2 + 0.3 * Math.cos(Math.PI / 3));
+    expect(tilted.ids[onTilted]).toBe(cardId);
+    // Near the top of where the upright card stands: the tilted one is not there (the view passes over it).
+    const uprightTop = pixelAt(upright, 0, 3, 1.55);
+    expect(upright.ids[uprightTop]).toBe(cardId);
+    expect(tilted.ids[uprightTop]).not.toBe(cardId);
+  });
+});

@@ -4,6 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkSchema, evaluateCheck, stepChangeLine } from '../../../model/classes';
 import { crewSheet } from '../../../model/crewSheet';
+import { demoSetups } from '../../../db/seed-setups';
 import { parseDocument, type SetupDocument } from '../../../model/document';
 
 const subject = { id: 'sub', kind: 'subject', label: 'Sitter', x: 4, y: 3, facingDeg: 90, faceHeightM: 1.6 };
@@ -82,6 +83,14 @@ describe('the crew sheet prints the new readings', () => {
     const row = s.readings.find((r) => r.label === 'Kicker')!;
     expect(row.value).toBe('f/22');
     expect(row.detail).toBe('pointed at the light, +2.9 stops vs the camera; no key to compare with');
+  });
+
+  it("key:fill names the fill-side panel that returns the key (the clamshell's card under the chin)", () => {
+    const clam = demoSetups[0]!.document;
+    const s = crewSheet(clam, { title: 'Clamshell', units: 'metric' });
+    const row = s.readings.find((r) => r.label === 'Key : fill')!;
+    expect(row.value).toMatch(/^\d+\.\d:1$/);
+    expect(row.detail).toMatch(/^\d+\.\d stops; fill side with the key off Silver under the chin$/);
   });
 
   it('a wall wash as the tone the camera records per channel, and the background range across the frame', () => {
