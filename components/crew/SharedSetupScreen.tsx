@@ -20,6 +20,7 @@ import { ExportButtons } from './ExportButtons';
 import { fileStem } from '../../model/fileNames';
 import { formatDate } from '../../model/format';
 import { usePageTitle } from '../../hooks/pageTitle';
+import { useAfterFirstPaint } from '../../hooks/afterFirstPaint';
 import { SkipLink } from '../SkipLink';
 
 export function SharedSetupScreen({ token }: { token: string }) {
@@ -50,6 +51,8 @@ function Shared({ token, data }: { token: string; data: NonNullable<ReturnType<t
   const sheet = useMemo(() => crewSheet(doc, { title: data.title, units: data.units, readings: readings ?? readingsPending }), [doc, data.title, data.units, readings]);
   const planH = Math.round(Math.min(Math.max(280, Math.min(width, 760) * ((doc.stage.depthM + 1) / (doc.stage.widthM + 1))), height * 0.62));
   const saved = formatDate(data.updatedAt);
+  // What is below the plan renders in a task of its own, once the top has painted.
+  const rest = useAfterFirstPaint();
   return (
     <ScrollView style={s.page} contentContainerStyle={{ paddingBottom: space.xxl }}>
       <SkipLink />
@@ -68,47 +71,55 @@ function Shared({ token, data }: { token: string; data: NonNullable<ReturnType<t
           <PlanCanvas theme={graphiteTheme} units={data.units} lightMap={readings?.map ?? null} testID="plan" />
         </EditorContext.Provider>
       </View>
-      <View style={s.column}>
-        <Text style={s.hint}>Drag to look around, pinch to zoom. Nothing here can be changed.</Text>
-        <ExportButtons base={`/api/shared/${token}`} fileStem={fileStem(data.title)} />
-        <Section title="The look we are after">
-          <FrameView doc={doc} paneWidth={Math.min(width, 760) - 2 * space.md - 2 * space.md} testID="shared-frame" />
-        </Section>
-        <Kit sheet={sheet} />
-        <Section title="Camera">{sheet.camera.map(row)}</Section>
-        <Section title="Meter at the subject">
-          {sheet.readings.map(row)}
-          {sheet.warnings.map((w) => (
-            <Text key={w} style={s.warn}>
-              ⚠ {w}
-            </Text>
-          ))}
-        </Section>
-        {sheet.steps.length ? (
-          <Section title="Steps">
-            {sheet.steps.map((st) => (
-              <View key={st.n} style={s.item}>
-                <Text style={s.itemName}>
-                  {st.n}. {st.title}
-                </Text>
-                {st.note ? <Text style={s.text}>{st.note}</Text> : null}
-                {st.adds.length ? <Text style={s.small}>Adds: {st.adds.join(', ')}</Text> : null}
-              </View>
-            ))}
-          </Section>
-        ) : null}
-        {sheet.shots.length ? <Section title="Shot list">{sheet.shots.map((sh, k) => row({ label: `${sh.framing} · ${sh.lens}`, value: sh.settings, detail: sh.note || undefined }, k))}</Section> : null}
-        <Notes text={data.notes} />
-        <MemberComments token={token} data={data} />
-        <Section title="Safety">
-          {sheet.safety.map((c) => (
-            <Text key={c} style={s.caution}>
-              ▲ {c}
-            </Text>
-          ))}
-        </Section>
-      </View>
+      {rest ? <Below token={token} data={data} sheet={sheet} paneWidth={Math.min(width, 760) - 2 * space.md - 2 * space.md} /> : null}
     </ScrollView>
+  );
+}
+
+/** The page below the plan: downloads, the look, the kit, the numbers, steps, shots, notes, comments and safety. */
+function Below({ token, data, sheet, paneWidth }: { token: string; data: NonNullable<ReturnType<typeof useSharedSetup>['data']>; sheet: CrewSheet; paneWidth: number }) {
+  const doc = data.document;
+  return (
+    <View style={s.column}>
+      <Text style={s.hint}>Drag to look around, pinch to zoom. Nothing here can be changed.</Text>
+      <ExportButtons base={`/api/shared/${token}`} fileStem={fileStem(data.title)} />
+      <Section title="The look we are after">
+        <FrameView doc={doc} paneWidth={paneWidth} testID="shared-frame" />
+      </Section>
+      <Kit sheet={sheet} />
+      <Section title="Camera">{sheet.camera.map(row)}</Section>
+      <Section title="Meter at the subject">
+        {sheet.readings.map(row)}
+        {sheet.warnings.map((w) => (
+          <Text key={w} style={s.warn}>
+            ⚠ {w}
+          </Text>
+        ))}
+      </Section>
+      {sheet.steps.length ? (
+        <Section title="Steps">
+          {sheet.steps.map((st) => (
+            <View key={st.n} style={s.item}>
+              <Text style={s.itemName}>
+                {st.n}. {st.title}
+              </Text>
+              {st.note ? <Text style={s.text}>{st.note}</Text> : null}
+              {st.adds.length ? <Text style={s.small}>Adds: {st.adds.join(', ')}</Text> : null}
+            </View>
+          ))}
+        </Section>
+      ) : null}
+      {sheet.shots.length ? <Section title="Shot list">{sheet.shots.map((sh, k) => row({ label: `${sh.framing} · ${sh.lens}`, value: sh.settings, detail: sh.note || undefined }, k))}</Section> : null}
+      <Notes text={data.notes} />
+      <MemberComments token={token} data={data} />
+      <Section title="Safety">
+        {sheet.safety.map((c) => (
+          <Text key={c} style={s.caution}>
+            ▲ {c}
+          </Text>
+        ))}
+      </Section>
+    </View>
   );
 }
 

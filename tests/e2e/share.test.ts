@@ -48,7 +48,8 @@ describe('a read-only link', () => {
     await page.goto(url);
     await expect.poll(() => page.getByText('Album cover, teal glow').isVisible(), { timeout: 15_000 }).toBe(true);
     expect(await page.getByTestId('shared-camera').textContent()).toBe('f/5.6 · 1/200 · ISO 200');
-    expect(await page.getByTestId('shared-light').count()).toBe(2);
+    // The kit and what follows render just after the top of the page (components/crew/SharedSetupScreen.tsx).
+    await expect.poll(() => page.getByTestId('shared-light').count()).toBe(2);
     expect(await page.getByText('Key — warm softbox').first().isVisible()).toBe(true);
     expect(await page.getByTestId('item-key').count()).toBe(1); // the plan is drawn, read-only
     await shot(page, 'share-phone-top');
