@@ -202,8 +202,11 @@ function StepNav({ frames, index, setIndex, big }: { frames: Frame[]; index: num
             onPress={() => setIndex(() => k)}
             accessibilityRole="button"
             accessibilityLabel={`Go to setup ${fr.entry + 1}${fr.step !== undefined ? `, step ${fr.step + 1}` : ''}`}
-            style={[st.tick, k <= index && { backgroundColor: colours.accent }, k > 0 && frames[k - 1]!.entry !== fr.entry && { marginLeft: 8 }]}
-          />
+            // The bar is 8 px; the button around it 44 px high, so a finger can take a step.
+            style={[st.tickHit, k > 0 && frames[k - 1]!.entry !== fr.entry && { marginLeft: 8 }]}
+          >
+            <View style={[st.tick, k <= index && { backgroundColor: colours.accent }]} />
+          </Pressable>
         ))}
       </View>
       <View style={{ flexDirection: 'row', gap: space.sm }}>
@@ -264,7 +267,8 @@ const st = StyleSheet.create({
   noteBig: { fontSize: 26, lineHeight: 36 },
   dim: { color: colours.textDim, fontFamily: fonts.sans, fontSize: 14, lineHeight: 20 },
   strip: { flexDirection: 'row', gap: 4, flexWrap: 'wrap' },
-  tick: { flexGrow: 1, flexBasis: 16, height: 8, borderRadius: 4, backgroundColor: colours.line, minWidth: 12 },
+  tickHit: { flexGrow: 1, flexBasis: 24, minWidth: 24, height: 44, justifyContent: 'center' },
+  tick: { height: 8, borderRadius: 4, backgroundColor: colours.line },
   navButton: { flex: 1, minHeight: 48, borderRadius: 10, borderWidth: 1, borderColor: colours.line, alignItems: 'center', justifyContent: 'center' },
   navText: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 16 },
   meter: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },

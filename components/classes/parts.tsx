@@ -116,7 +116,8 @@ export function NotFound({ what, back }: { what: string; back: ReactNode }) {
 export const s = StyleSheet.create({
   root: { flex: 1, backgroundColor: colours.graphite },
   page: { padding: space.lg, gap: space.md, maxWidth: 860, width: '100%', alignSelf: 'center', paddingBottom: 64 },
-  back: { color: colours.accent, fontFamily: fonts.sansMedium, fontSize: 14 },
+  // One line 44 px high: a finger's target (the words alone were 18 px).
+  back: { color: colours.accent, fontFamily: fonts.sansMedium, fontSize: 14, lineHeight: 44, alignSelf: 'flex-start' },
   title: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 24 },
   headingRow: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm, flexWrap: 'wrap' },
   heading: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 17 },

@@ -8,11 +8,17 @@ import { Animated, Pressable, StyleSheet, View, useWindowDimensions } from 'reac
 import { Gesture, GestureDetector } from 'react-native-gesture-handler';
 import { colours } from '../../constants/theme';
 
-export const PEEK_PX = 132;
+/** The lowest height: the handle, the kit at hand, the meter's line and the tabs. */
+export const PEEK_PX = 184;
+/** The middle stop, as a share of the window's height: an item's settings open here, with the plan re-fitted in
+ *  the 45 % above (less the top bar), so the tapped item stays in view. */
+export const HALF_SHARE = 0.55;
+/** The highest stop, as a share of the window's height. */
+export const HIGH_SHARE = 0.85;
 
 /** The sheet's resting heights for a window height: peek, half, most. */
 function sheetStops(height: number): [number, number, number] {
-  return [PEEK_PX, Math.round(height * 0.45), Math.round(height * 0.85)];
+  return [PEEK_PX, Math.round(height * HALF_SHARE), Math.round(height * HIGH_SHARE)];
 }
 
 /** The stop nearest to where a fling would carry the sheet (common practice: a short look ahead at the speed). */
@@ -109,8 +115,8 @@ export function BottomSheet({ children, header, request, onHeight }: { children:
 
 const s = StyleSheet.create({
   sheet: { position: 'absolute', left: 0, right: 0, bottom: 0, backgroundColor: colours.panel, borderTopLeftRadius: 16, borderTopRightRadius: 16, borderTopWidth: 1, borderColor: colours.line, overflow: 'hidden' },
-  handleZone: { paddingTop: 2 },
-  // A 44 × 24 px target around the 5 px bar (the minimum target size where spacing allows).
-  handleHit: { alignSelf: 'center', width: 64, height: 24, alignItems: 'center', justifyContent: 'center', marginBottom: 2 },
+  handleZone: {},
+  // A 88 × 44 px target around the 5 px bar (the kit's buttons sit right under it, so it needs the full 44 px).
+  handleHit: { alignSelf: 'center', width: 88, height: 44, alignItems: 'center', justifyContent: 'center' },
   handle: { width: 44, height: 5, borderRadius: 3, backgroundColor: colours.line },
 });

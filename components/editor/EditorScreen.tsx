@@ -9,6 +9,7 @@ import { Modal, Platform, Pressable, ScrollView, StyleSheet, Text, View, useWind
 import { useStore } from 'zustand';
 import { PlanCanvas, type LightMapSource } from '../../canvas/PlanCanvas';
 import { createEditor, type Editor } from '../../canvas/editor/editor';
+import { liveItem } from '../../canvas/editor/state';
 import { attachToPage, createPersist, saveStatusLabel, type Persist } from '../../canvas/editor/persist';
 import { EditorContext, useEditor, useEditorApi, usePaced } from '../../canvas/editor/react';
 import { createMeter, type Meter } from '../../canvas/meter/meter';
@@ -20,7 +21,7 @@ import { offlineQueue } from '../../hooks/offlineQueue';
 import { persistCacheHooks, persistClient } from '../../hooks/persistClient';
 import type { SetupDetail } from '../../model/api';
 import { itemsAtStep } from '../../model/documentToScene';
-import { formatAperture, formatStops, type Units } from '../../model/units';
+import { formatAperture, formatStops, lengthText, type Units } from '../../model/units';
 import { ErrorBoundary } from '../ErrorBoundary';
 import { Button } from '../ui';
 import { CommentsPanel } from '../comments/CommentsPanel';
@@ -31,6 +32,7 @@ import { SideView } from '../side/SideView';
 import { BottomSheet, PEEK_PX, type SheetRequest } from './BottomSheet';
 import { LiveMeterPanel, LiveSuggestedPower } from './LiveMeter';
 import { Inspector } from './Inspector';
+import { KitAtHand } from './KitAtHand';
 import { Palette } from './Palette';
 import { SetupSettings } from './SetupSettings';
 import { ShotsPanel } from './ShotsPanel';
@@ -146,6 +148,10 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
     setSheetRequest((r) => ({ stop: 1, n: (r?.n ?? 0) + 1 }));
   };
   const openItem = () => showTab('item');
+  // An item added from the kit opens its settings; drawing a wall keeps the plan clear for the drag.
+  const onKitAdded = () => {
+    if (editor.getState().tool !== 'wall') openItem();
+  };
   useOpenRequests(editor, !wide, openItem);
 
   useEffect(() => editor.dispatch('setInput', { boxSelect: wide }), [editor, wide]);
@@ -225,7 +231,7 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
       <KeptNotice persist={persist} />
     </>
   );
-  const hint = drawingWall ? <Text style={s.hint}>Drag on the plan from one end of the wall to the other.</Text> : null;
+  const hint = drawingWall ? <WallHint units={units} /> : null;
 
   if (wide) {
     return (
@@ -241,6 +247,9 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
             <ShotsPanel />
           </ScrollView>
           <View style={s.centre}>
+            <View style={s.kitBar}>
+              <KitAtHand testID="kit-at-hand" />
+            </View>
             <View style={{ flex: 1 }}>
               {canvas}
               {hint}
@@ -276,6 +285,9 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
           onHeight={setSheetH}
           header={
             <>
+              <View style={s.sheetKit}>
+                <KitAtHand onAdded={onKitAdded} testID="kit-at-hand" />
+              </View>
               <MeterPeek meter={meter} />
               <View style={s.tabs} role="tablist">
                 {tabs.map((t) => (
@@ -301,14 +313,31 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
             <Palette
               onAdded={() => {
                 setKitOpen(false);
-                // A new item is a choice made by name: its settings open. Drawing a wall keeps the plan clear.
-                if (editor.getState().tool !== 'wall') openItem();
+                // A new item is a choice made by name: its settings open.
+                onKitAdded();
               }}
             />
           </ScrollView>
         </View>
       </Modal>
     </View>
+  );
+}
+
+/** While the wall tool is chosen: what to do, and once the drag is under way the wall's length as it is drawn
+ *  (the live wall from the drag slice; this small line is all that re-renders per move). */
+function WallHint({ units }: { units: Units }) {
+  const lengthM = useEditor((st) => {
+    if (st.tool !== 'wall' || !st.gesture || !st.selection[0]) return null;
+    const w = liveItem(st, st.selection[0]);
+    return w && w.kind === 'wall' ? Math.hypot(w.b.x - w.a.x, w.b.y - w.a.y) : null;
+  });
+  if (lengthM === null) return <Text style={s.hint}>Drag on the plan from one end of the wall to the other.</Text>;
+  return (
+    <Text style={s.hint} testID="wall-length" accessibilityLiveRegion="polite">
+      Wall {lengthText(lengthM, units)}
+      {units === 'metric' ? ' m' : ''}
+    </Text>
   );
 }
 
@@ -473,6 +502,8 @@ const s = StyleSheet.create({
   partOn: { borderColor: colours.accent },
   partText: { color: colours.textDim, fontFamily: fonts.sansMedium, fontSize: 13 },
   scrim: { flex: 1, backgroundColor: '#0008' },
+  sheetKit: { marginBottom: 6 },
+  kitBar: { paddingVertical: 6, borderBottomWidth: 1, borderColor: colours.line, backgroundColor: colours.panel },
   hint: { position: 'absolute', top: 12, left: 12, right: 60, color: colours.accentText, backgroundColor: colours.accent, fontFamily: fonts.sansMedium, fontSize: 13, padding: space.sm, borderRadius: 8 },
   kitSheet: { maxHeight: '70%', backgroundColor: colours.panel, borderTopLeftRadius: 16, borderTopRightRadius: 16 },
   conflict: { backgroundColor: '#3a2a1c', borderBottomWidth: 1, borderBottomColor: colours.accent, padding: space.md, gap: space.sm },

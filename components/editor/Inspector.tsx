@@ -43,9 +43,10 @@ export const Inspector = memo(function Inspector({ units }: { units: Units }) {
   return (
     <View style={s.wrap} pointerEvents={readOnly ? 'none' : 'auto'} accessibilityLabel={`Settings of ${heading(name, item)}`} testID={`inspector-${item.id}`}>
       <Text style={s.heading}>{heading(name, item)}</Text>
-      {!readOnly ? <SelectionActions /> : null}
       {/* Keyed by item: a field's typed text, open list and callbacks belong to one item and never carry over. */}
       <ItemFields key={item.id} item={item} units={units} />
+      {/* Duplicate, lock and delete after the settings: the sheet opens at what is changed most. */}
+      {!readOnly ? <SelectionActions /> : null}
     </View>
   );
 });

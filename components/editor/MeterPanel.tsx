@@ -270,7 +270,7 @@ function FalloffChart({ m, light, units }: { m: MeterResult; light: ItemOf<'ligh
 }
 
 const s = StyleSheet.create({
-  chip: { paddingHorizontal: 8, paddingVertical: 4, borderRadius: 10, borderWidth: 1, borderColor: colours.line },
+  chip: { paddingHorizontal: 10, minHeight: 44, justifyContent: 'center', borderRadius: 10, borderWidth: 1, borderColor: colours.line },
   chipOn: { backgroundColor: colours.panelRaised, borderColor: colours.accent },
   wrap: { padding: space.lg, gap: space.sm },
   heading: { color: colours.text, fontFamily: fonts.sansBold, fontSize: 18 },

@@ -18,32 +18,37 @@ const groups: { id: (typeof kinds)[ItemKind]['group']; label: string }[] = [
   { id: 'note', label: 'Notes' },
 ];
 
-function Preview({ kind }: { kind: ItemKind }) {
+/** A kind's own glyph, as the plan draws it, for a kit button. */
+export function KitGlyph({ kind, size = 36, halfM = 0.8 }: { kind: ItemKind; size?: number; halfM?: number }) {
   const item = { ...createItem(kind, 'preview', { x: 0, y: 0 }), label: '' };
   return (
-    <Svg width={36} height={36} viewBox="-0.8 -0.8 1.6 1.6">
+    <Svg width={size} height={size} viewBox={`${-halfM} ${-halfM} ${2 * halfM} ${2 * halfM}`}>
       <ItemView item={item} theme={graphiteTheme} units="metric" />
     </Svg>
   );
 }
 
+/** What a kit button does: a wall is drawn (the next drag on the plan runs from one end to the other); any other
+ *  kind lands in a free spot near the middle of the view, a camera or light aimed at the subject
+ *  (canvas/editor/placement.ts). */
+export function addFromKit(store: ReturnType<typeof useEditorApi>, kind: ItemKind) {
+  if (kind === 'wall') store.dispatch('setTool', { tool: 'wall' });
+  else store.dispatch('placeItem', { kind });
+}
+
+/** A kit button's name: what it does. */
+export const kitButtonName = (kind: ItemKind) => (kind === 'wall' ? 'Draw a wall' : `Add ${kinds[kind].label.toLowerCase()}`);
+
 export const Palette = memo(function Palette({ onAdded }: { onAdded?: () => void }) {
   const store = useEditorApi();
   const readOnly = useEditor((s) => s.readOnly);
   const add = (kind: ItemKind) => {
-    if (kind === 'wall') {
-      // Walls are drawn: the next drag on the plan runs from one end to the other.
-      store.dispatch('setTool', { tool: 'wall' });
-      onAdded?.();
-      return;
-    }
-    // A free spot near the middle of the view; a camera or light aimed at the subject (canvas/editor/placement.ts).
-    store.dispatch('placeItem', { kind });
+    addFromKit(store, kind);
     onAdded?.();
   };
   if (readOnly) return null;
   return (
-    <View style={s.wrap} accessibilityLabel="Kit">
+    <View style={s.wrap} accessibilityLabel="Kit" testID="kit">
       <Text style={s.heading}>Kit</Text>
       {groups.map((g) => (
         <View key={g.id} style={s.group}>
@@ -56,10 +61,10 @@ export const Palette = memo(function Palette({ onAdded }: { onAdded?: () => void
                 // would otherwise read as part of the button's name); the button over them says what it does.
                 <View key={k} style={s.tile}>
                   <View aria-hidden pointerEvents="none" style={s.tileFace}>
-                    <Preview kind={k} />
+                    <KitGlyph kind={k} />
                     <Text style={s.tileText}>{kinds[k].label}</Text>
                   </View>
-                  <Pressable accessibilityRole="button" accessibilityLabel={k === 'wall' ? 'Draw a wall' : `Add ${kinds[k].label.toLowerCase()}`} onPress={() => add(k)} style={({ pressed }) => [StyleSheet.absoluteFill, s.tileHit, pressed && { backgroundColor: '#ffffff14' }]} />
+                  <Pressable accessibilityRole="button" accessibilityLabel={kitButtonName(k)} onPress={() => add(k)} style={({ pressed }) => [StyleSheet.absoluteFill, s.tileHit, pressed && { backgroundColor: '#ffffff14' }]} />
                 </View>
               ))}
           </View>

@@ -1,7 +1,7 @@
 // Inspector controls with units: a number that commits on Enter or blur and has thumb-sized steppers, a
 // choice row, a switch and a text field. Each is labelled for screen readers.
 import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
-import { Pressable, StyleSheet, Switch, Text, TextInput, View } from 'react-native';
+import { Pressable, StyleSheet, Text, TextInput, View } from 'react-native';
 import { colours, fonts, radius, space } from '../../constants/theme';
 import { checkTyped, type Range } from '../../model/fields';
 
@@ -239,11 +239,16 @@ export function ChoiceField<T extends string>({ label, value, options, onChange 
   );
 }
 
+/** An on/off setting: the whole row (its words and the track) is one switch, at least 44 px high, so a finger
+ *  can take it anywhere along the row; the track and thumb are drawn, not a control of their own. */
 export function SwitchField({ label, value, onChange }: { label: string; value: boolean; onChange: (v: boolean) => void }) {
   return (
-    <Row label={label}>
-      <Switch accessibilityLabel={label} value={value} onValueChange={onChange} trackColor={{ true: colours.accent, false: colours.line }} />
-    </Row>
+    <Pressable role="switch" accessibilityRole="switch" aria-checked={value} accessibilityState={{ checked: value }} accessibilityLabel={label} onPress={() => onChange(!value)} style={[s.row, s.switchRow]}>
+      <Text style={s.label}>{label}</Text>
+      <View aria-hidden pointerEvents="none" style={[s.track, value && s.trackOn]}>
+        <View style={[s.thumb, value && s.thumbOn]} />
+      </View>
+    </Pressable>
   );
 }
 
@@ -278,6 +283,11 @@ const s = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', marginBottom: space.sm, gap: space.sm },
   label: { color: colours.textDim, fontFamily: fonts.sansMedium, fontSize: 13, flexShrink: 1 },
   control: { flexDirection: 'row', alignItems: 'center', gap: 6 },
+  switchRow: { minHeight: 44 },
+  track: { width: 40, height: 22, borderRadius: 11, backgroundColor: colours.line, padding: 2, justifyContent: 'center' },
+  trackOn: { backgroundColor: colours.accent },
+  thumb: { width: 18, height: 18, borderRadius: 9, backgroundColor: colours.text },
+  thumbOn: { alignSelf: 'flex-end', backgroundColor: colours.accentText },
   input: {
     color: colours.text,
     fontFamily: fonts.mono,

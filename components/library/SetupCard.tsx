@@ -40,7 +40,8 @@ export function SetupCard({ setup, section, maxWidth, actions, pickedNo = null }
             aria-selected={pickedNo !== null ? pickedNo > 0 : undefined}
             disabled={deleted}
             onPress={() => actions.onOpen(setup)}
-            style={{ flex: 1 }}
+            // 44 px high at least: a finger's target (one line of title is 26 px).
+            style={{ flex: 1, minHeight: 44, justifyContent: 'center' }}
           >
             <Text style={s.title} numberOfLines={2}>
               {setup.title}
@@ -111,7 +112,7 @@ const s = StyleSheet.create({
   tag: { color: colours.cool, fontFamily: fonts.mono, fontSize: 12, borderWidth: 1, borderColor: colours.line, borderRadius: 999, paddingHorizontal: 8, paddingVertical: 2 },
   meta: { color: colours.textFaint, fontFamily: fonts.mono, fontSize: 12, marginTop: space.sm },
   actions: { flexDirection: 'row', alignItems: 'center', gap: space.xs, paddingHorizontal: space.sm, paddingBottom: space.sm, borderTopWidth: 1, borderTopColor: colours.line, marginTop: space.xs },
-  action: { paddingHorizontal: space.md, minHeight: 40, justifyContent: 'center' },
+  action: { paddingHorizontal: space.md, minHeight: 44, justifyContent: 'center' },
   actionText: { color: colours.text, fontFamily: fonts.sansMedium, fontSize: 14 },
   readOnly: { color: colours.textFaint, fontFamily: fonts.sans, fontSize: 13, marginLeft: 'auto', paddingHorizontal: space.md },
 });

@@ -36,7 +36,8 @@ describe.each(Object.keys(viewports) as ViewportName[])('the editor on a %s view
     const sheet = async (open: boolean) => (phone ? dragSheet(page, open) : undefined);
     const kit = async (label: string) => {
       if (phone) await page.getByRole('button', { name: 'Open the kit' }).click();
-      await page.getByRole('button', { name: label }).click();
+      // The whole kit (the kit at hand has the same buttons for the items it carries).
+      await page.getByTestId('kit').getByRole('button', { name: label }).click();
       // The kit slides away on a phone; wait until it no longer covers the plan.
       if (phone) await page.getByLabel('Close the kit').waitFor({ state: 'detached' });
     };

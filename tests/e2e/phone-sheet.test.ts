@@ -9,6 +9,10 @@ import { washAndKicker } from '../support/frameLooks';
 const base = inject('baseUrl');
 const browser = sharedBrowser();
 const screenH = viewports.phone.height;
+// The sheet's stops (components/editor/BottomSheet.tsx): the lowest shows the handle, the kit at hand, the
+// meter's line and the tabs (184 px); the middle is 55 % of the window; the highest 85 %.
+const PEEK_PX = 184;
+const halfTop = screenH - Math.round(screenH * 0.55);
 
 const sheetTop = async (page: Page) => (await page.getByTestId('sheet-handle').boundingBox())!.y;
 /** How much of an element shows between the sheet's top and the screen's bottom, px. */
@@ -29,12 +33,19 @@ describe('the phone sheet', () => {
     const { id } = (await created.json()) as { id: string };
     await page.goto(`${base}/setups/${id}`);
     await page.getByTestId('plan').waitFor({ timeout: 30_000 });
-    // The sheet opens at its lowest: only the meter's line and the tabs show.
-    await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeGreaterThan(screenH - 160);
+    // The sheet opens at its lowest: only the kit at hand, the meter's line and the tabs show.
+    await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeGreaterThan(screenH - PEEK_PX - 4);
+    expect(await sheetTop(page)).toBeLessThan(screenH - PEEK_PX + 8);
+    // The kit at hand shows whole above the tabs at this height.
+    const kit = (await page.getByRole('button', { name: 'Add light', exact: true }).boundingBox())!;
+    const tabTop = (await page.getByRole('tab', { name: 'Meter', exact: true }).boundingBox())!.y;
+    expect(kit.y).toBeGreaterThanOrEqual(await sheetTop(page));
+    expect(kit.y + kit.height).toBeLessThanOrEqual(tabTop);
     await shot(page, 'phone-sheet-peek');
 
     await page.getByRole('tab', { name: 'Side', exact: true }).tap();
-    await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeLessThan(screenH - 300);
+    // Half height: 55 % of the screen (within the handle's few pixels of padding).
+    await expect.poll(async () => Math.abs((await sheetTop(page)) - halfTop), { timeout: 10_000 }).toBeLessThan(6);
     // The chosen tab is said to be chosen (aria-selected: react-native-web drops accessibilityState), and only it.
     await expect.poll(() => page.getByRole('tab', { name: 'Side', exact: true, selected: true }).count(), { timeout: 10_000 }).toBe(1);
     expect(await page.getByRole('tab', { name: 'Meter', exact: true, selected: false }).count()).toBe(1);
@@ -51,7 +62,7 @@ describe('the phone sheet', () => {
 
     // Lowered again, the Setup tab rises to show the room's settings.
     await dragSheet(page, false);
-    await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeGreaterThan(screenH - 160);
+    await expect.poll(() => sheetTop(page), { timeout: 10_000 }).toBeGreaterThan(screenH - PEEK_PX - 4);
     await page.getByRole('tab', { name: 'Setup', exact: true }).tap();
     await expect.poll(() => shownInSheet(page, page.getByLabel('Indoors, under a ceiling')), { timeout: 10_000 }).toBeGreaterThan(10);
     expect(errors).toEqual([]);

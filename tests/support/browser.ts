@@ -76,7 +76,7 @@ export async function dragSheet(page: Page, open: boolean) {
   const y = handle.y + handle.height / 2;
   // Stay inside the viewport: a pointer released outside it never reaches the page.
   const bottom = (page.viewportSize()?.height ?? 844) - 4;
-  await dragMouse(page, { x, y }, { x, y: open ? y - 480 : bottom });
+  await dragMouse(page, { x, y }, { x, y: open ? Math.max(4, y - 480) : bottom });
   let last = NaN;
   await expect
     .poll(
