@@ -72,3 +72,11 @@ export function count(n: number, one: string, other = `${one}s`, locale?: string
   }
   return `${n} ${rules.select(n) === 'one' ? one : other}`;
 }
+
+/** The key:fill reading's line under its ratio, the same in the editor's meter and a lesson's: the stops, and how
+ *  many panels on the fill side send the key's light back (a reflector or v-flat fills as a light does). */
+export function keyFillDetail(kf: { ratioStops: number | null; fillPanels: { panelIds: readonly string[] } }): string {
+  if (kf.ratioStops === null) return 'needs a key and a fill (a light or a reflector)';
+  const n = kf.fillPanels.panelIds.length;
+  return `${kf.ratioStops.toFixed(1)} stops${n > 0 ? `, fill side with the key off ${count(n, 'panel')}` : ''}`;
+}

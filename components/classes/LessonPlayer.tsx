@@ -8,6 +8,7 @@ import { TABLET_MIN, WIDE_MIN, colours, fonts, space } from '../../constants/the
 import type { LessonDetail } from '../../model/api';
 import { describeChange, stepChangeLine } from '../../model/classes';
 import type { SetupDocument } from '../../model/document';
+import { keyFillDetail } from '../../model/format';
 import { computeReadings, type Readings } from '../../model/setupReadings';
 import { formatAperture, formatStops, type Units } from '../../model/units';
 import { MeterPanel } from '../editor/MeterPanel';
@@ -239,7 +240,7 @@ export function BigMeter({ readings, compact = false, big = false }: { readings:
   const cells = [
     { label: 'Subject', value: formatAperture(m.subject.aperture), detail: `${formatStops(m.subject.stopsVsCamera)} vs the camera`, id: 'subject' },
     { label: 'Background', value: m.background?.stopsVsSubject != null ? formatStops(m.background.stopsVsSubject) : '—', detail: 'stops vs the subject', id: 'background' },
-    { label: 'Key : fill', value: m.keyFill.ratio !== null ? `${m.keyFill.ratio.toFixed(1)}:1` : '—', detail: m.keyFill.ratio !== null ? `${m.keyFill.ratioStops!.toFixed(1)} stops` : 'needs a fill light', id: 'keyfill' },
+    { label: 'Key : fill', value: m.keyFill.ratio !== null ? `${m.keyFill.ratio.toFixed(1)}:1` : '—', detail: keyFillDetail(m.keyFill), id: 'keyfill' },
     ...(m.ambient ? [{ label: 'Room light', value: formatStops(m.ambient.stopsVsCamera), detail: 'stops vs the camera', id: 'ambient' }] : []),
   ];
   return (

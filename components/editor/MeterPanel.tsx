@@ -11,7 +11,7 @@ import { colours, fonts, space } from '../../constants/theme';
 import type { ItemOf, SetupDocument } from '../../model/document';
 import { planCautions } from '../../model/safety';
 import { formatAperture, formatLength, formatPower, formatShutter, formatStops, type Units } from '../../model/units';
-import { count } from '../../model/format';
+import { keyFillDetail } from '../../model/format';
 import { itemNames, warningText } from '../../model/kinds';
 
 /** The receptors in plain words (what the exposure readings are by). */
@@ -187,7 +187,7 @@ function Ratios({ m }: { m: MeterResult }) {
   const bg = m.background;
   return (
     <View style={s.block}>
-      <Reading label="Key : fill" value={kf.ratio !== null ? `${kf.ratio.toFixed(1)}:1` : '—'} detail={kf.ratioStops !== null ? `${kf.ratioStops.toFixed(1)} stops${kf.fillPanels.panelIds.length > 0 ? `, fill side with the key off ${count(kf.fillPanels.panelIds.length, 'panel')}` : ''}` : 'needs a key and a fill'} testID="meter-keyfill" />
+      <Reading label="Key : fill" value={kf.ratio !== null ? `${kf.ratio.toFixed(1)}:1` : '—'} detail={keyFillDetail(kf)} testID="meter-keyfill" />
       <Reading label="Background" value={bg?.stopsVsSubject != null ? `${formatStops(bg.stopsVsSubject)} stops` : '—'} detail={bg ? 'light behind the subject, vs the subject' : 'no surface behind the subject'} testID="meter-background" />
       {bg ? (
         <View style={s.reading}>
