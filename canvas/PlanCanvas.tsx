@@ -16,6 +16,7 @@ import { pinchCamera, scaleBarLength, toScreen, type Camera } from './editor/cam
 import { itemAt, planAt } from './editor/hit';
 import { useEditor, useEditorApi } from './editor/react';
 import { itemById, type PointerKind } from './editor/state';
+import { gridStepM } from './editor/snap';
 import { Beam } from './layers/Beams';
 import { attachWebPinch } from './webPinch';
 import { PlanGestures, type PlanGestureHandlers } from './planGestures';
@@ -213,7 +214,7 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
           <View style={StyleSheet.absoluteFill} collapsable={false}>
             <Svg width={size.w} height={size.h}>
               <G transform={`translate(${camera.tx} ${camera.ty}) scale(${camera.scale})`}>
-                <Grid stage={stage} theme={theme} />
+                <Grid stage={stage} theme={theme} stepM={gridStepM(camera.scale)} />
                 <MapLines source={lightMap} ink={theme.ink} units={units} />
                 <G pointerEvents="none">
                   {lightIds.map((id) => (

@@ -11,18 +11,27 @@ import { itemBodies, labelBounds, placeLabels, sketchLabels, type PlacedLabel } 
 import { g, line, path, place, polyline, rect, text, type SvgNode } from './nodes';
 
 /** The grid over the stage; `fill: 'none'` lets a tint drawn beneath show through (the editor's light map). */
-export function sketchGrid(stage: SetupDocument['stage'], theme: PlanTheme, fill: string = theme.background): SvgNode {
+/** The finest grid step drawn (metres): finer snapping steps (zoomed far in) still draw 5 cm lines, so an 8 m stage
+ *  never has more than 160 lines a side. */
+const GRID_DRAW_MIN_M = 0.05;
+
+/**
+ * The stage and its grid: lines every `stepM` (0.5 m by default, as the exports print it; the editor passes the
+ * step its drags snap to), heavier on whole metres — or on every line when the step is a metre or more.
+ */
+export function sketchGrid(stage: SetupDocument['stage'], theme: PlanTheme, fill: string = theme.background, stepM = 0.5): SvgNode {
+  const step = Math.max(GRID_DRAW_MIN_M, stepM);
   const lines: SvgNode[] = [];
-  for (let k = 0; k * 0.5 <= stage.widthM + 1e-9; k++) {
-    const x = k * 0.5;
-    const major = k % 2 === 0;
-    lines.push(line({ x1: x, y1: 0, x2: x, y2: stage.depthM, stroke: major ? theme.gridMajor : theme.gridMinor, strokeWidth: major ? 0.012 : 0.008 }));
-  }
-  for (let k = 0; k * 0.5 <= stage.depthM + 1e-9; k++) {
-    const y = k * 0.5;
-    const major = k % 2 === 0;
-    lines.push(line({ x1: 0, y1: y, x2: stage.widthM, y2: y, stroke: major ? theme.gridMajor : theme.gridMinor, strokeWidth: major ? 0.012 : 0.008 }));
-  }
+  const majorAt = (v: number) => step >= 1 || Math.abs(v - Math.round(v)) < 1e-6;
+  const along = (len: number, draw: (v: number, major: boolean) => SvgNode) => {
+    for (let k = 0; k * step <= len + 1e-9; k++) {
+      const v = Math.round(k * step * 1000) / 1000;
+      lines.push(draw(v, majorAt(v)));
+    }
+  };
+  const ink = (major: boolean) => ({ stroke: major ? theme.gridMajor : theme.gridMinor, strokeWidth: major ? 0.012 : 0.008 });
+  along(stage.widthM, (x, major) => line({ x1: x, y1: 0, x2: x, y2: stage.depthM, ...ink(major) }));
+  along(stage.depthM, (y, major) => line({ x1: 0, y1: y, x2: stage.widthM, y2: y, ...ink(major) }));
   return g({}, rect({ x: 0, y: 0, width: stage.widthM, height: stage.depthM, fill, stroke: theme.gridMajor, strokeWidth: 0.02 }), ...lines);
 }
 
