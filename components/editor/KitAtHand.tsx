@@ -2,8 +2,8 @@
 // softbox), a reflector, a flag and a wall — each one tap from the plan. At the top of the phone's sheet (seen at
 // every height) and over the plan on a wide screen; the whole kit stays one button away. Every button is at
 // least 48 × 52 px (touch targets ≥ 44 px) with the kind's own plan glyph at 30 px and its word under it.
-import { memo } from 'react';
-import { Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
+import { memo, useRef } from 'react';
+import { type GestureResponderEvent, Pressable, ScrollView, StyleSheet, Text, View } from 'react-native';
 import { useEditor, useEditorApi } from '../../canvas/editor/react';
 import { colours, fonts } from '../../constants/theme';
 import type { ItemKind } from '../../model/document';
@@ -20,9 +20,26 @@ const GLYPH_HALF_M: Partial<Record<ItemKind, number>> = { subject: 0.3, camera: 
 /** The short word under each glyph. */
 const word = (k: ItemKind) => (k === 'light' ? 'Light' : kinds[k].label);
 
+/** A press whose finger travelled further than this (px, on the page) was a drag, not a tap. */
+export const KIT_TAP_SLOP_PX = 10;
+
+const at = (e: GestureResponderEvent) => ({ x: e.nativeEvent.pageX, y: e.nativeEvent.pageY });
+
+/** Was this press a tap: the finger lifted within KIT_TAP_SLOP_PX of where it went down (a key or a screen
+ *  reader's press has no position and always counts). On the phone the row
+ *  rides in the sheet's header, so a hand that drags the sheet up by the row carries the button along under the
+ *  finger and the press would fire on release, adding an item nobody asked for. */
+export function wasTap(down: { x: number; y: number } | null, up: { x: number; y: number }): boolean {
+  // A key or a screen reader presses without a pointer (no position): always a tap.
+  const placed = (p: { x: number; y: number } | null): p is { x: number; y: number } => p !== null && Number.isFinite(p.x) && Number.isFinite(p.y);
+  if (!placed(down) || !placed(up)) return true;
+  return Math.hypot(up.x - down.x, up.y - down.y) <= KIT_TAP_SLOP_PX;
+}
+
 export const KitAtHand = memo(function KitAtHand({ onAdded, testID }: { onAdded?: (kind: ItemKind) => void; testID?: string }) {
   const store = useEditorApi();
   const readOnly = useEditor((s) => s.readOnly);
+  const down = useRef<{ x: number; y: number } | null>(null);
   if (readOnly) return null;
   return (
     <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={s.row} accessibilityLabel="Kit at hand" testID={testID}>
@@ -31,7 +48,13 @@ export const KitAtHand = memo(function KitAtHand({ onAdded, testID }: { onAdded?
           key={k}
           accessibilityRole="button"
           accessibilityLabel={kitButtonName(k)}
-          onPress={() => {
+          onPressIn={(e) => {
+            down.current = at(e);
+          }}
+          onPress={(e) => {
+            const tap = wasTap(down.current, at(e));
+            down.current = null;
+            if (!tap) return;
             addFromKit(store, k);
             onAdded?.(k);
           }}

@@ -7,7 +7,7 @@
 // The two setups and the student's extra light are made through the API; everything else is the UI.
 import { describe, expect, inject, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { dragSheet, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
+import { dragSheet, settledBox, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
 import { freshEmail } from '../support/http';
 
 const base = inject('baseUrl');
@@ -45,8 +45,8 @@ const apiOf = (c: BrowserContext) => ({
 
 const text = (page: Page, testId: string) => page.getByTestId(testId).first().textContent();
 
-async function centreOf(page: Page, locator: ReturnType<Page['getByTestId']>) {
-  const b = (await locator.boundingBox())!;
+async function centreOf(_page: Page, locator: ReturnType<Page['getByTestId']>) {
+  const b = await settledBox(locator);
   return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
 }
 

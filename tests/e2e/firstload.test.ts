@@ -91,7 +91,10 @@ describe('first load', () => {
 
   it('loads the read-only plan with a link, without the editor’s chunk', async () => {
     const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
-    const setup = (await owner.get<{ setups: { id: string }[] }>('/api/setups')).body.setups[0]!;
+    // A demo setup by name: the owner's newest setup is whatever another test file made last (an empty plan reads
+    // no meter, and the reading below would be '—').
+    const setup = (await owner.get<{ setups: { id: string; title: string }[] }>('/api/setups?q=Clamshell%20headshot')).body.setups.find((x) => x.title.startsWith('Clamshell headshot'))!;
+    expect(setup, 'the demo clamshell setup').toBeTruthy();
     const made = await owner.post<{ url: string }>(`/api/setups/${setup.id}/shares`, { label: 'First load test' });
     expect(made.status).toBe(201);
     const context = await browser().newContext({ viewport: viewports.phone, isMobile: true, hasTouch: true, serviceWorkers: 'block' });

@@ -6,7 +6,7 @@ import { describe, expect, inject, it } from 'vitest';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
 import { demoSetups } from '../../db/seed-setups';
 import type { ItemOf, SetupDocument } from '../../model/document';
-import { dragSheet, sharedBrowser, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
+import { dragSheet, settledBox, sharedBrowser, shot, viewports, watchErrors, type ViewportName } from '../support/browser';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
@@ -35,7 +35,7 @@ describe.each(Object.keys(viewports) as ViewportName[])('inspector edits on a %s
     const pick = async (lid: string) => {
       if (phone) await dragSheet(page, false);
       // a press where the glyph is on screen (the plan hit-tests it; beams and labels drawn above it let it through)
-      const box = (await page.getByTestId(`item-${lid}`).boundingBox())!;
+      const box = await settledBox(page.getByTestId(`item-${lid}`));
       const at = { x: box.x + box.width / 2, y: box.y + box.height / 2 };
       if (phone) await page.touchscreen.tap(at.x, at.y);
       else await page.mouse.click(at.x, at.y);

@@ -2,7 +2,7 @@
 // playwright gives every launch a fresh, empty profile of its own.
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type Locator, type Page } from 'playwright-core';
 import { afterAll, beforeAll, expect } from 'vitest';
 
 export const viewports = {
@@ -69,9 +69,33 @@ export async function dragMouse(page: Page, from: { x: number; y: number }, to: 
 
 /** On a phone the editor's sheet is dragged up by its handle to work in it, and down to see the plan; waits
  *  for its spring to settle so nothing is pressed under a moving sheet. */
+/**
+ * Where a plan item is once the plan stops moving: the editor re-fits the plan to the room above the phone's sheet
+ * as the sheet settles and as the page lays out, so a box read at once can be where the item was a frame ago (a
+ * tap there selects nothing or another item). Polls until two reads 150 ms apart agree.
+ */
+type Box = { x: number; y: number; width: number; height: number };
+export async function settledBox(locator: Locator): Promise<Box> {
+  let last = null as Box | null;
+  let box = null as Box | null;
+  await expect
+    .poll(
+      async () => {
+        box = await locator.boundingBox();
+        const same = !!box && !!last && Math.abs(box.x - last.x) < 0.5 && Math.abs(box.y - last.y) < 0.5 && Math.abs(box.width - last.width) < 0.5;
+        last = box;
+        return same;
+      },
+      { interval: 150, timeout: 10_000 },
+    )
+    .toBe(true);
+  return box!;
+}
+
 export async function dragSheet(page: Page, open: boolean) {
-  // The handle is a button of its own (a tap steps the sheet's height); the drag starts in the handle's row beside it.
-  const handle = (await page.getByTestId('sheet-handle').boundingBox())!;
+  // The handle is a button of its own (a tap steps the sheet's height); the drag starts in the handle's row beside it,
+  // once the sheet has stopped moving (a tap on an item raises it): a handle read mid-move puts the press on the kit row.
+  const handle = await settledBox(page.getByTestId('sheet-handle'));
   const x = handle.x + handle.width + 30;
   const y = handle.y + handle.height / 2;
   // Stay inside the viewport: a pointer released outside it never reaches the page.
