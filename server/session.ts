@@ -181,6 +181,10 @@ async function endOtherSessionsOnChange(request: Request): Promise<Request> {
   return new Request(request.url, { method: 'POST', headers, body: JSON.stringify({ ...body, revokeOtherSessions: true }) });
 }
 
+/** When this process last found the database unreachable from an auth request (ms since the epoch). */
+let lastUnreachableAt = 0;
+const RECENTLY_DOWN_MS = 2 * DB_RETRY_AFTER_S * 1000;
+
 async function handleAuth(auth: Auth, db: Db, limits: Limits, incoming: Request, address: string): Promise<Response> {
   const request = await endOtherSessionsOnChange(incoming);
   let onSuccess: (() => Promise<void>) | null;
@@ -190,7 +194,10 @@ async function handleAuth(auth: Auth, db: Db, limits: Limits, incoming: Request,
     if (err instanceof HttpError) {
       return json(err.status, { error: { code: err.code, message: err.message, ...err.extra } }, err.extra.retryAfterS ? { 'retry-after': String(err.extra.retryAfterS) } : {});
     }
-    if (isDatabaseUnavailable(err)) return json(503, { error: { code: 'database_unavailable', message: unavailable().message, retryAfterS: DB_RETRY_AFTER_S } }, { 'retry-after': String(DB_RETRY_AFTER_S) });
+    if (isDatabaseUnavailable(err)) {
+      lastUnreachableAt = Date.now();
+      return json(503, { error: { code: 'database_unavailable', message: unavailable().message, retryAfterS: DB_RETRY_AFTER_S } }, { 'retry-after': String(DB_RETRY_AFTER_S) });
+    }
     throw err;
   }
   const response = await auth.handler(request);
@@ -198,7 +205,10 @@ async function handleAuth(auth: Auth, db: Db, limits: Limits, incoming: Request,
   // A failed lookup can surface as a 500, as "invalid e-mail or password" or as "no session".
   const maybeDown =
     response.status >= 400 || (request.method === 'GET' && new URL(request.url).pathname.endsWith('/get-session') && !!request.headers.get('cookie')?.includes('session_token') && (await response.clone().text()) === 'null');
-  if (maybeDown && !(await databaseAnswers(db))) {
+  // better-auth answers a failed query with a 500 of its own. When the database is back by the time we ask (a
+  // restart's first moment: "the database system is starting up"), a 5xx within a few seconds of it being
+  // unreachable is that outage too, not a fault of the request.
+  if (maybeDown && (!(await databaseAnswers(db)) ? ((lastUnreachableAt = Date.now()), true) : response.status >= 500 && Date.now() - lastUnreachableAt < RECENTLY_DOWN_MS)) {
     return json(503, { error: { code: 'database_unavailable', message: unavailable().message, retryAfterS: DB_RETRY_AFTER_S } }, { 'retry-after': String(DB_RETRY_AFTER_S) });
   }
   return response;
