@@ -37,34 +37,11 @@ export function transmissionAlong(
 ): number {
   const dx = qx - px;
   const dy = qy - py;
-  const { ax, ay, ex, ey, surface } = o;
-  const tilted = o.tilted;
+  const surface = o.surface;
   let trans = 1;
   for (let i = 0; i < o.count; i++) {
     if (skipSurface >= 0 && surface[i] === skipSurface) continue;
-    const exi = ex[i]!;
-    const eyi = ey[i]!;
-    if (tilted !== undefined && tilted[i] === 1) {
-      if (!crossesTilted(o, i, px, py, pz, dx, dy, qz - pz)) continue;
-      trans *= o.transmission[i]!;
-      if (trans === 0) return 0;
-      continue;
-    }
-    let denom = dx * eyi - dy * exi;
-    if (denom === 0) continue; // parallel
-    const apx = ax[i]! - px;
-    const apy = ay[i]! - py;
-    // t = tn/denom along P→Q, s = sn/denom along the occluder; compare without dividing.
-    let tn = apx * eyi - apy * exi;
-    let sn = apx * dy - apy * dx;
-    if (denom < 0) {
-      denom = -denom;
-      tn = -tn;
-      sn = -sn;
-    }
-    if (sn < 0 || sn > denom || tn <= 1e-9 * denom || tn >= (1 - 1e-9) * denom) continue;
-    const z = pz + (tn / denom) * (qz - pz);
-    if (z < o.zLo[i]! || z > o.zHi[i]!) continue;
+    if (!crossesOccluder(o, i, px, py, pz, dx, dy, qz)) continue;
     trans *= o.transmission[i]!;
     if (trans === 0) return 0;
   }
@@ -78,37 +55,36 @@ export function transmissionAlong(
 export function transmissionAlongListed(o: Occluders, list: Int32Array, count: number, px: number, py: number, pz: number, qx: number, qy: number, qz: number): number {
   const dx = qx - px;
   const dy = qy - py;
-  const { ax, ay, ex, ey } = o;
-  const tilted = o.tilted;
   let trans = 1;
   for (let m = 0; m < count; m++) {
     const i = list[m]!;
-    if (tilted !== undefined && tilted[i] === 1) {
-      if (!crossesTilted(o, i, px, py, pz, dx, dy, qz - pz)) continue;
-      trans *= o.transmission[i]!;
-      if (trans === 0) return 0;
-      continue;
-    }
-    const exi = ex[i]!;
-    const eyi = ey[i]!;
-    let denom = dx * eyi - dy * exi;
-    if (denom === 0) continue;
-    const apx = ax[i]! - px;
-    const apy = ay[i]! - py;
-    let tn = apx * eyi - apy * exi;
-    let sn = apx * dy - apy * dx;
-    if (denom < 0) {
-      denom = -denom;
-      tn = -tn;
-      sn = -sn;
-    }
-    if (sn < 0 || sn > denom || tn <= 1e-9 * denom || tn >= (1 - 1e-9) * denom) continue;
-    const z = pz + (tn / denom) * (qz - pz);
-    if (z < o.zLo[i]! || z > o.zHi[i]!) continue;
+    if (!crossesOccluder(o, i, px, py, pz, dx, dy, qz)) continue;
     trans *= o.transmission[i]!;
     if (trans === 0) return 0;
   }
   return trans;
+}
+
+/** Does P → Q (Q = P + (dx, dy, ·) at height qz) cross occluder i strictly between its ends, within its heights? */
+function crossesOccluder(o: Occluders, i: number, px: number, py: number, pz: number, dx: number, dy: number, qz: number): boolean {
+  if (o.tilted !== undefined && o.tilted[i] === 1) return crossesTilted(o, i, px, py, pz, dx, dy, qz - pz);
+  const exi = o.ex[i]!;
+  const eyi = o.ey[i]!;
+  let denom = dx * eyi - dy * exi;
+  if (denom === 0) return false; // parallel
+  const apx = o.ax[i]! - px;
+  const apy = o.ay[i]! - py;
+  // t = tn/denom along P→Q, s = sn/denom along the occluder; compare without dividing.
+  let tn = apx * eyi - apy * exi;
+  let sn = apx * dy - apy * dx;
+  if (denom < 0) {
+    denom = -denom;
+    tn = -tn;
+    sn = -sn;
+  }
+  if (sn < 0 || sn > denom || tn <= 1e-9 * denom || tn >= (1 - 1e-9) * denom) return false;
+  const z = pz + (tn / denom) * (qz - pz);
+  return z >= o.zLo[i]! && z <= o.zHi[i]!;
 }
 
 /**
