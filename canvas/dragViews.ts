@@ -8,18 +8,13 @@ import type { Item } from '../model/document';
 import type { SvgNode } from '../drawing/nodes';
 import { nodeToSvg } from '../drawing/toSvg';
 import type { DragLayer, Offset } from './dragLayer';
+import { domOf, type DomLike } from './views/dom';
+
+export type { DomLike } from './views/dom';
 
 /** The drag layer of the plan being drawn (PlanCanvas makes one). */
 export const DragLayerContext = createContext<DragLayer | null>(null);
 
-/** What the views write to: an SVG element. */
-export type DomLike = { setAttribute(name: string, value: string): void; removeAttribute(name: string): void; innerHTML: string };
-
-/** The DOM element behind a react-native-svg element on the web (its `elementRef`), or null elsewhere. */
-function domOf(instance: unknown): DomLike | null {
-  const el = (instance as { elementRef?: { current?: unknown } } | null)?.elementRef?.current as DomLike | undefined;
-  return el && typeof el.setAttribute === 'function' ? el : null;
-}
 
 /** Show `live` on the web: shift the shell's drawing by `offset`, or hide it and draw `live` in the preview;
  *  `live` null puts the shell back as React drew it. */

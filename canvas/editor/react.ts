@@ -35,50 +35,83 @@ export function useSettled<T>(selector: (s: EditorState) => T): T {
   return useSyncExternalStore(subscribe, get, get);
 }
 
-/** What an outside store (the live meter) holds, for panels that show text: it follows the store at once
- *  while no gesture is under way, and at most once every `everyMs` during one (numbers that change sixty
- *  times a second cannot be read, and each change is a large render beside the dragged glyph); the newest
- *  value is shown as soon as the gesture ends. */
+/** What an outside store (the live meter, or the editor itself) holds, for panels beside the plan: it follows
+ *  the store at once while no gesture is under way, and at most once every `everyMs` during one (numbers that
+ *  change sixty times a second cannot be read, and each change is a large render beside the dragged glyph); the
+ *  newest value is shown as soon as the gesture ends. Every panel on the same pace catches up on one shared
+ *  tick, in one task, so React commits them together (one render of the panels a pace, not one each). */
 export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyMs = PANEL_PACE_MS): T {
   const editor = useEditorApi();
   const sel = useRef(selector);
   sel.current = selector;
-  const shown = useRef<{ value: T; at: number } | null>(null);
+  const shown = useRef<{ value: T } | null>(null);
   const subscribe = useCallback(
     (notify: () => void) => {
-      let timer: ReturnType<typeof setTimeout> | null = null;
       const update = () => {
-        if (timer) clearTimeout(timer);
-        timer = null;
         const value = sel.current(store.getState());
         if (shown.current && Object.is(shown.current.value, value)) return;
-        shown.current = { value, at: Date.now() };
+        shown.current = { value };
         notify();
       };
       const changed = () => {
-        if (!editor.getState().gesture) return update();
-        const wait = everyMs - (Date.now() - (shown.current?.at ?? 0));
-        if (wait <= 0) update();
-        else timer ??= setTimeout(update, wait);
+        if (!editor.getState().gesture) {
+          unpace(everyMs, update);
+          update();
+        } else pace(everyMs, update);
       };
       const offStore = store.subscribe(changed);
       const offEditor = editor.subscribe((s, prev) => {
-        if (!s.gesture && prev.gesture) update();
+        if (!s.gesture && prev.gesture) {
+          unpace(everyMs, update);
+          update();
+        }
       });
       return () => {
         offStore();
         offEditor();
-        if (timer) clearTimeout(timer);
+        unpace(everyMs, update);
       };
     },
     [editor, store, everyMs],
   );
   const get = useCallback(() => {
-    shown.current ??= { value: sel.current(store.getState()), at: 0 };
+    shown.current ??= { value: sel.current(store.getState()) };
     return shown.current.value;
   }, [store]);
   return useSyncExternalStore(subscribe, get, get);
 }
 
+/** One clock per pace: the updates waiting for it, and when it last ran them. */
+type PaceClock = { last: number; timer: ReturnType<typeof setTimeout> | null; dueAt: number; waiting: Set<() => void> };
+const clocks = new Map<number, PaceClock>();
+
+/** Run `update` on the next tick of the `everyMs` clock: at once (after this task) when the clock last ran at
+ *  least `everyMs` ago, else when that much time has passed. */
+function pace(everyMs: number, update: () => void) {
+  let clock = clocks.get(everyMs);
+  if (!clock) clocks.set(everyMs, (clock = { last: -Infinity, timer: null, dueAt: 0, waiting: new Set() }));
+  clock.waiting.add(update);
+  const now = Date.now();
+  // A tick is set and not long overdue (one far off its time was lost: timers faked and dropped by a test).
+  if (clock.timer && Math.abs(now - clock.dueAt) <= everyMs) return;
+  if (clock.timer) clearTimeout(clock.timer);
+  const c = clock;
+  const wait = Math.min(everyMs, Math.max(0, c.last + everyMs - now));
+  c.dueAt = now + wait;
+  c.timer = setTimeout(() => {
+    c.timer = null;
+    c.last = Date.now();
+    const due = [...c.waiting];
+    c.waiting.clear();
+    for (const f of due) f();
+  }, wait);
+}
+
+function unpace(everyMs: number, update: () => void) {
+  clocks.get(everyMs)?.waiting.delete(update);
+}
+
 /** How often a text panel follows an outside store during a gesture. */
 export const PANEL_PACE_MS = 250;
+/** How often the frame view takes the plan as the hand holds it during a gesture (a new draft picture each time). */
+export const FRAME_PACE_MS = 100;

@@ -6,6 +6,7 @@ import { createLightMapCache } from '../../calc';
 import type { SetupDocument } from '../../model/document';
 import { computeReadings, type Readings } from '../../model/setupReadings';
 import { inlineClient, workerClient } from '../workerClient';
+import { unpackReadings, type PackedReadings } from './transfer';
 
 export type MeterJob = { doc: SetupDocument; stepIndex?: number; lightMap: boolean };
 export type MeterEngine = { compute(job: MeterJob): Promise<Readings>; dispose(): void; readonly kind: 'worker' | 'inline' };
@@ -19,7 +20,7 @@ function inlineEngine(): MeterEngine {
   return { kind: 'inline', compute: c.run, dispose: c.dispose };
 }
 
-type Reply = { id: number; readings: Readings };
+type Reply = { id: number; readings: PackedReadings };
 
 /** A worker engine, falling back to computing in the page if the worker cannot start (say, the dev server,
  *  which does not serve the worker bundle). */
@@ -31,7 +32,7 @@ function workerEngine(url = WORKER_URL): MeterEngine {
     inline: (job) => computeReadings(job.doc, { stepIndex: job.stepIndex, lightMap: job.lightMap, cache }),
     toMessage: (job, id) => ({ id, job }),
     replyId: (r) => r.id,
-    fromReply: (r) => r.readings,
+    fromReply: (r) => unpackReadings(r.readings),
   });
   return {
     get kind() {

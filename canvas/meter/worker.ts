@@ -3,11 +3,13 @@
 import { createLightMapCache } from '../../calc';
 import { computeReadings } from '../../model/setupReadings';
 import type { MeterJob } from './engine';
+import { packReadings } from './transfer';
 
 const cache = createLightMapCache();
-const scope = self as unknown as { onmessage: ((e: MessageEvent<{ id: number; job: MeterJob }>) => void) | null; postMessage: (m: unknown) => void };
+const scope = self as unknown as { onmessage: ((e: MessageEvent<{ id: number; job: MeterJob }>) => void) | null; postMessage: (m: unknown, transfer: ArrayBuffer[]) => void };
 
 scope.onmessage = (e) => {
   const { id, job } = e.data;
-  scope.postMessage({ id, readings: computeReadings(job.doc, { stepIndex: job.stepIndex, lightMap: job.lightMap, cache }) });
+  const { readings, transfer } = packReadings(computeReadings(job.doc, { stepIndex: job.stepIndex, lightMap: job.lightMap, cache }));
+  scope.postMessage({ id, readings }, transfer);
 };

@@ -60,7 +60,9 @@ async function dragOnce(page: Page, cdp: CDPSession, profile: Profile, dir: 1 | 
   await page.waitForTimeout(300);
   const glyph0 = ((await page.evaluate('window.__glyph')) as { x: number }[]).at(-1)!;
   const m0 = await busyTime(cdp);
-  const { sent, t0 } = await drag(cdp, start, (k) => ({ x: -dir * k * profile.stepPx, y: -k * profile.stepPx * 0.5 }));
+  // Back and forth along one line: each run starts where the last ended, so the light stays on the plan (runs
+  // that all drifted up took it under the toolbar by the third, whose press then missed it).
+  const { sent, t0 } = await drag(cdp, start, (k) => ({ x: -dir * k * profile.stepPx, y: -dir * k * profile.stepPx * 0.5 }));
   await page.waitForTimeout(3000 * profile.cpuSlowdown);
   // The whole gesture's busy time (the moves, the release's commit and save, the meter's catching up).
   const m1 = await busyTime(cdp);
