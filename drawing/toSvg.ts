@@ -5,11 +5,15 @@ const keepCase = new Set(['viewBox', 'preserveAspectRatio']);
 const kebab = (k: string) => (keepCase.has(k) ? k : k.replace(/[A-Z]/g, (m) => `-${m.toLowerCase()}`));
 const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
+/** An attribute as SVG writes it: its name (kebab-case) and its value (numbers to 4 decimals). */
+export const svgAttrName = kebab;
+export const svgAttrValue = (v: string | number): string => (typeof v === 'number' ? String(Math.round(v * 10000) / 10000) : v);
+
 function attrs(a: Attrs): string {
   let out = '';
   for (const [k, v] of Object.entries(a)) {
     if (v === undefined) continue;
-    out += ` ${kebab(k)}="${esc(typeof v === 'number' ? String(Math.round(v * 10000) / 10000) : v)}"`;
+    out += ` ${kebab(k)}="${esc(svgAttrValue(v))}"`;
   }
   return out;
 }

@@ -4,7 +4,7 @@
 // most once where its line is long and straight, clear of the lights, the items and their labels
 // (drawing/contourLabels.ts, placed here at the plan's zoom). The tint under them is HeatCanvas, drawn beneath the SVG.
 // The lines and wall strips change wholesale with every new map (about 30 a second while a hand drags), so on the
-// web they are written as markup into one group (SketchMarkup), not re-rendered element by element.
+// web they are written straight into one group's DOM, only what changed (DirectSketch), not re-rendered element by element.
 // While a hand drags on the plan the labels step aside (the lines move under the hand about 30 times a second, and
 // placing their labels anew each time costs the frames the glyph needs); they come back where they fit on release.
 import { memo, useMemo } from 'react';
@@ -16,7 +16,7 @@ import { contourLabelNodes } from '../../drawing/plan';
 import type { Units } from '../../model/units';
 import { useEditor } from '../editor/react';
 import { lightMapNodes } from '../meter/mapNodes';
-import { SketchMarkup } from '../views/SketchMarkup';
+import { DirectSketch } from '../views/DirectSketch';
 import { SketchView } from '../views/SketchView';
 
 export const LightMapLayer = memo(function LightMapLayer({ map, ink, units }: { map: LightMapResult; ink: string; units: Units }) {
@@ -32,7 +32,7 @@ export const LightMapLayer = memo(function LightMapLayer({ map, ink, units }: { 
   }, [map, ink, items, stage, scale, units, dragging]);
   return (
     <G pointerEvents="none">
-      <SketchMarkup node={lines} testID="light-map-lines" />
+      <DirectSketch node={lines} testID="light-map-lines" />
       {labels && <SketchView node={labels} />}
     </G>
   );

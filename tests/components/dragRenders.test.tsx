@@ -1,7 +1,7 @@
 // A drag re-renders what the hand moves — the dragged item's glyph, its beam and the handles — and nothing
 // else: not the other items, not the inspector, the meter's text at most at its readable pace (usePaced) however
 // fast the meter's results come, the frame view at its own pace, and the light map's lines not element by element
-// (written as markup). And the plan hands the editor at most one pointer move a frame.
+// (written straight into the DOM). And the plan hands the editor at most one pointer move a frame.
 import { act, render } from '@testing-library/react';
 import { Profiler, type ProfilerOnRenderCallback } from 'react';
 import { createEditor, type Editor } from '../../canvas/editor/editor';
@@ -150,7 +150,7 @@ describe('a drag on the plan', () => {
     expect(MOVES * 5).toBeLessThanOrEqual(FRAME_PACE_MS);
     expect(frameDocs.size).toBeGreaterThan(0);
     expect(frameDocs.size).toBeLessThanOrEqual(2);
-    // Each new map rewrote the lines' markup (the map follows the hand), and React drew none of its elements
+    // Each new map rewrote the lines (the map follows the hand), and React drew none of its elements
     // (a map is a few hundred: one new map drawn through SketchView would count that many; what is left is the
     // moved item's label stepping aside as the drag starts).
     expect(mapLines()).not.toBe(linesBefore);
