@@ -5,7 +5,9 @@
 // next one, for the document as it stands, is — so the meter is at most one update behind the glyph.
 // While a hand drags on the plan, jobs start at most every GESTURE_GAP_MS: the glyph moves every frame, and the
 // light map and panels that each result redraws (contours, tint, meter text) follow at about half
-// that rate, so their drawing does not take the frames the glyph needs.
+// that rate, so their drawing does not take the frames the glyph needs. Where showing a result costs this thread
+// more (a slow phone), the gap grows with it: a result's showing (the store's listeners, then React's render and
+// commit of what reads it, which run before the next microtask) takes at most 1 / SHOW_SHARE of the time.
 import { createStore, type StoreApi } from 'zustand';
 import type { SetupDocument } from '../../model/document';
 import { computeReadings, type Readings } from '../../model/setupReadings';
@@ -21,6 +23,8 @@ export type Meter = StoreApi<MeterState> & { setOptions: (o: Partial<MeterOption
 const SETTLE_MS = 40;
 /** During a pointer gesture, the least time between the starts of two jobs (about 30 results a second). */
 export const GESTURE_GAP_MS = 33;
+/** During a gesture, showing results may take at most one part in SHOW_SHARE of this thread's time. */
+export const SHOW_SHARE = 4;
 
 export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEngine = defaultEngine(), now: () => number = () => Date.now()): Meter {
   let options = opts;
@@ -33,10 +37,21 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
   let disposed = false;
   let sentAt = -Infinity;
   let paced: ReturnType<typeof setTimeout> | null = null;
+  // What showing a result cost this thread, ms (smoothed over the last few).
+  let showMs = 0;
+  const gap = () => Math.max(GESTURE_GAP_MS, SHOW_SHARE * showMs);
+  const show = (state: Partial<MeterState>) => {
+    const t = now();
+    store.setState(state);
+    // React renders and commits what the change re-renders in a microtask queued by the listeners just called.
+    queueMicrotask(() => {
+      showMs = 0.6 * showMs + 0.4 * (now() - t);
+    });
+  };
 
   const send = () => {
     if (disposed) return;
-    const wait = editor.getState().drag ? sentAt + GESTURE_GAP_MS - now() : 0;
+    const wait = editor.getState().drag ? sentAt + gap() - now() : 0;
     if (wait > 0) {
       // Too soon after the last job while a hand drags: the newest document goes when the gap is over.
       running = true;
@@ -58,7 +73,7 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
       running = false;
       const stale = dirty || sent.options !== options;
       const handStopped = now() - lastChange >= SETTLE_MS;
-      if (!stale || !handStopped) store.setState({ readings, doc, computing: stale });
+      if (!stale || !handStopped) show({ readings, doc, computing: stale });
       if (stale) send();
       else store.setState({ computing: false });
     });

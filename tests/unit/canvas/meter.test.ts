@@ -1,9 +1,9 @@
 // The live meter follows the editor at its own pace: one job at a time, only the newest document sent next,
 // and when the hand has stopped an older result is not shown (at most one update behind).
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { createEditor } from '../../../canvas/editor/editor';
 import type { MeterEngine, MeterJob } from '../../../canvas/meter/engine';
-import { GESTURE_GAP_MS, createMeter } from '../../../canvas/meter/meter';
+import { GESTURE_GAP_MS, SHOW_SHARE, createMeter } from '../../../canvas/meter/meter';
 import { demoSetups } from '../../../db/seed-setups';
 import { computeReadings } from '../../../model/setupReadings';
 
@@ -120,5 +120,41 @@ describe('the live meter', () => {
     await flush();
     expect(jobs.length).toBe(4);
     m.dispose();
+  });
+
+  describe('where showing a result is costly (a slow phone)', () => {
+    afterEach(() => vi.useRealTimers());
+    it('widens the gap between jobs during a drag so showing results takes at most 1 / SHOW_SHARE of the thread', async () => {
+      vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout'] });
+      const { e, jobs, m, clock } = meterOnPlan();
+      // Each result shown costs this thread 30 ms (its listeners: React's render of the panels and the map).
+      const COST = 30;
+      m.subscribe((st, prev) => {
+        if (st.readings !== prev.readings) clock.t += COST;
+      });
+      e.pointer.down({ screen: { x: 400, y: 410 }, pointer: 'mouse' });
+      e.pointer.move({ screen: { x: 420, y: 410 }, pointer: 'mouse' });
+      e.pointer.move({ screen: { x: 440, y: 410 }, pointer: 'mouse' });
+      expect(jobs.length).toBe(1);
+      // The first result: shown (30 ms), the newest document goes next after the plain gap.
+      jobs[0]!.resolve();
+      await vi.advanceTimersByTimeAsync(GESTURE_GAP_MS);
+      expect(jobs.length).toBe(2);
+      const started = clock.t;
+      e.pointer.move({ screen: { x: 460, y: 410 }, pointer: 'mouse' });
+      jobs[1]!.resolve();
+      await vi.advanceTimersByTimeAsync(0);
+      // The second result cost 30 ms too: with what the first cost (weighted 0.4 → 12 ms), the gap is now
+      // SHOW_SHARE × 12 = 48 ms from the last start, where the plain gap would have sent it 3 ms after it was shown.
+      const gap = SHOW_SHARE * 0.4 * COST;
+      expect(gap).toBeGreaterThan(GESTURE_GAP_MS);
+      const wait = started + gap - clock.t;
+      await vi.advanceTimersByTimeAsync(wait - 5);
+      expect(jobs.length).toBe(2);
+      await vi.advanceTimersByTimeAsync(10);
+      expect(jobs.length).toBe(3);
+      e.pointer.up({ screen: { x: 460, y: 410 }, pointer: 'mouse' });
+      m.dispose();
+    });
   });
 });
