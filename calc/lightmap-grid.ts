@@ -11,7 +11,7 @@ import type { LightMapGrid } from './lightmap';
 import { PROFILE_LUT_SIZE } from './modifiers';
 import { type FieldReceptor, type Room, type RoomLight, type Weights, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse, patchWeights } from './room';
 import type { Scene } from './sceneSchema';
-import { castShadows } from './shadows';
+import { castShadows, castShadowsSum } from './shadows';
 import { DEG } from './vec';
 
 const DEFAULT_BOUNCE_STEP = 4;
@@ -73,6 +73,11 @@ export type Geometry = {
   ky: number;
   coarseFrame: GridFrame;
   kernel: Float32Array;
+  /**
+   * Sign of each patch's kernel row: 1 all ≥ 0 (the points see its front), −1 all ≤ 0 (its back), 0 all zero,
+   * 2 mixed. A row of one sign needs no test per point in the bounce pass.
+   */
+  rowSign: Int8Array;
   /**
    * Interpolation of the coarse bounce at each point: the coarse cell's first corner (b·kx + a) and the four
    * corner weights [4k … 4k+3] for (a, b), (a+1, b), (a, b+1), (a+1, b+1). Bilinear, except that corners lying on
@@ -365,6 +370,18 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
       if (f !== 0) kernel[base + k] = f * t;
     }
   }
+  const rowSign = new Int8Array(P.count);
+  for (let p = 0; p < P.count; p++) {
+    let pos = false;
+    let neg = false;
+    const base = p * nK;
+    for (let k = 0; k < nK; k++) {
+      const f = kernel[base + k]!;
+      if (f > 0) pos = true;
+      else if (f < 0) neg = true;
+    }
+    rowSign[p] = pos && neg ? 2 : pos ? 1 : neg ? -1 : 0;
+  }
   const frame: GridFrame = { nx, ny, x0: grid.x0, y0: grid.y0, dx, dy };
   const cell = new Int32Array(n);
   const weights = new Float32Array(4 * n);
@@ -388,40 +405,37 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
     ky,
     coarseFrame,
     kernel,
+    rowSign,
     cell,
     weights,
     walls: wallStrips(room, z),
   };
 }
 
-const shadowRows = new Int32Array(2);
-let shadowSpans = new Int32Array(2 * 256);
+let shadowCur = new Float32Array(0);
+let shadowStamp = new Int32Array(0);
+let shadowId = 0;
 
 /** Shadows of one light on the grid: walls and flags from the light (or the 16 points of a big face), then the body. */
 function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
   out.fill(1);
   if (L.face) {
-    // Mean transmission over the face's points: out sums what each point's shadows take (1 − t, only over the
-    // rows its shadows touched; tmp is put back to 1 there), then becomes (count − sum)/count. Opaque shadows sum
-    // whole numbers, so a point every sample sees shaded is exactly 0, as the mean of the samples.
+    // Mean transmission over the face's points: out sums what each point's shadows take (1 − t, each point's
+    // shadows once, over the cells they cover), then becomes (count − sum)/count. Opaque shadows sum whole
+    // numbers, so a point every sample sees shaded is exactly 0, as the mean of the samples.
     out.fill(0);
-    tmp.fill(1);
-    const nx = g.frame.nx;
+    if (shadowStamp.length !== g.n) {
+      shadowCur = new Float32Array(g.n);
+      shadowStamp = new Int32Array(g.n);
+      shadowId = 0;
+    }
     const pts = faceSamplePoints(L, L.face);
-    if (shadowSpans.length < 2 * g.frame.ny) shadowSpans = new Int32Array(2 * g.frame.ny);
     for (const [sx, sy, sz] of pts) {
-      castShadows(g.occ, sx, sy, sz, g.z, g.frame, tmp, -1, shadowRows, shadowSpans);
-      // Only the cells its shadows touched (each row's changed columns).
-      for (let j = shadowRows[0]!; j <= shadowRows[1]!; j++) {
-        const row = j * nx;
-        const end = row + shadowSpans[2 * j + 1]!;
-        for (let k = row + shadowSpans[2 * j]!; k <= end; k++) {
-          const t = tmp[k]!;
-          if (t === 1) continue;
-          out[k]! += 1 - t;
-          tmp[k] = 1;
-        }
+      if (shadowId >= 0x7ffffff0) {
+        shadowStamp.fill(0);
+        shadowId = 0;
       }
+      castShadowsSum(g.occ, sx, sy, sz, g.z, g.frame, out, shadowCur, shadowStamp, ++shadowId);
     }
     const m = pts.length;
     const inv = 1 / m;
@@ -631,17 +645,32 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
   }
 }
 
+let yFront = new Float64Array(0);
+let yBack = new Float64Array(0);
+let rowBase = new Int32Array(0);
+let rowCoef = new Float64Array(0);
+
 /**
  * The lights' bounce on the coarse grid: Σ patches kernel × the patch luminance (Y) on the side seen, summed
  * over the given lights first. The kernel is linear in the luminance, so one pass over the summed patches equals
- * the sum of one pass per light (to rounding) at the cost of one.
+ * the sum of one pass per light (to rounding) at the cost of one. Rows of one sign (a wall or the floor, seen
+ * from one side by every point) are summed four at a time with no test per point; mixed rows (a free-standing
+ * panel with points on both sides) pick the side per point.
  */
 export function bounceCoarse(room: Room, lights: readonly RoomLight[], g: Geometry, out: Float64Array): void {
   out.fill(0);
   const P = room.patches;
   const nP = P.count;
-  const yf = new Float64Array(nP);
-  const yb = new Float64Array(nP);
+  if (yFront.length < nP) {
+    yFront = new Float64Array(nP);
+    yBack = new Float64Array(nP);
+    rowBase = new Int32Array(nP);
+    rowCoef = new Float64Array(nP);
+  }
+  const yf = yFront;
+  const yb = yBack;
+  yf.fill(0, 0, nP);
+  yb.fill(0, 0, nP);
   let any = false;
   for (const L of lights) {
     const lum = room.lum[L.index];
@@ -656,7 +685,37 @@ export function bounceCoarse(room: Room, lights: readonly RoomLight[], g: Geomet
   if (!any) return;
   const nK = g.kx * g.ky;
   const K = g.kernel;
+  const sign = g.rowSign;
+  // Rows of one sign: the coefficient of the side seen (a back row's kernel is negative: −Y_back keeps it positive).
+  let m = 0;
   for (let p = 0; p < nP; p++) {
+    const sg = sign[p]!;
+    if (sg === 0 || sg === 2) continue;
+    const c = sg === 1 ? yf[p]! : -yb[p]!;
+    if (c === 0) continue;
+    rowBase[m] = p * nK;
+    rowCoef[m] = c;
+    m++;
+  }
+  let r = 0;
+  for (; r + 4 <= m; r += 4) {
+    const b0 = rowBase[r]!;
+    const b1 = rowBase[r + 1]!;
+    const b2 = rowBase[r + 2]!;
+    const b3 = rowBase[r + 3]!;
+    const c0 = rowCoef[r]!;
+    const c1 = rowCoef[r + 1]!;
+    const c2 = rowCoef[r + 2]!;
+    const c3 = rowCoef[r + 3]!;
+    for (let k = 0; k < nK; k++) out[k]! += K[b0 + k]! * c0 + K[b1 + k]! * c1 + K[b2 + k]! * c2 + K[b3 + k]! * c3;
+  }
+  for (; r < m; r++) {
+    const b0 = rowBase[r]!;
+    const c0 = rowCoef[r]!;
+    for (let k = 0; k < nK; k++) out[k]! += K[b0 + k]! * c0;
+  }
+  for (let p = 0; p < nP; p++) {
+    if (sign[p] !== 2) continue;
     const f0 = yf[p]!;
     const b0 = yb[p]!;
     if (f0 === 0 && b0 === 0) continue;

@@ -161,16 +161,35 @@ function subjectReading(room: Room): number {
   }
 }
 
+/**
+ * A coordinate rounded to the millimetre, as `String(Math.round(v · 1000) / 1000)` writes it (shortest form, no
+ * trailing zeros), but from whole numbers: V8 writes a small integer from a cache, a fraction with its
+ * shortest-digits search, which was most of the paths' cost (tested equal on random and edge values).
+ */
+export function millimetres(v: number): string {
+  const m = Math.round(v * 1000);
+  if (!(Math.abs(m) < 1e12)) return String(m / 1000);
+  const a = m < 0 ? -m : m;
+  const whole = Math.floor(a / 1000);
+  const f = a - whole * 1000;
+  const sign = m < 0 ? '-' : '';
+  if (f === 0) return m === 0 ? '0' : sign + whole;
+  if (f % 100 === 0) return sign + whole + '.' + f / 100;
+  if (f % 10 === 0) return sign + whole + (f < 100 ? '.0' : '.') + f / 10;
+  return sign + whole + (f < 10 ? '.00' : f < 100 ? '.0' : '.') + f;
+}
+
 /** SVG path data of each contour level, with a label point on its longest line. */
 function contourPaths(levels: ContourLevel[]): ContourPath[] {
   const r = (v: number) => Math.round(v * 1000) / 1000;
+  const w = millimetres;
   return levels.map((level) => {
     let d = '';
     let longest: [number, number][] | null = null;
     for (const line of level.lines) {
       if (line.length < 2) continue;
-      d += `M${r(line[0]![0])},${r(line[0]![1])}`;
-      for (let k = 1; k < line.length; k++) d += `L${r(line[k]![0])},${r(line[k]![1])}`;
+      d += 'M' + w(line[0]![0]) + ',' + w(line[0]![1]);
+      for (let k = 1; k < line.length; k++) d += 'L' + w(line[k]![0]) + ',' + w(line[k]![1]);
       if (!longest || line.length > longest.length) longest = line;
     }
     const mid = longest && longest.length > 12 ? longest[Math.floor(longest.length / 2)]! : null;
