@@ -530,9 +530,9 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
     const a = lut[j]!;
     const prof = a + (lut[j + 1]! - a) * (f - j);
     const e2 = d2 + R2;
-    const v = (I * prof * resp * t) / (e2 > MIN_DISTANCE_SQ_M2 ? e2 : MIN_DISTANCE_SQ_M2);
-    out[k] = v;
-    if (pf) pf[k] = (I * prof * resp) / (e2 > MIN_DISTANCE_SQ_M2 ? e2 : MIN_DISTANCE_SQ_M2);
+    const w = (I * prof * resp) / (e2 > MIN_DISTANCE_SQ_M2 ? e2 : MIN_DISTANCE_SQ_M2);
+    out[k] = w * t;
+    if (pf) pf[k] = w;
   }
   if (face && pf) areaCorrection(L, g, out, pf);
 }

@@ -163,35 +163,101 @@ function subjectReading(room: Room): number {
 
 /**
  * A coordinate rounded to the millimetre, as `String(Math.round(v · 1000) / 1000)` writes it (shortest form, no
- * trailing zeros), but from whole numbers: V8 writes a small integer from a cache, a fraction with its
- * shortest-digits search, which was most of the paths' cost (tested equal on random and edge values).
+ * trailing zeros), but from whole numbers: V8 writes a fraction with its shortest-digits search, which was most
+ * of the paths' cost (tested equal on random and edge values). The paths write the same characters straight into
+ * a byte buffer (putMillimetres), so a frame's paths are a few strings, not one per coordinate.
  */
 export function millimetres(v: number): string {
+  pathLen = 0;
+  putMillimetres(v);
+  return pathString(0, pathLen);
+}
+
+let pathBuf = new Uint8Array(1 << 14);
+let pathLen = 0;
+const CH_0 = 48;
+const CH_DOT = 46;
+const CH_MINUS = 45;
+
+function pathRoom(extra: number): void {
+  if (pathLen + extra <= pathBuf.length) return;
+  const b = new Uint8Array(Math.max(2 * pathBuf.length, pathLen + extra));
+  b.set(pathBuf.subarray(0, pathLen));
+  pathBuf = b;
+}
+
+/** Append a whole number 0 ≤ n < 1e12 in decimal. */
+function putWhole(n: number): void {
+  let start = pathLen;
+  do {
+    const q = Math.floor(n / 10);
+    pathBuf[pathLen++] = CH_0 + (n - q * 10);
+    n = q;
+  } while (n > 0);
+  for (let e = pathLen - 1; start < e; start++, e--) {
+    const c = pathBuf[start]!;
+    pathBuf[start] = pathBuf[e]!;
+    pathBuf[e] = c;
+  }
+}
+
+function putMillimetres(v: number): void {
+  pathRoom(32);
   const m = Math.round(v * 1000);
-  if (!(Math.abs(m) < 1e12)) return String(m / 1000);
+  if (!(Math.abs(m) < 1e12)) {
+    const str = String(m / 1000);
+    pathRoom(str.length);
+    for (let q = 0; q < str.length; q++) pathBuf[pathLen++] = str.charCodeAt(q);
+    return;
+  }
   const a = m < 0 ? -m : m;
+  if (a === 0) {
+    pathBuf[pathLen++] = CH_0;
+    return;
+  }
+  if (m < 0) pathBuf[pathLen++] = CH_MINUS;
   const whole = Math.floor(a / 1000);
-  const f = a - whole * 1000;
-  const sign = m < 0 ? '-' : '';
-  if (f === 0) return m === 0 ? '0' : sign + whole;
-  if (f % 100 === 0) return sign + whole + '.' + f / 100;
-  if (f % 10 === 0) return sign + whole + (f < 100 ? '.0' : '.') + f / 10;
-  return sign + whole + (f < 10 ? '.00' : f < 100 ? '.0' : '.') + f;
+  putWhole(whole);
+  let f = a - whole * 1000;
+  if (f === 0) return;
+  pathBuf[pathLen++] = CH_DOT;
+  // Up to three digits, without trailing zeros.
+  const d1 = Math.floor(f / 100);
+  f -= d1 * 100;
+  const d2 = Math.floor(f / 10);
+  const d3 = f - d2 * 10;
+  pathBuf[pathLen++] = CH_0 + d1;
+  if (d2 === 0 && d3 === 0) return;
+  pathBuf[pathLen++] = CH_0 + d2;
+  if (d3 !== 0) pathBuf[pathLen++] = CH_0 + d3;
+}
+
+/** The buffer's characters [from, to) as a string (ASCII; in chunks, as apply takes a bounded argument count). */
+function pathString(from: number, to: number): string {
+  let out = '';
+  for (let q = from; q < to; q += 8192) out += String.fromCharCode.apply(null, pathBuf.subarray(q, Math.min(to, q + 8192)) as unknown as number[]);
+  return out;
 }
 
 /** SVG path data of each contour level, with a label point on its longest line. */
 function contourPaths(levels: ContourLevel[]): ContourPath[] {
   const r = (v: number) => Math.round(v * 1000) / 1000;
-  const w = millimetres;
   return levels.map((level) => {
-    let d = '';
+    pathLen = 0;
     let longest: [number, number][] | null = null;
     for (const line of level.lines) {
       if (line.length < 2) continue;
-      d += 'M' + w(line[0]![0]) + ',' + w(line[0]![1]);
-      for (let k = 1; k < line.length; k++) d += 'L' + w(line[k]![0]) + ',' + w(line[k]![1]);
+      for (let k = 0; k < line.length; k++) {
+        pathRoom(1);
+        pathBuf[pathLen++] = k === 0 ? 77 /* M */ : 76 /* L */;
+        putMillimetres(line[k]![0]);
+        pathRoom(1);
+        pathBuf[pathLen++] = 44; // ,
+        putMillimetres(line[k]![1]);
+      }
       if (!longest || line.length > longest.length) longest = line;
     }
+    const d = pathString(0, pathLen);
     const mid = longest && longest.length > 12 ? longest[Math.floor(longest.length / 2)]! : null;
     return { stops: level.stops, d, label: mid ? [r(mid[0]), r(mid[1])] : null };
   });

@@ -4,7 +4,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { parseScene, type LightInput, type SceneInput } from '../../../calc';
+import { lightMap, parseScene, type LightInput, type SceneInput } from '../../../calc';
 import { buildOccluders } from '../../../calc/flatScene';
 import { millimetres } from '../../../calc/lightmap';
 import { bounceCoarse, buildGeometry } from '../../../calc/lightmap-grid';
@@ -46,6 +46,20 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
     );
     // Values on a half millimetre (rounding ties) and whole millimetres.
     fc.assert(fc.property(fc.integer({ min: -2e7, max: 2e7 }), (m) => millimetres(m / 1000) === plain(m / 1000) && millimetres((m + 0.5) / 1000) === plain((m + 0.5) / 1000)));
+  });
+
+  it('each level’s path data is its lines written with String(Math.round(v · 1000) / 1000)', () => {
+    resetRoomCache();
+    const map = lightMap(studio(), { x0: -0.3, y0: -0.2, x1: 6.3, y1: 5.2, nx: 90, ny: 80, contourMinStops: -12, contourStepStops: 0.5 });
+    expect(map.contourPaths.length).toBeGreaterThan(5);
+    const plain = (v: number) => String(Math.round(v * 1000) / 1000);
+    map.contours.forEach((level, i) => {
+      const d = level.lines
+        .filter((l) => l.length >= 2)
+        .map((l) => l.map(([x, y], k) => `${k === 0 ? 'M' : 'L'}${plain(x)},${plain(y)}`).join(''))
+        .join('');
+      expect(map.contourPaths[i]!.d).toBe(d);
+    });
   });
 
   it('the bounce kernel pass (rows of one sign four at a time) equals the per-point side test', () => {
