@@ -262,10 +262,8 @@ const SAMPLE_FRACTIONS: readonly (readonly [number, number])[] = [-3 / 4, -1 / 4
  * of normal n, clipped to its horizon — Lambert's contour integral; works for up to 8 corners.
  */
 function polygonFlat(pts: Float64Array, n: number, nx: number, ny: number, nz: number): number {
-  if (n === 4) {
-    quadBuf.set(pts.subarray(0, 12));
-    return quadIrradiancePerLuminance(quadBuf, nx, ny, nz);
-  }
+  // A quad is read in place (its first 12 numbers): no copy, and no subarray view allocated per call.
+  if (n === 4) return quadIrradiancePerLuminance(pts, nx, ny, nz);
   // Fan of quads sharing the first corner (each convex): (0, i, i+1, i+2).
   let sum = 0;
   for (let i = 1; i + 1 < n; i += 2) {
