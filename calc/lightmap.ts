@@ -13,7 +13,7 @@ import { contourLines, type ContourLevel } from './contours';
 import { contourLinesD3 } from './contours-d3';
 import { luxFromEv100, luxSecondsForAperture } from './exposure';
 import { kelvinToLinearRgb, relativeLuminance, type Rgb } from './colour';
-import { type Geometry, bounceCoarse, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
+import { type Geometry, bounceCoarse, bounceSplit, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
 import { DARK_LUX_SECONDS, recordedTone } from './meter';
 import type { RecordedTone } from './results';
 import { type Room, type RoomLight, buildRoom, directLux, gather, subjectReceptors } from './room';
@@ -286,6 +286,12 @@ export function createLightMapCache(): LightMapCache {
   let bounceKey = '';
   // The lights' summed exposure (kept between frames: only read inside one update).
   let sumBuf = new Float64Array(0);
+  // A drag: the lights that did not change (their ids and keys), their summed direct grid and coarse bounce, kept
+  // while the same lights stay unchanged, so a frame adds only the moved light's grids to them.
+  let stableKey = '';
+  let stableDirect = new Float64Array(0);
+  let stableBounce = new Float64Array(0);
+  let changedBounce = new Float64Array(0);
   const stats: LightMapStats = { geometryRebuilt: false, lightsRecomputed: 0, lightsReused: 0 };
 
   function updateParsed(scene: Scene, grid: LightMapGrid): LightMapResult {
@@ -308,12 +314,17 @@ export function createLightMapCache(): LightMapCache {
       geometry = buildGeometry(room, grid, gKey);
       entries = new Map();
       bounceKey = '';
+      stableKey = '';
       stats.geometryRebuilt = true;
     }
     const g = geometry;
     if (tmp.length !== g.n) tmp = new Float32Array(g.n);
     const next = new Map<string, LightEntry>();
     const list: LightEntry[] = [];
+    const reused: RoomLight[] = [];
+    const reusedEntries: LightEntry[] = [];
+    const changed: RoomLight[] = [];
+    const changedEntries: LightEntry[] = [];
     for (const L of room.lights) {
       const old = entries.get(L.light.id);
       let e: LightEntry;
@@ -325,6 +336,13 @@ export function createLightMapCache(): LightMapCache {
         e = lightEntry(room, L, g, tmp, next.has(L.light.id) ? undefined : old?.direct);
         stats.lightsRecomputed++;
       }
+      if (e === old) {
+        reused.push(L);
+        reusedEntries.push(e);
+      } else {
+        changed.push(L);
+        changedEntries.push(e);
+      }
       next.set(L.light.id, e);
       list.push(e);
     }
@@ -334,20 +352,51 @@ export function createLightMapCache(): LightMapCache {
     const n = g.n;
     if (sumBuf.length !== n) sumBuf = new Float64Array(n);
     const H = sumBuf;
-    if (list.length > 0) H.set(list[0]!.direct);
-    else H.fill(0);
-    for (let q = 1; q < list.length; q++) {
-      const e = list[q]!;
-      const d = e.direct;
-      for (let k = 0; k < n; k++) H[k]! += d[k]!;
-    }
-    // Bounce: one kernel pass over the lights' summed patch luminance, redone only when a light changed.
     const nK = g.kx * g.ky;
     const bKey = room.lights.map((L) => L.key).join('|');
-    if (bounceSum.length !== nK || bKey !== bounceKey) {
-      if (bounceSum.length !== nK) bounceSum = new Float64Array(nK);
-      bounceCoarse(room, room.lights, g, bounceSum);
+    if (bounceSum.length !== nK) {
+      bounceSum = new Float64Array(nK);
+      bounceKey = '';
+    }
+    if (changed.length > 0 && changed.length <= reused.length) {
+      // Few lights changed (a drag, a light added): the unchanged ones' sums are kept while they stay unchanged
+      // (the first such frame pays for them once), and this frame adds the changed lights' direct grids and
+      // their bounce from its parts (bounceSplit: only the patches their first bounce reaches, and the coarse
+      // patches). The same sums as below in another order: equal to rounding (tested against a fresh map).
+      const sKey = reused.map((L) => `${L.light.id}\u0000${L.key}`).join('\u0001');
+      if (sKey !== stableKey || stableDirect.length !== n || stableBounce.length !== nK) {
+        if (stableDirect.length !== n) stableDirect = new Float64Array(n);
+        if (stableBounce.length !== nK) stableBounce = new Float64Array(nK);
+        stableDirect.fill(0);
+        for (const e of reusedEntries) {
+          const d = e.direct;
+          for (let k = 0; k < n; k++) stableDirect[k]! += d[k]!;
+        }
+        bounceCoarse(room, reused, g, stableBounce);
+        stableKey = sKey;
+      }
+      H.set(stableDirect);
+      for (const e of changedEntries) {
+        const d = e.direct;
+        for (let k = 0; k < n; k++) H[k]! += d[k]!;
+      }
+      if (changedBounce.length !== nK) changedBounce = new Float64Array(nK);
+      bounceSplit(room, changed, g, changedBounce);
+      for (let k = 0; k < nK; k++) bounceSum[k] = stableBounce[k]! + changedBounce[k]!;
       bounceKey = bKey;
+    } else {
+      if (list.length > 0) H.set(list[0]!.direct);
+      else H.fill(0);
+      for (let q = 1; q < list.length; q++) {
+        const e = list[q]!;
+        const d = e.direct;
+        for (let k = 0; k < n; k++) H[k]! += d[k]!;
+      }
+      // Bounce: one kernel pass over the lights' summed patch luminance, redone only when a light changed.
+      if (bKey !== bounceKey) {
+        bounceCoarse(room, room.lights, g, bounceSum);
+        bounceKey = bKey;
+      }
     }
     const coarse = bounceSum;
     const { nx, ny } = g.frame;
@@ -425,6 +474,7 @@ export function createLightMapCache(): LightMapCache {
       geometry = null;
       entries = new Map();
       bounceKey = '';
+      stableKey = '';
     },
   };
 }

@@ -32,6 +32,7 @@ let sumOut: Float32Array | null = null;
 let sumCur: Float32Array = new Float32Array(0);
 let sumStamp: Int32Array = new Int32Array(0);
 let sumId = 0;
+let sumOpaque = false;
 
 /**
  * Add to `sum` (row-major, frame.nx × frame.ny) what the shadows cast from one source take from each cell:
@@ -56,6 +57,13 @@ export function castShadowsSum(
   sumCur = cur;
   sumStamp = stamp;
   sumId = id;
+  // With every occluder opaque (or clear), a cell's transmission for this source is 1 until its first shadow and
+  // 0 after: each covered cell adds 1 once, and the stamps alone say which were added.
+  sumOpaque = true;
+  for (let o = 0; o < occ.count; o++) {
+    const t = occ.transmission[o]!;
+    if (t !== 0 && t !== 1) sumOpaque = false;
+  }
   try {
     castShadows(occ, sx, sy, sz, zQ, frame, cur);
   } finally {
@@ -281,6 +289,14 @@ function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number, 
       const cur = sumCur;
       const st = sumStamp;
       const id = sumId;
+      if (sumOpaque) {
+        for (let k = row + i0; k <= row + i1; k++) {
+          if (st[k] === id) continue;
+          acc[k]! += 1;
+          st[k] = id;
+        }
+        continue;
+      }
       for (let k = row + i0; k <= row + i1; k++) {
         const old = st[k] === id ? cur[k]! : 1;
         const now = old * T;

@@ -4,10 +4,10 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { lightMap, parseScene, type LightInput, type SceneInput } from '../../../calc';
+import { createLightMapCache, lightMap, meterParsed, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../../calc';
 import { buildOccluders } from '../../../calc/flatScene';
 import { millimetres } from '../../../calc/lightmap';
-import { bounceCoarse, buildGeometry } from '../../../calc/lightmap-grid';
+import { bounceCoarse, bounceSplit, buildGeometry } from '../../../calc/lightmap-grid';
 import { buildRoom, resetRoomCache } from '../../../calc/room';
 import { castShadows, castShadowsSum } from '../../../calc/shadows';
 
@@ -139,5 +139,54 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
       }),
       { numRuns: 60 },
     );
+  });
+
+  it('a light’s bounce from its parts (first bounce on the patches it reaches, later bounces on the coarse patches) equals the pass over its total', () => {
+    resetRoomCache();
+    const room = buildRoom(parseScene(studio()));
+    const g = buildGeometry(room, { x0: 0, y0: 0, x1: 6, y1: 5, nx: 49, ny: 41 }, 'test');
+    const nK = g.kx * g.ky;
+    const whole = new Float64Array(nK);
+    const parts = new Float64Array(nK);
+    // Each light alone (the snoot reaches few patches), and all together.
+    for (const set of [...room.lights.map((L) => [L]), room.lights]) {
+      bounceCoarse(room, set, g, whole);
+      bounceSplit(room, set, g, parts);
+      let lit = 0;
+      for (let k = 0; k < nK; k++) {
+        if (whole[k]! > 0) lit++;
+        expect(Math.abs(parts[k]! - whole[k]!)).toBeLessThanOrEqual(1e-9 * Math.max(1e-12, whole[k]!));
+      }
+      expect(lit).toBeGreaterThan(nK / 2);
+    }
+  });
+
+  it('a drag through a warm cache (the unchanged lights’ sums kept) reads what a fresh map reads, frame after frame and when another light is taken', () => {
+    const grid: LightMapGrid = { x0: 0, y0: 0, x1: 6, y1: 5, nx: 61, ny: 51 };
+    const base = parseScene(studio({ subject: { x: 3, y: 2.5, heightM: 1.6, facingDeg: 0, body: { widthM: 0.45, depthM: 0.25, topM: 1.7 } } }));
+    const frames: (typeof base)[] = [];
+    // Five frames dragging the key, then three dragging the rim (the kept sums change), then the key's power.
+    for (let f = 1; f <= 5; f++) frames.push({ ...base, lights: base.lights.map((l) => (l.id === 'key' ? { ...l, x: l.x - 0.07 * f, y: l.y + 0.03 * f } : l)) });
+    const last = frames[frames.length - 1]!;
+    for (let f = 1; f <= 3; f++) frames.push({ ...last, lights: last.lights.map((l) => (l.id === 'rim' ? { ...l, y: l.y + 0.1 * f } : l)) });
+    const end = frames[frames.length - 1]!;
+    frames.push({ ...end, lights: end.lights.map((l) => (l.id === 'key' ? { ...l, powerFraction: 0.5 } : l)) });
+    resetRoomCache();
+    const cache = createLightMapCache();
+    meterParsed(base);
+    cache.updateParsed(base, grid);
+    for (const step of frames) {
+      meterParsed(step);
+      const warm = cache.updateParsed(step, grid);
+      expect(cache.stats.lightsRecomputed).toBe(1);
+      resetRoomCache();
+      meterParsed(step);
+      const fresh = createLightMapCache().updateParsed(step, grid);
+      for (let k = 0; k < fresh.luxSeconds.length; k++) {
+        const f = fresh.luxSeconds[k]!;
+        expect(Math.abs(warm.luxSeconds[k]! - f)).toBeLessThanOrEqual(1e-6 * Math.max(f, 1e-12));
+      }
+      expect(warm.referenceLuxSeconds).toBeCloseTo(fresh.referenceLuxSeconds, 12);
+    }
   });
 });
