@@ -188,6 +188,10 @@ function pathRoom(extra: number): void {
 
 /** Append a whole number 0 ≤ n < 1e12 in decimal. */
 function putWhole(n: number): void {
+  if (n < 10) {
+    pathBuf[pathLen++] = CH_0 + n;
+    return;
+  }
   let start = pathLen;
   do {
     const q = Math.floor(n / 10);
@@ -232,8 +236,13 @@ function putMillimetres(v: number): void {
   if (d3 !== 0) pathBuf[pathLen++] = CH_0 + d3;
 }
 
-/** The buffer's characters [from, to) as a string (ASCII; in chunks, as apply takes a bounded argument count). */
+/** Decodes the buffer where the platform has a TextDecoder (browsers, Node); the same ASCII either way. */
+const asciiDecoder: { decode(b: Uint8Array): string } | null =
+  typeof (globalThis as { TextDecoder?: unknown }).TextDecoder === 'function' ? new (globalThis as unknown as { TextDecoder: new () => { decode(b: Uint8Array): string } }).TextDecoder() : null;
+
+/** The buffer's characters [from, to) as a string (ASCII; without a decoder in chunks, as apply takes a bounded argument count). */
 function pathString(from: number, to: number): string {
+  if (asciiDecoder) return asciiDecoder.decode(pathBuf.subarray(from, to));
   let out = '';
   for (let q = from; q < to; q += 8192) out += String.fromCharCode.apply(null, pathBuf.subarray(q, Math.min(to, q + 8192)) as unknown as number[]);
   return out;

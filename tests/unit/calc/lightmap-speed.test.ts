@@ -3,7 +3,7 @@
  * speed-up that changes a reading fails here. Scenes are invented demo data.
  */
 import fc from 'fast-check';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { createLightMapCache, lightMap, meterParsed, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../../calc';
 import { buildOccluders } from '../../../calc/flatScene';
 import { millimetres } from '../../../calc/lightmap';
@@ -46,6 +46,22 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
     );
     // Values on a half millimetre (rounding ties) and whole millimetres.
     fc.assert(fc.property(fc.integer({ min: -2e7, max: 2e7 }), (m) => millimetres(m / 1000) === plain(m / 1000) && millimetres((m + 0.5) / 1000) === plain((m + 0.5) / 1000)));
+  });
+
+  it('without a TextDecoder (a phone’s engine) the paths are the same strings', async () => {
+    const map = lightMap(studio(), { x0: 0, y0: 0, x1: 6, y1: 5, nx: 40, ny: 34 });
+    vi.stubGlobal('TextDecoder', undefined);
+    vi.resetModules();
+    try {
+      const bare = await import('../../../calc/lightmap');
+      expect(bare.millimetres(-12.345)).toBe('-12.345');
+      const again = bare.lightMap(studio(), { x0: 0, y0: 0, x1: 6, y1: 5, nx: 40, ny: 34 });
+      expect(again.contourPaths.map((p) => p.d)).toEqual(map.contourPaths.map((p) => p.d));
+      expect(map.contourPaths.some((p) => p.d.length > 200)).toBe(true);
+    } finally {
+      vi.unstubAllGlobals();
+      vi.resetModules();
+    }
   });
 
   it('each level’s path data is its lines written with String(Math.round(v · 1000) / 1000)', () => {
