@@ -624,6 +624,29 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
   // Points this close to the face's plane (the face at their horizon) are computed exactly.
   const band = 1.5 * fs * Math.max(g.frame.dx, g.frame.dy);
   const planeZ = (g.z - L.pz) * L.az;
+  // Per column, what the loop below needs (the same arithmetic, done once per column, not per point): the coarse
+  // cell a and its next column, the weight fx, and the fine stride's corners ia, ib and weight gx.
+  if (colA.length < nx) {
+    colA = new Int32Array(nx);
+    colA1 = new Int32Array(nx);
+    colIa = new Int32Array(nx);
+    colIb = new Int32Array(nx);
+    colFx = new Float64Array(nx);
+    colGx = new Float64Array(nx);
+  }
+  for (let i = 0; i < nx; i++) {
+    const a = Math.min(Math.floor(i / st), ca);
+    const i0 = a * st;
+    const i1 = Math.min(nx - 1, (a + 1) * st);
+    const ia = Math.min(i0 + fs * Math.floor((i - i0) / fs), i1);
+    const ib = Math.min(ia + fs, i1);
+    colA[i] = a;
+    colA1[i] = Math.min(a + 1, kx - 1);
+    colFx[i] = i1 > i0 ? (i - i0) / (i1 - i0) : 0;
+    colIa[i] = ia;
+    colIb[i] = ib;
+    colGx[i] = ib > ia ? (i - ia) / (ib - ia) : 0;
+  }
   for (let j = 0; j < ny; j++) {
     const b = Math.min(Math.floor(j / st), cb);
     const j0 = b * st;
@@ -632,19 +655,20 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
     const ja = Math.min(j0 + fs * Math.floor((j - j0) / fs), j1);
     const jb = Math.min(ja + fs, j1);
     const gy = jb > ja ? (j - ja) / (jb - ja) : 0;
+    const rb0 = Math.min(b, ky - 1) * kx;
+    const rb1 = Math.min(b + 1, ky - 1) * kx;
+    const fineRow = b * kx;
     for (let i = 0; i < nx; i++) {
       const k = j * nx + i;
       const p = pf[k]!;
       // Fully shaded points stay dark (their ratio is still defined, as a corner for their neighbours).
       if (!(p > 0) || out[k] === 0) continue;
       const t = out[k]! / p;
-      const a = Math.min(Math.floor(i / st), ca);
-      const i0 = a * st;
-      const i1 = Math.min(nx - 1, (a + 1) * st);
-      if (fine[b * kx + a] === 1) {
-        const ia = Math.min(i0 + fs * Math.floor((i - i0) / fs), i1);
-        const ib = Math.min(ia + fs, i1);
-        const gx = ib > ia ? (i - ia) / (ib - ia) : 0;
+      const a = colA[i]!;
+      if (fine[fineRow + a] === 1) {
+        const ia = colIa[i]!;
+        const ib = colIb[i]!;
+        const gx = colGx[i]!;
         const r00 = ratioAt(ja * nx + ia);
         const r10 = ratioAt(ja * nx + ib);
         const r01 = ratioAt(jb * nx + ia);
@@ -659,12 +683,20 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
         out[k] = p * t * ((r00 * (1 - gx) + r10 * gx) * (1 - gy) + (r01 * (1 - gx) + r11 * gx) * gy);
         continue;
       }
-      const fx = i1 > i0 ? (i - i0) / (i1 - i0) : 0;
-      const r = (at(a, b) * (1 - fx) + at(a + 1, b) * fx) * (1 - fy) + (at(a, b + 1) * (1 - fx) + at(a + 1, b + 1) * fx) * fy;
+      const fx = colFx[i]!;
+      const a1 = colA1[i]!;
+      const r = (ratio[rb0 + a]! * (1 - fx) + ratio[rb0 + a1]! * fx) * (1 - fy) + (ratio[rb1 + a]! * (1 - fx) + ratio[rb1 + a1]! * fx) * fy;
       out[k] = p * r * t;
     }
   }
 }
+
+let colA = new Int32Array(0);
+let colA1 = new Int32Array(0);
+let colIa = new Int32Array(0);
+let colIb = new Int32Array(0);
+let colFx = new Float64Array(0);
+let colGx = new Float64Array(0);
 
 /** out[k] += Σ_r K[base_r + k] · coef_r over the m rows listed, four rows at a time. */
 function addRows(K: Float32Array, base: Int32Array, coef: Float64Array, m: number, nK: number, out: Float64Array): void {
