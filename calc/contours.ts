@@ -17,6 +17,10 @@ export type Polyline = [number, number][];
 
 export type ContourLevel = { stops: number; lines: Polyline[] };
 
+/** Each edge's first and second segment of the level being linked (−1: none); see contourLines. */
+let linkA = new Int32Array(0);
+let linkB = new Int32Array(0);
+
 /**
  * Contours of `values` (row-major, nx × ny) at every multiple of stepStops above max(floorStops, minStops)
  * that the data crosses. floorStops is the clamp given to unlit points; it has no real isoline.
@@ -103,8 +107,13 @@ export function contourLines(
   }
 
   const nEdges = H + nx * (ny - 1);
-  const link0 = new Int32Array(nEdges).fill(-1);
-  const link1 = new Int32Array(nEdges).fill(-1);
+  // Kept between calls (all −1 between levels and after a call: each level puts back the entries it set).
+  if (linkA.length !== nEdges) {
+    linkA = new Int32Array(nEdges).fill(-1);
+    linkB = new Int32Array(nEdges).fill(-1);
+  }
+  const link0 = linkA;
+  const link1 = linkB;
   const out: ContourLevel[] = [];
   for (let L = 0; L < nLevels; L++) {
     const list = segs[L]!;

@@ -13,7 +13,7 @@ import { contourLines, type ContourLevel } from './contours';
 import { contourLinesD3 } from './contours-d3';
 import { luxFromEv100, luxSecondsForAperture } from './exposure';
 import { kelvinToLinearRgb, relativeLuminance, type Rgb } from './colour';
-import { type Geometry, bounceCoarse, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
+import { type Geometry, bounceCoarse, bounceSplit, buildGeometry, directGrid, mapReceptorKind } from './lightmap-grid';
 import { DARK_LUX_SECONDS, recordedTone } from './meter';
 import type { RecordedTone } from './results';
 import { type Room, type RoomLight, buildRoom, directLux, gather, subjectReceptors } from './room';
@@ -161,18 +161,112 @@ function subjectReading(room: Room): number {
   }
 }
 
+/**
+ * A coordinate rounded to the millimetre, as `String(Math.round(v · 1000) / 1000)` writes it (shortest form, no
+ * trailing zeros), but from whole numbers: V8 writes a fraction with its shortest-digits search, which was most
+ * of the paths' cost (tested equal on random and edge values). The paths write the same characters straight into
+ * a byte buffer (putMillimetres), so a frame's paths are a few strings, not one per coordinate.
+ */
+export function millimetres(v: number): string {
+  pathLen = 0;
+  putMillimetres(v);
+  return pathString(0, pathLen);
+}
+
+let pathBuf = new Uint8Array(1 << 14);
+let pathLen = 0;
+const CH_0 = 48;
+const CH_DOT = 46;
+const CH_MINUS = 45;
+
+function pathRoom(extra: number): void {
+  if (pathLen + extra <= pathBuf.length) return;
+  const b = new Uint8Array(Math.max(2 * pathBuf.length, pathLen + extra));
+  b.set(pathBuf.subarray(0, pathLen));
+  pathBuf = b;
+}
+
+/** Append a whole number 0 ≤ n < 1e12 in decimal. */
+function putWhole(n: number): void {
+  if (n < 10) {
+    pathBuf[pathLen++] = CH_0 + n;
+    return;
+  }
+  let start = pathLen;
+  do {
+    const q = Math.floor(n / 10);
+    pathBuf[pathLen++] = CH_0 + (n - q * 10);
+    n = q;
+  } while (n > 0);
+  for (let e = pathLen - 1; start < e; start++, e--) {
+    const c = pathBuf[start]!;
+    pathBuf[start] = pathBuf[e]!;
+    pathBuf[e] = c;
+  }
+}
+
+function putMillimetres(v: number): void {
+  pathRoom(32);
+  const m = Math.round(v * 1000);
+  if (!(Math.abs(m) < 1e12)) {
+    const str = String(m / 1000);
+    pathRoom(str.length);
+    for (let q = 0; q < str.length; q++) pathBuf[pathLen++] = str.charCodeAt(q);
+    return;
+  }
+  const a = m < 0 ? -m : m;
+  if (a === 0) {
+    pathBuf[pathLen++] = CH_0;
+    return;
+  }
+  if (m < 0) pathBuf[pathLen++] = CH_MINUS;
+  const whole = Math.floor(a / 1000);
+  putWhole(whole);
+  let f = a - whole * 1000;
+  if (f === 0) return;
+  pathBuf[pathLen++] = CH_DOT;
+  // Up to three digits, without trailing zeros.
+  const d1 = Math.floor(f / 100);
+  f -= d1 * 100;
+  const d2 = Math.floor(f / 10);
+  const d3 = f - d2 * 10;
+  pathBuf[pathLen++] = CH_0 + d1;
+  if (d2 === 0 && d3 === 0) return;
+  pathBuf[pathLen++] = CH_0 + d2;
+  if (d3 !== 0) pathBuf[pathLen++] = CH_0 + d3;
+}
+
+/** Decodes the buffer where the platform has a TextDecoder (browsers, Node); the same ASCII either way. */
+const asciiDecoder: { decode(b: Uint8Array): string } | null =
+  typeof (globalThis as { TextDecoder?: unknown }).TextDecoder === 'function' ? new (globalThis as unknown as { TextDecoder: new () => { decode(b: Uint8Array): string } }).TextDecoder() : null;
+
+/** The buffer's characters [from, to) as a string (ASCII; without a decoder in chunks, as apply takes a bounded argument count). */
+function pathString(from: number, to: number): string {
+  if (asciiDecoder) return asciiDecoder.decode(pathBuf.subarray(from, to));
+  let out = '';
+  for (let q = from; q < to; q += 8192) out += String.fromCharCode.apply(null, pathBuf.subarray(q, Math.min(to, q + 8192)) as unknown as number[]);
+  return out;
+}
+
 /** SVG path data of each contour level, with a label point on its longest line. */
 function contourPaths(levels: ContourLevel[]): ContourPath[] {
   const r = (v: number) => Math.round(v * 1000) / 1000;
   return levels.map((level) => {
-    let d = '';
+    pathLen = 0;
     let longest: [number, number][] | null = null;
     for (const line of level.lines) {
       if (line.length < 2) continue;
-      d += `M${r(line[0]![0])},${r(line[0]![1])}`;
-      for (let k = 1; k < line.length; k++) d += `L${r(line[k]![0])},${r(line[k]![1])}`;
+      for (let k = 0; k < line.length; k++) {
+        pathRoom(1);
+        pathBuf[pathLen++] = k === 0 ? 77 /* M */ : 76 /* L */;
+        putMillimetres(line[k]![0]);
+        pathRoom(1);
+        pathBuf[pathLen++] = 44; // ,
+        putMillimetres(line[k]![1]);
+      }
       if (!longest || line.length > longest.length) longest = line;
     }
+    const d = pathString(0, pathLen);
     const mid = longest && longest.length > 12 ? longest[Math.floor(longest.length / 2)]! : null;
     return { stops: level.stops, d, label: mid ? [r(mid[0]), r(mid[1])] : null };
   });
@@ -201,6 +295,12 @@ export function createLightMapCache(): LightMapCache {
   let bounceKey = '';
   // The lights' summed exposure (kept between frames: only read inside one update).
   let sumBuf = new Float64Array(0);
+  // A drag: the lights that did not change (their ids and keys), their summed direct grid and coarse bounce, kept
+  // while the same lights stay unchanged, so a frame adds only the moved light's grids to them.
+  let stableKey = '';
+  let stableDirect = new Float64Array(0);
+  let stableBounce = new Float64Array(0);
+  let changedBounce = new Float64Array(0);
   const stats: LightMapStats = { geometryRebuilt: false, lightsRecomputed: 0, lightsReused: 0 };
 
   function updateParsed(scene: Scene, grid: LightMapGrid): LightMapResult {
@@ -223,12 +323,17 @@ export function createLightMapCache(): LightMapCache {
       geometry = buildGeometry(room, grid, gKey);
       entries = new Map();
       bounceKey = '';
+      stableKey = '';
       stats.geometryRebuilt = true;
     }
     const g = geometry;
     if (tmp.length !== g.n) tmp = new Float32Array(g.n);
     const next = new Map<string, LightEntry>();
     const list: LightEntry[] = [];
+    const reused: RoomLight[] = [];
+    const reusedEntries: LightEntry[] = [];
+    const changed: RoomLight[] = [];
+    const changedEntries: LightEntry[] = [];
     for (const L of room.lights) {
       const old = entries.get(L.light.id);
       let e: LightEntry;
@@ -240,6 +345,13 @@ export function createLightMapCache(): LightMapCache {
         e = lightEntry(room, L, g, tmp, next.has(L.light.id) ? undefined : old?.direct);
         stats.lightsRecomputed++;
       }
+      if (e === old) {
+        reused.push(L);
+        reusedEntries.push(e);
+      } else {
+        changed.push(L);
+        changedEntries.push(e);
+      }
       next.set(L.light.id, e);
       list.push(e);
     }
@@ -249,20 +361,51 @@ export function createLightMapCache(): LightMapCache {
     const n = g.n;
     if (sumBuf.length !== n) sumBuf = new Float64Array(n);
     const H = sumBuf;
-    if (list.length > 0) H.set(list[0]!.direct);
-    else H.fill(0);
-    for (let q = 1; q < list.length; q++) {
-      const e = list[q]!;
-      const d = e.direct;
-      for (let k = 0; k < n; k++) H[k]! += d[k]!;
-    }
-    // Bounce: one kernel pass over the lights' summed patch luminance, redone only when a light changed.
     const nK = g.kx * g.ky;
     const bKey = room.lights.map((L) => L.key).join('|');
-    if (bounceSum.length !== nK || bKey !== bounceKey) {
-      if (bounceSum.length !== nK) bounceSum = new Float64Array(nK);
-      bounceCoarse(room, room.lights, g, bounceSum);
+    if (bounceSum.length !== nK) {
+      bounceSum = new Float64Array(nK);
+      bounceKey = '';
+    }
+    if (changed.length > 0 && changed.length <= reused.length) {
+      // Few lights changed (a drag, a light added): the unchanged ones' sums are kept while they stay unchanged
+      // (the first such frame pays for them once), and this frame adds the changed lights' direct grids and
+      // their bounce from its parts (bounceSplit: only the patches their first bounce reaches, and the coarse
+      // patches). The same sums as below in another order: equal to rounding (tested against a fresh map).
+      const sKey = reused.map((L) => `${L.light.id}\u0000${L.key}`).join('\u0001');
+      if (sKey !== stableKey || stableDirect.length !== n || stableBounce.length !== nK) {
+        if (stableDirect.length !== n) stableDirect = new Float64Array(n);
+        if (stableBounce.length !== nK) stableBounce = new Float64Array(nK);
+        stableDirect.fill(0);
+        for (const e of reusedEntries) {
+          const d = e.direct;
+          for (let k = 0; k < n; k++) stableDirect[k]! += d[k]!;
+        }
+        bounceCoarse(room, reused, g, stableBounce);
+        stableKey = sKey;
+      }
+      H.set(stableDirect);
+      for (const e of changedEntries) {
+        const d = e.direct;
+        for (let k = 0; k < n; k++) H[k]! += d[k]!;
+      }
+      if (changedBounce.length !== nK) changedBounce = new Float64Array(nK);
+      bounceSplit(room, changed, g, changedBounce);
+      for (let k = 0; k < nK; k++) bounceSum[k] = stableBounce[k]! + changedBounce[k]!;
       bounceKey = bKey;
+    } else {
+      if (list.length > 0) H.set(list[0]!.direct);
+      else H.fill(0);
+      for (let q = 1; q < list.length; q++) {
+        const e = list[q]!;
+        const d = e.direct;
+        for (let k = 0; k < n; k++) H[k]! += d[k]!;
+      }
+      // Bounce: one kernel pass over the lights' summed patch luminance, redone only when a light changed.
+      if (bKey !== bounceKey) {
+        bounceCoarse(room, room.lights, g, bounceSum);
+        bounceKey = bKey;
+      }
     }
     const coarse = bounceSum;
     const { nx, ny } = g.frame;
@@ -340,6 +483,7 @@ export function createLightMapCache(): LightMapCache {
       geometry = null;
       entries = new Map();
       bounceKey = '';
+      stableKey = '';
     },
   };
 }

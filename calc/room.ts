@@ -83,6 +83,13 @@ export type Room = {
   lum: Float64Array[];
   /** The same for the first bounce only (for reports and tests). */
   lumFirst: Float64Array[];
+  /**
+   * Per light: the later bounces per coarse patch, [6·p + 3·side + c] — every fine patch's `lum` is its `lumFirst`
+   * plus its coarse parent's entry here (the light map sums a light's bounce from the two parts).
+   */
+  lumLater: Float64Array[];
+  /** Each fine patch's coarse patch (−1: none). */
+  parent: Int32Array;
   /** Later bounces: solved directly (passes 0, converged), or passes used if iterated. */
   radiosity: { passes: number; converged: boolean; coarseCount: number };
   /** Coarse patches and per-side total luminance summed over all lights (for cheap per-pixel gathers). */
@@ -262,10 +269,8 @@ const SAMPLE_FRACTIONS: readonly (readonly [number, number])[] = [-3 / 4, -1 / 4
  * of normal n, clipped to its horizon — Lambert's contour integral; works for up to 8 corners.
  */
 function polygonFlat(pts: Float64Array, n: number, nx: number, ny: number, nz: number): number {
-  if (n === 4) {
-    quadBuf.set(pts.subarray(0, 12));
-    return quadIrradiancePerLuminance(quadBuf, nx, ny, nz);
-  }
+  // A quad is read in place (its first 12 numbers): no copy, and no subarray view allocated per call.
+  if (n === 4) return quadIrradiancePerLuminance(pts, nx, ny, nz);
   // Fan of quads sharing the first corner (each convex): (0, i, i+1, i+2).
   let sum = 0;
   for (let i = 1; i + 1 < n; i += 2) {
@@ -660,7 +665,7 @@ function solveTransfer(coarse: Patches, coupling: Coupling, optics: SurfaceOptic
 export type Weights = { off: Int32Array; w: Float64Array; n: number };
 
 /** One light's bounce: fine-patch luminance of the first bounce, and with every later bounce added. */
-type LightBounce = { first: Float64Array; total: Float64Array };
+type LightBounce = { first: Float64Array; total: Float64Array; later: Float64Array };
 
 type GeoCache = {
   key: string;
@@ -748,6 +753,7 @@ function lightBounce(L: RoomLight, g: GeoCache, inc: Float64Array): LightBounce 
     }
   }
   const total = new Float64Array(first);
+  const later = new Float64Array(nC * 6);
   if (L.axialCdS > 0 && nC > 0 && transfer) {
     const n = transfer.n;
     const x = new Float64Array(3 * n);
@@ -778,6 +784,13 @@ function lightBounce(L: RoomLight, g: GeoCache, inc: Float64Array): LightBounce 
           h[xo + r] = acc;
         }
       }
+      for (let p = 0; p < nC; p++) {
+        for (let sd = 0; sd < 2; sd++) {
+          const row = transfer.side[2 * p + sd]!;
+          if (row < 0) continue;
+          for (let c = 0; c < 3; c++) later[6 * p + 3 * sd + c] = h[c * n + row]!;
+        }
+      }
       for (let i = 0; i < nF; i++) {
         const p = parent[i]!;
         if (p < 0) continue;
@@ -789,7 +802,7 @@ function lightBounce(L: RoomLight, g: GeoCache, inc: Float64Array): LightBounce 
       }
     }
   }
-  return { first, total };
+  return { first, total, later };
 }
 
 /** Build the room for a validated scene. */
@@ -834,6 +847,7 @@ export function buildRoom(scene: Scene): Room {
   const inc = new Float64Array(Math.max(nF, nC));
   const lum: Float64Array[] = [];
   const lumFirst: Float64Array[] = [];
+  const lumLater: Float64Array[] = [];
   if (g.ids.size > 1 << 19) {
     g.ids.clear();
     g.direct.clear();
@@ -844,6 +858,7 @@ export function buildRoom(scene: Scene): Room {
     const b = g.lights.get(k) ?? remember(g.lights, k, lightBounce(L, g, inc), LIGHT_CACHE_MAX);
     lum.push(b.total);
     lumFirst.push(b.first);
+    lumLater.push(b.later);
   }
   // Coarse totals over all lights: area-weighted mean of the fine luminances inside each coarse patch.
   const coarseLum = new Float64Array(nC * 6);
@@ -868,6 +883,8 @@ export function buildRoom(scene: Scene): Room {
     optics,
     lum,
     lumFirst,
+    lumLater,
+    parent,
     radiosity: { passes: 0, converged: true, coarseCount: nC },
     coarse,
     coarseLum,

@@ -27,6 +27,49 @@ let rowLo = 0;
 let rowHi = -1;
 /** Per row, the first and last column the last castShadows changed, when the caller asked for spans (else null). */
 let spans: Int32Array | null = null;
+/** castShadowsSum's targets while it runs (null otherwise): the running sum, this source's transmission, its stamps. */
+let sumOut: Float32Array | null = null;
+let sumCur: Float32Array = new Float32Array(0);
+let sumStamp: Int32Array = new Int32Array(0);
+let sumId = 0;
+let sumOpaque = false;
+
+/**
+ * Add to `sum` (row-major, frame.nx × frame.ny) what the shadows cast from one source take from each cell:
+ * 1 − the product of the transmissions of the occluders shading it (so opaque shadows add exactly 1 per source,
+ * however many overlap). For the samples of an area face: one pass per sample over the cells its shadows cover,
+ * with no per-sample buffer to reset. `cur` and `stamp` are scratch of the grid's size kept by the caller
+ * (`stamp` all different from `id` at the first call with a new id; ids must not repeat while it is kept).
+ */
+export function castShadowsSum(
+  occ: Occluders,
+  sx: number,
+  sy: number,
+  sz: number,
+  zQ: number,
+  frame: GridFrame,
+  sum: Float32Array,
+  cur: Float32Array,
+  stamp: Int32Array,
+  id: number,
+): void {
+  sumOut = sum;
+  sumCur = cur;
+  sumStamp = stamp;
+  sumId = id;
+  // With every occluder opaque (or clear), a cell's transmission for this source is 1 until its first shadow and
+  // 0 after: each covered cell adds 1 once, and the stamps alone say which were added.
+  sumOpaque = true;
+  for (let o = 0; o < occ.count; o++) {
+    const t = occ.transmission[o]!;
+    if (t !== 0 && t !== 1) sumOpaque = false;
+  }
+  try {
+    castShadows(occ, sx, sy, sz, zQ, frame, cur);
+  } finally {
+    sumOut = null;
+  }
+}
 
 /**
  * Multiply into `trans` (row-major, frame.nx × frame.ny) the transmission of every occluder's shadow cast
@@ -239,6 +282,30 @@ function fillConvexQuad(trans: Float32Array, nx: number, ny: number, T: number, 
       if (i1 > spans[2 * j + 1]!) spans[2 * j + 1] = i1;
     }
     const row = j * nx;
+    if (sumOut) {
+      // castShadowsSum: this source's transmission so far (1 before its first shadow here), times T; the sum
+      // takes the difference.
+      const acc = sumOut;
+      const cur = sumCur;
+      const st = sumStamp;
+      const id = sumId;
+      if (sumOpaque) {
+        for (let k = row + i0; k <= row + i1; k++) {
+          if (st[k] === id) continue;
+          acc[k]! += 1;
+          st[k] = id;
+        }
+        continue;
+      }
+      for (let k = row + i0; k <= row + i1; k++) {
+        const old = st[k] === id ? cur[k]! : 1;
+        const now = old * T;
+        acc[k]! += old - now;
+        cur[k] = now;
+        st[k] = id;
+      }
+      continue;
+    }
     for (let i = i0; i <= i1; i++) trans[row + i]! *= T;
   }
 }

@@ -1,0 +1,208 @@
+/**
+ * The light map's faster paths against the plain computation they replace: the same numbers (to rounding), so a
+ * speed-up that changes a reading fails here. Scenes are invented demo data.
+ */
+import fc from 'fast-check';
+import { describe, expect, it, vi } from 'vitest';
+import { createLightMapCache, lightMap, meterParsed, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../../calc';
+import { buildOccluders } from '../../../calc/flatScene';
+import { millimetres } from '../../../calc/lightmap';
+import { bounceCoarse, bounceSplit, buildGeometry } from '../../../calc/lightmap-grid';
+import { buildRoom, resetRoomCache } from '../../../calc/room';
+import { castShadows, castShadowsSum } from '../../../calc/shadows';
+
+const softbox = (id: string, x: number, y: number, aimDeg: number): LightInput =>
+  ({ id, kind: 'flash', x, y, heightM: 2, aimDeg, tiltDeg: -10, output: { type: 'energy', ratedWs: 400 }, modifier: 'softbox' }) as LightInput;
+
+const studio = (over: Partial<SceneInput> = {}): SceneInput => ({
+  lights: [softbox('key', 4.6, 1.4, 150), { ...softbox('rim', 1.2, 1.1, 30), modifier: 'grid-20' }, { ...softbox('bg', 1.5, 3.9, -160), modifier: 'snoot' }],
+  surfaces: [
+    { id: 'n', x1: 0, y1: 0, x2: 6, y2: 0, colour: '#d0d0d0' },
+    { id: 'e', x1: 6, y1: 0, x2: 6, y2: 5, colour: '#b0a090' },
+    { id: 's', x1: 6, y1: 5, x2: 0, y2: 5, colour: '#808890' },
+    { id: 'w', x1: 0, y1: 5, x2: 0, y2: 0, colour: '#707070' },
+    // Free-standing panels: points on both sides, so their kernel rows are of mixed sign.
+    { id: 'paper', kind: 'backdrop', x1: 0.6, y1: 1, x2: 0.6, y2: 4, topM: 2.7, colour: '#909090' },
+    { id: 'vflat', kind: 'v-flat', x1: 4.4, y1: 3.6, x2: 5.1, y2: 3.0, topM: 2.4, colour: '#f4f4f4', backColour: '#101010' },
+  ],
+  flags: [{ id: 'f', x1: 2, y1: 1.4, x2: 2.6, y2: 1.1 }],
+  floor: { x1: 0, y1: 0, x2: 6, y2: 5 },
+  ceiling: { heightM: 3 },
+  subject: { x: 3, y: 2.5, heightM: 1.6, facingDeg: 0 },
+  camera: { x: 5.5, y: 2.5, aimDeg: 180, aperture: 8, shutterS: 1 / 125, iso: 100 },
+  options: { receptor: 'dome-camera' },
+  ...over,
+});
+
+describe('light map speed-ups give the plain computation’s numbers', () => {
+  it('path coordinates are written as String(Math.round(v · 1000) / 1000)', () => {
+    const plain = (v: number) => String(Math.round(v * 1000) / 1000);
+    for (const v of [0, -0, 0.0004, -0.0004, 0.0005, -0.0005, 1, -1, 1.5, -2.25, 0.05, -0.05, 0.007, 10.1, 123456.789, 1e15, -3e13, NaN, Infinity]) {
+      expect(millimetres(v)).toBe(plain(v));
+    }
+    fc.assert(
+      fc.property(fc.double({ min: -1e6, max: 1e6, noNaN: true }), (v) => millimetres(v) === plain(v)),
+      { numRuns: 20000 },
+    );
+    // Values on a half millimetre (rounding ties) and whole millimetres.
+    fc.assert(fc.property(fc.integer({ min: -2e7, max: 2e7 }), (m) => millimetres(m / 1000) === plain(m / 1000) && millimetres((m + 0.5) / 1000) === plain((m + 0.5) / 1000)));
+  });
+
+  it('without a TextDecoder (a phone’s engine) the paths are the same strings', async () => {
+    const map = lightMap(studio(), { x0: 0, y0: 0, x1: 6, y1: 5, nx: 40, ny: 34 });
+    vi.stubGlobal('TextDecoder', undefined);
+    vi.resetModules();
+    try {
+      const bare = await import('../../../calc/lightmap');
+      expect(bare.millimetres(-12.345)).toBe('-12.345');
+      const again = bare.lightMap(studio(), { x0: 0, y0: 0, x1: 6, y1: 5, nx: 40, ny: 34 });
+      expect(again.contourPaths.map((p) => p.d)).toEqual(map.contourPaths.map((p) => p.d));
+      expect(map.contourPaths.some((p) => p.d.length > 200)).toBe(true);
+    } finally {
+      vi.unstubAllGlobals();
+      vi.resetModules();
+    }
+  });
+
+  it('each level’s path data is its lines written with String(Math.round(v · 1000) / 1000)', () => {
+    resetRoomCache();
+    const map = lightMap(studio(), { x0: -0.3, y0: -0.2, x1: 6.3, y1: 5.2, nx: 90, ny: 80, contourMinStops: -12, contourStepStops: 0.5 });
+    expect(map.contourPaths.length).toBeGreaterThan(5);
+    const plain = (v: number) => String(Math.round(v * 1000) / 1000);
+    map.contours.forEach((level, i) => {
+      const d = level.lines
+        .filter((l) => l.length >= 2)
+        .map((l) => l.map(([x, y], k) => `${k === 0 ? 'M' : 'L'}${plain(x)},${plain(y)}`).join(''))
+        .join('');
+      expect(map.contourPaths[i]!.d).toBe(d);
+    });
+  });
+
+  it('the bounce kernel pass (rows of one sign four at a time) equals the per-point side test', () => {
+    resetRoomCache();
+    const scene = parseScene(studio());
+    const room = buildRoom(scene);
+    const g = buildGeometry(room, { x0: 0, y0: 0, x1: 6, y1: 5, nx: 49, ny: 41 }, 'test');
+    // Both kinds of row are present, or the test would not test the split.
+    expect([...g.rowSign].some((s) => s === 2)).toBe(true);
+    expect([...g.rowSign].filter((s) => s === 1 || s === -1).length).toBeGreaterThan(20);
+    const nK = g.kx * g.ky;
+    const fast = new Float64Array(nK);
+    bounceCoarse(room, room.lights, g, fast);
+    // Plain: for each patch and point, the luminance of the side the point sees, times the kernel.
+    const plain = new Float64Array(nK);
+    for (const L of room.lights) {
+      const lum = room.lum[L.index]!;
+      for (let p = 0; p < room.patches.count; p++) {
+        const yf = 0.2126 * lum[6 * p]! + 0.7152 * lum[6 * p + 1]! + 0.0722 * lum[6 * p + 2]!;
+        const yb = 0.2126 * lum[6 * p + 3]! + 0.7152 * lum[6 * p + 4]! + 0.0722 * lum[6 * p + 5]!;
+        for (let k = 0; k < nK; k++) {
+          const f = g.kernel[p * nK + k]!;
+          plain[k]! += f > 0 ? f * yf : -f * yb;
+        }
+      }
+    }
+    let lit = 0;
+    for (let k = 0; k < nK; k++) {
+      if (plain[k]! > 0) lit++;
+      expect(Math.abs(fast[k]! - plain[k]!)).toBeLessThanOrEqual(1e-12 * Math.max(1e-9, plain[k]!));
+    }
+    expect(lit).toBeGreaterThan(nK / 2);
+  });
+
+  it('a face’s summed shadows equal the sum of 1 − each sample’s shadow transmission (property: random flags, scrims, tilted panels)', () => {
+    const arb = fc.record({
+      samples: fc.array(fc.tuple(fc.double({ min: 0, max: 6, noNaN: true }), fc.double({ min: 0, max: 5, noNaN: true }), fc.double({ min: 0.2, max: 3.5, noNaN: true })), { minLength: 1, maxLength: 16 }),
+      flags: fc.array(
+        fc.record({
+          x1: fc.double({ min: -1, max: 7, noNaN: true }),
+          y1: fc.double({ min: -1, max: 6, noNaN: true }),
+          dx: fc.double({ min: -2, max: 2, noNaN: true }),
+          dy: fc.double({ min: -2, max: 2, noNaN: true }),
+          base: fc.double({ min: 0, max: 2, noNaN: true }),
+          h: fc.double({ min: 0.1, max: 3, noNaN: true }),
+          transmission: fc.constantFrom(0, 0.5, 0.25),
+          tilt: fc.constantFrom(0, 0, 35, -60),
+        }),
+        { minLength: 1, maxLength: 5 },
+      ),
+    });
+    const frame = { nx: 25, ny: 21, x0: 0, y0: 0, dx: 0.25, dy: 0.25 };
+    const n = frame.nx * frame.ny;
+    const cur = new Float32Array(n);
+    const stamp = new Int32Array(n);
+    let id = 0;
+    fc.assert(
+      fc.property(arb, ({ samples, flags }) => {
+        const s = parseScene(
+          studio({
+            flags: flags
+              .filter((f) => Math.hypot(f.dx, f.dy) > 0.05)
+              .map((f, i) => ({ id: `f${i}`, x1: f.x1, y1: f.y1, x2: f.x1 + f.dx, y2: f.y1 + f.dy, baseM: f.base, topM: f.base + f.h, transmission: f.transmission, tiltDeg: f.tilt })),
+          }),
+        );
+        const o = buildOccluders(s);
+        const sum = new Float32Array(n);
+        const plain = new Float32Array(n);
+        const t = new Float32Array(n);
+        for (const [x, y, z] of samples) {
+          castShadowsSum(o, x, y, z, 1.6, frame, sum, cur, stamp, ++id);
+          t.fill(1);
+          castShadows(o, x, y, z, 1.6, frame, t);
+          for (let k = 0; k < n; k++) plain[k]! += 1 - t[k]!;
+        }
+        for (let k = 0; k < n; k++) expect(Math.abs(sum[k]! - plain[k]!)).toBeLessThanOrEqual(1e-6);
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('a light’s bounce from its parts (first bounce on the patches it reaches, later bounces on the coarse patches) equals the pass over its total', () => {
+    resetRoomCache();
+    const room = buildRoom(parseScene(studio()));
+    const g = buildGeometry(room, { x0: 0, y0: 0, x1: 6, y1: 5, nx: 49, ny: 41 }, 'test');
+    const nK = g.kx * g.ky;
+    const whole = new Float64Array(nK);
+    const parts = new Float64Array(nK);
+    // Each light alone (the snoot reaches few patches), and all together.
+    for (const set of [...room.lights.map((L) => [L]), room.lights]) {
+      bounceCoarse(room, set, g, whole);
+      bounceSplit(room, set, g, parts);
+      let lit = 0;
+      for (let k = 0; k < nK; k++) {
+        if (whole[k]! > 0) lit++;
+        expect(Math.abs(parts[k]! - whole[k]!)).toBeLessThanOrEqual(1e-9 * Math.max(1e-12, whole[k]!));
+      }
+      expect(lit).toBeGreaterThan(nK / 2);
+    }
+  });
+
+  it('a drag through a warm cache (the unchanged lights’ sums kept) reads what a fresh map reads, frame after frame and when another light is taken', () => {
+    const grid: LightMapGrid = { x0: 0, y0: 0, x1: 6, y1: 5, nx: 61, ny: 51 };
+    const base = parseScene(studio({ subject: { x: 3, y: 2.5, heightM: 1.6, facingDeg: 0, body: { widthM: 0.45, depthM: 0.25, topM: 1.7 } } }));
+    const frames: (typeof base)[] = [];
+    // Five frames dragging the key, then three dragging the rim (the kept sums change), then the key's power.
+    for (let f = 1; f <= 5; f++) frames.push({ ...base, lights: base.lights.map((l) => (l.id === 'key' ? { ...l, x: l.x - 0.07 * f, y: l.y + 0.03 * f } : l)) });
+    const last = frames[frames.length - 1]!;
+    for (let f = 1; f <= 3; f++) frames.push({ ...last, lights: last.lights.map((l) => (l.id === 'rim' ? { ...l, y: l.y + 0.1 * f } : l)) });
+    const end = frames[frames.length - 1]!;
+    frames.push({ ...end, lights: end.lights.map((l) => (l.id === 'key' ? { ...l, powerFraction: 0.5 } : l)) });
+    resetRoomCache();
+    const cache = createLightMapCache();
+    meterParsed(base);
+    cache.updateParsed(base, grid);
+    for (const step of frames) {
+      meterParsed(step);
+      const warm = cache.updateParsed(step, grid);
+      expect(cache.stats.lightsRecomputed).toBe(1);
+      resetRoomCache();
+      meterParsed(step);
+      const fresh = createLightMapCache().updateParsed(step, grid);
+      for (let k = 0; k < fresh.luxSeconds.length; k++) {
+        const f = fresh.luxSeconds[k]!;
+        expect(Math.abs(warm.luxSeconds[k]! - f)).toBeLessThanOrEqual(1e-6 * Math.max(f, 1e-12));
+      }
+      expect(warm.referenceLuxSeconds).toBeCloseTo(fresh.referenceLuxSeconds, 12);
+    }
+  });
+});
