@@ -159,7 +159,7 @@ function moveSourceMaps(from, to) {
 async function ensureWebBuild() {
   // Everything the bundle is built from (the client imports app/, components/, hooks/, constants/, canvas/, drawing/,
   // model/ and calc/).
-  const want = hashTree(['app', 'components', 'hooks', 'constants', 'canvas', 'drawing', 'calc', 'model', 'assets', 'package-lock.json', 'app.json', 'babel.config.js', 'metro.config.js', 'scripts/precompress.mjs', 'web', 'public', 'scripts/buildServiceWorker.mjs', 'scripts/webfonts.mjs', 'scripts/chunkTiers.cjs']);
+  const want = hashTree(['app', 'components', 'hooks', 'constants', 'canvas', 'drawing', 'calc', 'model', 'assets', 'package-lock.json', 'package.json', 'entry.js', 'entry.web.js', 'app.json', 'babel.config.js', 'metro.config.js', 'scripts/precompress.mjs', 'web', 'public', 'scripts/buildServiceWorker.mjs', 'scripts/webfonts.mjs', 'scripts/chunkTiers.cjs']);
   const stamp = join(root, 'dist', '.falloff-build.sha256');
   if (readText(stamp) === want && existsSync(join(root, 'dist', 'index.html'))) return;
   log('building the web app (expo export -p web)…');

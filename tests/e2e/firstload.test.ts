@@ -2,7 +2,8 @@
 // and asks for the session while its fonts are still on the way (held back here for as long as the test
 // likes); it downloads no plan screen, no reanimated and no gesture handler (checked against the build's source
 // maps); its fonts are WOFF2 subsets, a few tens of kilobytes each, declared with font-display: swap. A read-only
-// link loads the plan in a chunk of its own (components/shareScreen.ts), not the editor's workspace chunk.
+// link loads the plan in a chunk of its own (components/shareScreen.ts), not the editor's workspace chunk. The
+// app starts in steps (entry.web.js).
 import { existsSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { describe, expect, inject, it } from 'vitest';
@@ -50,6 +51,11 @@ describe('first load', () => {
     await page.goto(`${base}/sign-in`, { waitUntil: 'commit' });
     await expect.poll(() => page.getByLabel('E-mail').isVisible(), { timeout: 30_000 }).toBe(true);
     await expect.poll(() => sessionAsked, { timeout: 30_000 }).toBe(true);
+    // The app started through entry.web.js: the first chunk's libraries evaluated in steps, each a task of its
+    // own (each step leaves a User Timing mark), not in one long task.
+    const marks = await page.evaluate(() => performance.getEntriesByType('mark').map((m) => m.name).filter((n) => n.startsWith('falloff:start ')));
+    expect(marks.length).toBeGreaterThan(4);
+    expect(marks).toEqual(marks.map((_, i) => `falloff:start ${i + 1}/${marks.length}`));
     // Still held: the form did not wait for them.
     expect(fontUrls.length).toBeGreaterThan(0);
     release();
