@@ -2,8 +2,9 @@
 // first, then render the router's root — but with the libraries' modules evaluated in steps, each in a task of
 // its own, so that no single task at start evaluates the whole first chunk (on a slow phone that was one task
 // of about a second: React DOM, react-native-web with its style sheets, Expo Router and its navigation).
-// The modules are the same and evaluate in the same order; only the main thread gets to breathe between steps.
-// Steps are plain `require`s (not `import()`): they are in the entry chunk already, nothing more is fetched.
+// The modules are the same; only the main thread gets to breathe between steps. Steps are plain `require`s (not
+// `import()`): they are in the entry chunk already, nothing more is fetched. The first step also asks for the
+// route's large lazy chunks (preloadLater), which then download while the steps run.
 require('@expo/metro-runtime');
 
 /** Runs `fn` in a task of its own: after whatever the browser has queued (input, paint), not after a timer's clamp. */
@@ -18,10 +19,27 @@ function nextTask(fn) {
   } else setTimeout(fn, 0);
 }
 
+/** The large scripts this page's route loads lazily (the plan chunks), named by the server in a meta tag
+ *  (server/web.ts, appPage): asked for now that this chunk has arrived, so they download while it evaluates. */
+function preloadLater() {
+  if (typeof document === 'undefined') return;
+  const meta = document.querySelector('meta[name="falloff-later-scripts"]');
+  for (const href of (meta?.getAttribute('content') ?? '').split(' ').filter(Boolean)) {
+    const link = document.createElement('link');
+    link.rel = 'preload';
+    link.as = 'script';
+    link.href = href;
+    document.head.appendChild(link);
+  }
+}
+
 // Groups of what the router's entry evaluates, the libraries underneath first; each step evaluates only what
 // the earlier ones have not (Metro evaluates a module once, on its first require).
 const steps = [
-  () => require('react-dom/client'),
+  () => {
+    preloadLater();
+    require('react-dom/client');
+  },
   // react-native-web in three: its style sheet with the core views, the Animated library it vendors (with the
   // lists and the scroll view), then the rest of its exports.
   () => {

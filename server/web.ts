@@ -128,15 +128,16 @@ export function webFiles(webDir: string): RequestHandler {
   };
 }
 
-type Preloads = { routes: { route: string; pattern: string; files: string[] }[] };
+type Preloads = { routes: { route: string; pattern: string; files: string[]; later?: string[] }[] };
 type Page = { html: string; br: Buffer; gzip: Buffer };
-type PageCache = { stamp: string; routes: { re: RegExp; files: string[] }[]; html: string; pages: Map<number, Page> };
+type PageCache = { stamp: string; routes: { re: RegExp; files: string[]; later: string[] }[]; html: string; pages: Map<number, Page> };
 
 /**
  * The app's HTML for any path that is no file (a single-page app): index.html, naming with `<link rel="preload">`
  * the script files that path's route needs before it can show (dist/route-preloads.json, written by
  * scripts/routePreloads.mjs), so the browser fetches them while it evaluates the first chunk instead of one after
- * another as the router asks. Compressed once per route (Brotli, else gzip), revalidated every time. A path no
+ * another as the router asks; the large plan chunks (`later`) are named in a meta tag for entry.web.js to preload
+ * once the first chunk has arrived, so they do not slow it down. Compressed once per route (Brotli, else gzip), revalidated every time. A path no
  * route matches (or a build without the list) gets index.html itself through `files`. Read again when the build
  * changes.
  */
@@ -148,7 +149,7 @@ export function appPage(webDir: string, files: RequestHandler): RequestHandler {
     const stamp = [htmlPath, preloadsPath].map((p) => (existsSync(p) ? `${statSync(p).mtimeMs}:${statSync(p).size}` : '-')).join('|');
     if (cache?.stamp === stamp) return cache;
     const preloads: Preloads = existsSync(preloadsPath) ? JSON.parse(readFileSync(preloadsPath, 'utf8')) : { routes: [] };
-    cache = { stamp, routes: preloads.routes.map((r) => ({ re: new RegExp(r.pattern), files: r.files })), html: readFileSync(htmlPath, 'utf8'), pages: new Map() };
+    cache = { stamp, routes: preloads.routes.map((r) => ({ re: new RegExp(r.pattern), files: r.files, later: r.later ?? [] })), html: readFileSync(htmlPath, 'utf8'), pages: new Map() };
     return cache;
   };
   return (req, res, next) => {
@@ -161,9 +162,12 @@ export function appPage(webDir: string, files: RequestHandler): RequestHandler {
     }
     let page = c.pages.get(i);
     if (!page) {
-      // After the build's own scripts (so the first chunk is asked for first), at low priority.
-      const links = c.routes[i]!.files.map((f) => `<link rel="preload" href="${f}" as="script" fetchpriority="low">`).join('');
-      const html = c.html.replace('</body>', `${links}\n</body>`);
+      // After the build's own scripts (so the first chunk is asked for first), at low priority; the large ones
+      // named for entry.web.js to preload once the first chunk has arrived.
+      const r = c.routes[i]!;
+      const links = r.files.map((f) => `<link rel="preload" href="${f}" as="script" fetchpriority="low">`).join('');
+      const later = r.later.length ? `<meta name="falloff-later-scripts" content="${r.later.join(' ')}">` : '';
+      const html = c.html.replace('</body>', `${links}${later}\n</body>`);
       page = { html, br: brotliCompressSync(html), gzip: gzipSync(html) };
       c.pages.set(i, page);
     }

@@ -123,14 +123,17 @@ describe('first load', () => {
     // Its own chunk (the plan, the meter, the document model), not the editor's workspace chunk.
     expect(scripts.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
-    // The page's HTML preloads what the route needs (the layouts, the route's chunk, the plan's chunk; not the
-    // editor's), so they download while the first chunk evaluates; each is fetched once (the preload is used).
+    // The page's HTML preloads what the route needs (the layouts, the route's chunk) and names the plan's chunk
+    // (not the editor's) for the first chunk to preload (entry.web.js), so they download while the first chunk
+    // evaluates; each is fetched once (the preload is used).
     const html = await (await fetch(new URL(new URL(made.body.url).pathname, base))).text();
     const preloads = [...html.matchAll(/<link rel="preload" href="([^"]+\.js)" as="script"/g)].map((m) => m[1]!);
-    expect(preloads.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    const later = (/<meta name="falloff-later-scripts" content="([^"]*)">/.exec(html)?.[1] ?? '').split(' ').filter(Boolean);
     expect(preloads.some((s) => /\/\[token\]-[0-9a-f]+\.js$/.test(s))).toBe(true);
-    expect(preloads.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
-    for (const p of preloads) expect(scripts.filter((s) => s === p), p).toHaveLength(1);
+    expect(later.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    expect([...preloads, ...later].some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
+    expect(await page.evaluate(() => Array.from(document.querySelectorAll<HTMLLinkElement>('link[rel="preload"][as="script"]'), (l) => new URL(l.href).pathname))).toEqual(expect.arrayContaining(later));
+    for (const p of [...preloads, ...later]) expect(scripts.filter((s) => s === p), p).toHaveLength(1);
     // (The meter's and the frame's workers, bundled apart from the app, have no map there.)
     const sources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
     // Nor gesture handler (the plan reads pointer events on the web), the forms library, or culori's colour
