@@ -33,7 +33,7 @@ import { submissionRoutes } from './routes/submissions';
 import { createLimits, type LimitName, type Limits } from './limits';
 import { authHandler, requireUser } from './session';
 import type { ObjectStore } from './storage/objects';
-import { securityHeaders, webFiles } from './web';
+import { appPage, securityHeaders, webFiles } from './web';
 
 /** mailer and store are optional: without them the routes that need them answer 503 (the route list stays the same).
  *  inbox: the local fake SMTP server's captured mail, served at /dev/inbox on a local machine.
@@ -137,11 +137,9 @@ export function createApp({ db, auth, logger, limits = createLimits(db), webDir,
     app.get('/studios/join/:token', rememberInvitation);
     const web = webFiles(webDir);
     app.use(web);
-    // A single-page app: every other path is the app, which routes on the client.
-    app.get('/{*any}', (req, res, next) => {
-      req.url = '/index.html';
-      web(req, res, next);
-    });
+    // A single-page app: every other path is the app, which routes on the client (its HTML names the scripts
+    // that path's route needs: appPage).
+    app.get('/{*any}', appPage(webDir, web));
   }
 
   app.use(errorHandler);

@@ -3,8 +3,9 @@
 import express, { type RequestHandler } from 'express';
 import helmet from 'helmet';
 import type { IncomingMessage, ServerResponse } from 'node:http';
-import { readdirSync, statSync } from 'node:fs';
+import { existsSync, readFileSync, readdirSync, statSync } from 'node:fs';
 import { extname, join, relative, sep } from 'node:path';
+import { brotliCompressSync, gzipSync } from 'node:zlib';
 
 /** helmet's options for the whole app. `upgrade`: the CSP asks browsers to upgrade to https — only for a page
  *  that itself came over https (securityHeaders decides per request): over plain http — a LAN address, a test
@@ -124,5 +125,58 @@ export function webFiles(webDir: string): RequestHandler {
       req.url = `${path}.${encoding === 'br' ? 'br' : 'gz'}${req.url.slice(path.length)}`;
     }
     files(req, res, next);
+  };
+}
+
+type Preloads = { routes: { route: string; pattern: string; files: string[]; later?: string[] }[] };
+type Page = { html: string; br: Buffer; gzip: Buffer };
+type PageCache = { stamp: string; routes: { re: RegExp; files: string[]; later: string[] }[]; html: string; pages: Map<number, Page> };
+
+/**
+ * The app's HTML for any path that is no file (a single-page app): index.html, naming with `<link rel="preload">`
+ * the script files that path's route needs before it can show (dist/route-preloads.json, written by
+ * scripts/routePreloads.mjs), so the browser fetches them while it evaluates the first chunk instead of one after
+ * another as the router asks; the large plan chunks (`later`) are named in a meta tag for entry.web.js to preload
+ * once the first chunk has arrived, so they do not slow it down. Compressed once per route (Brotli, else gzip), revalidated every time. A path no
+ * route matches (or a build without the list) gets index.html itself through `files`. Read again when the build
+ * changes.
+ */
+export function appPage(webDir: string, files: RequestHandler): RequestHandler {
+  const htmlPath = join(webDir, 'index.html');
+  const preloadsPath = join(webDir, 'route-preloads.json');
+  let cache: PageCache | null = null;
+  const load = (): PageCache => {
+    const stamp = [htmlPath, preloadsPath].map((p) => (existsSync(p) ? `${statSync(p).mtimeMs}:${statSync(p).size}` : '-')).join('|');
+    if (cache?.stamp === stamp) return cache;
+    const preloads: Preloads = existsSync(preloadsPath) ? JSON.parse(readFileSync(preloadsPath, 'utf8')) : { routes: [] };
+    cache = { stamp, routes: preloads.routes.map((r) => ({ re: new RegExp(r.pattern), files: r.files, later: r.later ?? [] })), html: readFileSync(htmlPath, 'utf8'), pages: new Map() };
+    return cache;
+  };
+  return (req, res, next) => {
+    if (req.method !== 'GET' && req.method !== 'HEAD') return next();
+    const c = load();
+    const i = c.routes.findIndex((r) => r.re.test(req.path));
+    if (i < 0 || !c.html.includes('</body>')) {
+      req.url = '/index.html';
+      return files(req, res, next);
+    }
+    let page = c.pages.get(i);
+    if (!page) {
+      // After the build's own scripts (so the first chunk is asked for first), at low priority; the large ones
+      // named for entry.web.js to preload once the first chunk has arrived.
+      const r = c.routes[i]!;
+      const links = r.files.map((f) => `<link rel="preload" href="${f}" as="script" fetchpriority="low">`).join('');
+      const later = r.later.length ? `<meta name="falloff-later-scripts" content="${r.later.join(' ')}">` : '';
+      const html = c.html.replace('</body>', `${links}${later}\n</body>`);
+      page = { html, br: brotliCompressSync(html), gzip: gzipSync(html) };
+      c.pages.set(i, page);
+    }
+    const accept = String(req.headers['accept-encoding'] ?? '');
+    const encoding = /\bbr\b/.test(accept) ? 'br' : /\bgzip\b/.test(accept) ? 'gzip' : null;
+    res.setHeader('Content-Type', 'text/html; charset=utf-8');
+    res.setHeader('Cache-Control', 'no-cache');
+    res.setHeader('Vary', 'Accept-Encoding');
+    if (encoding) res.setHeader('Content-Encoding', encoding);
+    res.send(encoding ? page[encoding] : page.html);
   };
 }

@@ -81,6 +81,36 @@ describe('the web app files', () => {
     }
   });
 
+  it('names the scripts a route needs in the HTML of the paths it matches (route-preloads.json)', async () => {
+    const routeChunk = '/_expo/static/js/web/[token]-00112233445566778899aabbccddeeff.js';
+    const planChunk = '/_expo/static/js/web/shareScreen-00112233445566778899aabbccddeeff.js';
+    writeFileSync(join(webDir, 'route-preloads.json'), JSON.stringify({ routes: [{ route: 's/[token].tsx', pattern: '^/s/[^/]+/?$', files: [routeChunk, bundlePath], later: [planChunk] }] }));
+    try {
+      for (const [encoding, decode] of [['br', brotliDecompressSync], ['gzip', gunzipSync]] as const) {
+        const r = await raw(`${app.url}/s/some-token`, { 'accept-encoding': encoding });
+        expect(r.status).toBe(200);
+        expect(r.headers['content-type']).toMatch(/text\/html/);
+        expect(r.headers['cache-control']).toBe('no-cache');
+        expect(r.headers['content-encoding']).toBe(encoding);
+        const page = decode(r.body).toString();
+        expect(page).toContain(`<link rel="preload" href="${routeChunk}" as="script" fetchpriority="low"><link rel="preload" href="${bundlePath}" as="script" fetchpriority="low">`);
+        // The large ones are named for the first chunk to ask for (entry.web.js), not preloaded by the HTML.
+        expect(page).toContain(`<meta name="falloff-later-scripts" content="${planChunk}">`);
+        expect(page).not.toContain(`<link rel="preload" href="${planChunk}"`);
+        // After the page's own scripts: the first chunk is asked for first.
+        expect(page.indexOf(routeChunk)).toBeGreaterThan(page.indexOf(`<script src="${bundlePath}">`));
+        expect(page.replace(/<link rel="preload"[^>]*>|<meta name="falloff-later-scripts"[^>]*>/g, '').replace('\n</body>', '</body>')).toBe(html);
+      }
+      // A path the list has no route for: the HTML as built.
+      const other = await raw(`${app.url}/setups/some-id`, { 'accept-encoding': 'br' });
+      expect(brotliDecompressSync(other.body).toString()).toBe(html);
+    } finally {
+      rmSync(join(webDir, 'route-preloads.json'));
+    }
+    // Read again when the build changes: without the list, every path has the HTML as built.
+    expect(brotliDecompressSync((await raw(`${app.url}/s/some-token`, { 'accept-encoding': 'br' })).body).toString()).toBe(html);
+  });
+
   it('caches files without a content hash for an hour only', async () => {
     const r = await raw(`${app.url}/metadata.json`);
     expect(r.headers['cache-control']).toBe('public, max-age=3600');

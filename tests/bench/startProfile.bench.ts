@@ -9,7 +9,8 @@
  * attributed through the build's source maps (dist-maps/):
  *   - self time by package or folder of ours (where the time is spent),
  *   - self time by function (original name, file and line),
- *   - inclusive time by our own functions on the stack (which of our code caused it: a component, a hook).
+ *   - inclusive time by our own functions on the stack (which of our code caused it: a component, a hook);
+ *   - which of the start's steps (entry.web.js marks each) ended in it.
  * Prints the longest tasks of each page, largest first. Measures and prints; the exit code is for a run that broke.
  */
 import { existsSync, readFileSync } from 'node:fs';
@@ -100,8 +101,10 @@ async function profileOnce(browser: Awaited<ReturnType<typeof launchChromium>>, 
     await page.waitForTimeout(SETTLE_MS);
     const markerAt = await page.evaluate(() => (window as unknown as { __falloffClockMarker: () => number }).__falloffClockMarker());
     const tasks = await page.evaluate(() => (window as unknown as { __tasks: { start: number; duration: number }[] }).__tasks.slice());
+    // The start's steps (entry.web.js marks each one's end).
+    const marks = await page.evaluate(() => performance.getEntriesByType('mark').filter((m) => m.name.startsWith('falloff:')).map((m) => ({ name: m.name, at: m.startTime })));
     const { profile } = (await cdp.send('Profiler.stop')) as unknown as { profile: Profile };
-    return { usable, tasks, profile, markerAt };
+    return { usable, tasks, profile, markerAt, marks };
   } finally {
     await context.close();
   }
@@ -174,7 +177,8 @@ async function main() {
         console.log(`\n${spec.name} (run ${r + 1}): usable ${run.usable === null ? 'never' : `${(run.usable / 1000).toFixed(2)} s`}; ${tasks.length} long task(s), ${total.toFixed(0)} ms in all, longest ${(tasks[0]?.duration ?? 0).toFixed(0)} ms`);
         for (const t of tasks.slice(0, SHOW_TASKS)) {
           const a = attribute(run.profile, t.start * 1000 + offsetUs, (t.start + t.duration) * 1000 + offsetUs, byId, samples);
-          console.log(`  task at ${(t.start / 1000).toFixed(2)} s, ${t.duration.toFixed(0)} ms (${a.sampled.toFixed(0)} ms sampled)`);
+          const ended = run.marks.filter((m) => m.at >= t.start && m.at <= t.start + t.duration).map((m) => m.name);
+          console.log(`  task at ${(t.start / 1000).toFixed(2)} s, ${t.duration.toFixed(0)} ms (${a.sampled.toFixed(0)} ms sampled)${ended.length ? `; ends ${ended.join(', ')}` : ''}`);
           console.log('    self time by package or folder:');
           for (const [k, v] of top(a.byOwner, 6)) console.log(`    ${ms(v)}  ${k}`);
           console.log('    self time by function:');

@@ -2,7 +2,8 @@
 // and asks for the session while its fonts are still on the way (held back here for as long as the test
 // likes); it downloads no plan screen, no reanimated and no gesture handler (checked against the build's source
 // maps); its fonts are WOFF2 subsets, a few tens of kilobytes each, declared with font-display: swap. A read-only
-// link loads the plan in a chunk of its own (components/shareScreen.ts), not the editor's workspace chunk.
+// link loads the plan in a chunk of its own (components/shareScreen.ts), not the editor's workspace chunk. The
+// app starts in steps (entry.web.js).
 import { existsSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { describe, expect, inject, it } from 'vitest';
@@ -50,6 +51,11 @@ describe('first load', () => {
     await page.goto(`${base}/sign-in`, { waitUntil: 'commit' });
     await expect.poll(() => page.getByLabel('E-mail').isVisible(), { timeout: 30_000 }).toBe(true);
     await expect.poll(() => sessionAsked, { timeout: 30_000 }).toBe(true);
+    // The app started through entry.web.js: the first chunk's libraries evaluated in steps, each a task of its
+    // own (each step leaves a User Timing mark), not in one long task.
+    const marks = await page.evaluate(() => performance.getEntriesByType('mark').map((m) => m.name).filter((n) => n.startsWith('falloff:start ')));
+    expect(marks.length).toBeGreaterThan(4);
+    expect(marks).toEqual(marks.map((_, i) => `falloff:start ${i + 1}/${marks.length}`));
     // Still held: the form did not wait for them.
     expect(fontUrls.length).toBeGreaterThan(0);
     release();
@@ -117,6 +123,17 @@ describe('first load', () => {
     // Its own chunk (the plan, the meter, the document model), not the editor's workspace chunk.
     expect(scripts.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
+    // The page's HTML preloads what the route needs (the layouts, the route's chunk) and names the plan's chunk
+    // (not the editor's) for the first chunk to preload (entry.web.js), so they download while the first chunk
+    // evaluates; each is fetched once (the preload is used).
+    const html = await (await fetch(new URL(new URL(made.body.url).pathname, base))).text();
+    const preloads = [...html.matchAll(/<link rel="preload" href="([^"]+\.js)" as="script"/g)].map((m) => m[1]!);
+    const later = (/<meta name="falloff-later-scripts" content="([^"]*)">/.exec(html)?.[1] ?? '').split(' ').filter(Boolean);
+    expect(preloads.some((s) => /\/\[token\]-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    expect(later.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    expect([...preloads, ...later].some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
+    expect(await page.evaluate(() => Array.from(document.querySelectorAll<HTMLLinkElement>('link[rel="preload"][as="script"]'), (l) => new URL(l.href).pathname))).toEqual(expect.arrayContaining(later));
+    for (const p of [...preloads, ...later]) expect(scripts.filter((s) => s === p), p).toHaveLength(1);
     // (The meter's and the frame's workers, bundled apart from the app, have no map there.)
     const sources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
     // Nor gesture handler (the plan reads pointer events on the web), the forms library, or culori's colour

@@ -1,0 +1,67 @@
+// Which script files each page of the built web app needs before it can show, so the server can name them in
+// the page's HTML (`<link rel="preload">`, server/web.ts) and the browser fetches them while it evaluates the
+// first chunk, rather than one after another as the router asks for them (a round trip and a download each,
+// with the network idle while the phone's CPU works).
+//
+// From the build's source maps (dist-maps/): each route's chunk (its first source is the route file), every
+// layout's chunk (the router fetches every group's layout on every page), and the plan screens' lazily loaded
+// chunks for the routes that use them: `sharedSetupScreen(` in the route file needs components/shareScreen.ts,
+// `workspaceScreen(` needs it and components/workspace.ts (DEVELOPERS.md, "First load on the web").
+// Writes dist/route-preloads.json: { routes: [{ route, pattern, files, later }] }, most specific pattern first:
+// `files` (small: the layouts and the route's chunk) for the HTML itself, `later` (the plan chunks, large) for
+// the first chunk to ask for once it has arrived (entry.web.js), so they do not share the network with it.
+import { existsSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+
+const JS_DIR = ['_expo', 'static', 'js', 'web'];
+const LAZY = { shareScreen: 'components/shareScreen.ts', workspace: 'components/workspace.ts' };
+
+/** A route file (relative to app/, e.g. "(app)/setups/[id].tsx") as a RegExp source over URL paths, or null. */
+export function routePattern(file) {
+  const parts = file
+    .replace(/\.[jt]sx?$/, '')
+    .split('/')
+    .filter((p) => !/^\(.+\)$/.test(p));
+  const last = parts[parts.length - 1];
+  if (last === '_layout' || last.startsWith('+')) return null;
+  if (last === 'index') parts.pop();
+  const segs = parts.map((p) => (/^\[\.\.\..+\]$/.test(p) ? '.+' : /^\[.+\]$/.test(p) ? '[^/]+' : p.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')));
+  return `^/${segs.join('/')}${segs.length ? '/?' : ''}$`;
+}
+
+/** How many dynamic segments a pattern has (fewer first: /studios/join/x before /studios/x). */
+const dynamics = (pattern) => (pattern.match(/\[\^\/\]\+|\.\+/g) ?? []).length;
+
+export function routePreloads({ root, webDir, mapsDir }) {
+  const jsDir = join(webDir, ...JS_DIR);
+  const url = (name) => `/${[...JS_DIR, name].join('/')}`;
+  const chunks = [];
+  for (const name of readdirSync(jsDir)) {
+    if (!name.endsWith('.js')) continue;
+    const map = join(mapsDir, `${name}.map`);
+    if (!existsSync(map)) continue;
+    const sources = JSON.parse(readFileSync(map, 'utf8')).sources.map((s) => s.replace(/^\/+/, ''));
+    chunks.push({ name, first: sources[0] ?? '', sources: new Set(sources) });
+  }
+  const layouts = chunks.filter((c) => /^app\/(.*\/)?_layout\.[jt]sx?$/.test(c.first)).map((c) => url(c.name));
+  const lazy = {};
+  for (const [key, source] of Object.entries(LAZY)) {
+    const c = chunks.find((x) => x.name.startsWith(`${key}-`) && x.sources.has(source));
+    if (!c) throw new Error(`route preloads: no chunk holds ${source} (is it still loaded lazily?)`);
+    lazy[key] = url(c.name);
+  }
+  const routes = [];
+  for (const c of chunks) {
+    if (!c.first.startsWith('app/')) continue;
+    const file = c.first.slice('app/'.length);
+    const pattern = routePattern(file);
+    if (!pattern) continue;
+    const text = readFileSync(join(root, c.first), 'utf8');
+    const needs = /\bworkspaceScreen\(/.test(text) ? [lazy.shareScreen, lazy.workspace] : /\bsharedSetupScreen\(/.test(text) ? [lazy.shareScreen] : [];
+    routes.push({ route: file, pattern, files: [...layouts, url(c.name)], later: needs });
+  }
+  routes.sort((a, b) => dynamics(a.pattern) - dynamics(b.pattern) || b.pattern.length - a.pattern.length);
+  writeFileSync(join(webDir, 'route-preloads.json'), `${JSON.stringify({ routes }, null, 2)}\n`);
+  return { routes: routes.length };
+}
+
