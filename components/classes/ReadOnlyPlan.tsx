@@ -51,7 +51,8 @@ export function ReadOnlyPlan({
   secondary = false,
 }: {
   store: Editor;
-  readings: Readings;
+  /** The meter's readings for the plan (their light map is drawn); null: a plan without the light map. */
+  readings: Pick<Readings, 'map'> | null;
   units: Units;
   pins?: Pin[];
   /** When given, a tap on the plan pins to the item under it, else to the point. */
@@ -71,7 +72,7 @@ export function ReadOnlyPlan({
         <ErrorBoundary what="the plan" compact>
           <ItemTestIds.Provider value={secondary ? 'pin-item-' : 'item-'}>
             <SecondaryPlan.Provider value={secondary}>
-              <PlanCanvas theme={graphiteTheme} units={units} lightMap={readings.map} onTap={onTap}>
+              <PlanCanvas theme={graphiteTheme} units={units} lightMap={readings?.map ?? null} onTap={onTap}>
                 {pins || onPin ? <Pins pins={pins ?? []} tapToPin={!!onPin} testID={testID ? `${testID}-pins` : undefined} /> : null}
               </PlanCanvas>
             </SecondaryPlan.Provider>

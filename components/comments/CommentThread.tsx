@@ -10,7 +10,6 @@ import { useAddComment, useComments, useMarkCommentsRead, useResolveComment } fr
 import type { SetupComment } from '../../model/api';
 import { itemName } from '../../model/classes';
 import type { SetupDocument } from '../../model/document';
-import { computeReadings } from '../../model/setupReadings';
 import type { Units } from '../../model/units';
 import { ReadOnlyPlan, type Pin, type PinTarget } from '../classes/ReadOnlyPlan';
 import { Button, ErrorText } from '../ui';
@@ -85,10 +84,11 @@ export function CommentThread({
   const resolved = threads.filter((t) => t.start.resolvedAt);
   const pins: Pin[] = open.filter((t) => t.pin !== null).map((t) => ({ n: t.pin!, itemId: t.start.itemId, point: t.start.point }));
 
-  // The pin plan: its own read-only store and readings without the light map (cheap), following edits lazily.
+  // The pin plan: its own read-only store, without the light map (it only places pins), following edits lazily.
+  // No meter readings are computed for it: they cost a meter run on this thread at every edit (the release of
+  // every drag in the editor) and the plan showed none of them.
   const planDoc = useDeferredValue(doc);
   const store = useMemo(() => createEditor(planDoc, { readOnly: true }), [planDoc]);
-  const readings = useMemo(() => computeReadings(planDoc, { lightMap: false }), [planDoc]);
 
   const pinned = target ? ('itemId' in target ? { itemId: target.itemId, point: null } : { itemId: null, point: target.point }) : null;
   const send = () => {
@@ -105,7 +105,7 @@ export function CommentThread({
         Comments{open.length ? ` (${open.length} open)` : ''}
       </Text>
       <View style={{ height: planHeight }}>
-        <ReadOnlyPlan secondary store={store} readings={readings} units={units} pins={pins} onPin={setTarget} testID="comment-plan" />
+        <ReadOnlyPlan secondary store={store} readings={null} units={units} pins={pins} onPin={setTarget} testID="comment-plan" />
       </View>
       <Text style={st.dim}>Tap the plan to pin a new comment to the item or spot under your finger.</Text>
 
