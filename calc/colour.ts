@@ -35,8 +35,15 @@ export function relativeLuminance(rgb: Rgb): number {
  * and the server must accept the same colours.
  */
 export function isColour(s: string): boolean {
-  return !/^\s*color\(\s*--/i.test(s) && parse(s) !== undefined;
+  const hit = readable.get(s);
+  if (hit !== undefined) return hit;
+  const ok = !/^\s*color\(\s*--/i.test(s) && parse(s) !== undefined;
+  // A scene's few colours are checked at every parse (the meter's worker parses each job's scene): keep the answers.
+  if (readable.size > 512) readable.clear();
+  readable.set(s, ok);
+  return ok;
 }
+const readable = new Map<string, boolean>();
 
 /** Linear sRGB of a CSS colour string; throws on an unreadable colour (the scene schema rejects those first). */
 export function linearRgbOf(colour: string): Rgb {
