@@ -9,12 +9,31 @@ import type { SvgNode } from '../drawing/nodes';
 import { nodeToSvg } from '../drawing/toSvg';
 import type { DragLayer, Offset } from './dragLayer';
 import { domOf, type DomLike } from './views/dom';
+import { patchChildren } from './views/svgPatch';
 
 export type { DomLike } from './views/dom';
 
 /** The drag layer of the plan being drawn (PlanCanvas makes one). */
 export const DragLayerContext = createContext<DragLayer | null>(null);
 
+/** What each preview group draws now, where the preview is a real DOM element (patched, not re-parsed). */
+const drawnPreview = new WeakMap<object, SvgNode[]>();
+const isElement = (d: DomLike): d is DomLike & Element => typeof (d as Partial<Element>).appendChild === 'function';
+
+/** Draw `node` (null: nothing) in the preview: on a DOM element only what changed since the last drawing
+ *  (svgPatch.ts: a beam that swings redraws one polygon's points, not a parse of its markup each move). */
+function writePreview(preview: DomLike, node: SvgNode | null) {
+  const next = node ? [node] : [];
+  if (isElement(preview)) {
+    const before = drawnPreview.get(preview);
+    if (!before && !next.length && !preview.firstChild) return;
+    patchChildren(preview, before, next);
+    drawnPreview.set(preview, next);
+  } else {
+    const markup = node ? nodeToSvg(node) : '';
+    if (preview.innerHTML !== markup) preview.innerHTML = markup;
+  }
+}
 
 /** Show `live` on the web: shift the shell's drawing by `offset`, or hide it and draw `live` in the preview;
  *  `live` null puts the shell back as React drew it. */
@@ -22,15 +41,14 @@ export function writeItem(shell: DomLike, preview: DomLike, live: Item | null, o
   if (!live) {
     shell.removeAttribute('transform');
     shell.removeAttribute('display');
-    if (preview.innerHTML) preview.innerHTML = '';
+    writePreview(preview, null);
   } else if (offset) {
     shell.setAttribute('transform', `translate(${offset.dx} ${offset.dy})`);
     shell.removeAttribute('display');
-    if (preview.innerHTML) preview.innerHTML = '';
+    writePreview(preview, null);
   } else {
     shell.setAttribute('display', 'none');
-    const node = draw(live);
-    preview.innerHTML = node ? nodeToSvg(node) : '';
+    writePreview(preview, draw(live));
   }
 }
 

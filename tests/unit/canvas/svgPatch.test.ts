@@ -57,3 +57,33 @@ describe('patchChildren', () => {
     expect(el.firstElementChild!.children[1]).toBe(second);
   });
 });
+
+describe('writeItem on DOM elements (the drag layer on the web)', () => {
+  it('draws a changed item in the preview by patching it, and puts the shell back at the end', async () => {
+    const { writeItem } = await import('../../../canvas/dragViews');
+    const shell = group();
+    const preview = group();
+    type Light = { id: string; kind: 'light'; x: number; y: number; aimDeg: number };
+    const draw = (i: unknown) => {
+      const l = i as Light;
+      return g({ transform: `translate(${l.x} ${l.y}) rotate(${l.aimDeg})` }, path({ d: 'M0 0L1 0.2L1 -0.2Z', fill: '#fff' }));
+    };
+    const light: Light = { id: 'l', kind: 'light', x: 1, y: 2, aimDeg: 0 };
+    writeItem(shell, preview, light as never, null, draw as never);
+    expect(shell.getAttribute('display')).toBe('none');
+    expect(preview.innerHTML).toBe(fresh([draw(light)]));
+    const drawnGroup = preview.firstElementChild;
+    // Turned: the same elements, one attribute changed.
+    writeItem(shell, preview, { ...light, aimDeg: 30 } as never, null, draw as never);
+    expect(preview.firstElementChild).toBe(drawnGroup);
+    expect(preview.innerHTML).toBe(fresh([draw({ ...light, aimDeg: 30 })]));
+    // Only moved: the shell shifts and the preview empties; at the end the shell is as React drew it.
+    writeItem(shell, preview, { ...light, x: 2 } as never, { dx: 1, dy: 0 }, draw as never);
+    expect(preview.childNodes.length).toBe(0);
+    expect(shell.getAttribute('transform')).toBe('translate(1 0)');
+    writeItem(shell, preview, null, null, draw as never);
+    expect(shell.hasAttribute('transform')).toBe(false);
+    expect(shell.hasAttribute('display')).toBe(false);
+    expect(preview.childNodes.length).toBe(0);
+  });
+});
