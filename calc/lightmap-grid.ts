@@ -552,7 +552,9 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
     const a = lut[j]!;
     const prof = a + (lut[j + 1]! - a) * (f - j);
     const e2 = d2 + R2;
-    const w = (I * prof * resp) / (e2 > MIN_DISTANCE_SQ_M2 ? e2 : MIN_DISTANCE_SQ_M2);
+    // Math.max, not a ternary: the imported constant is a module variable to V8, and a ternary between it and e2
+    // made the optimised loop box e2 as a heap number at every point (garbage a frame); equal for e2 ≥ 0.
+    const w = (I * prof * resp) / Math.max(e2, MIN_DISTANCE_SQ_M2);
     out[k] = w * t;
     if (pf) pf[k] = w;
   }
