@@ -39,8 +39,13 @@ export function useSettled<T>(selector: (s: EditorState) => T): T {
  *  the store at once while no gesture is under way, and at most once every `everyMs` during one (numbers that
  *  change sixty times a second cannot be read, and each change is a large render beside the dragged glyph); the
  *  newest value is shown as soon as the gesture ends. Every panel on the same pace catches up on one shared
- *  tick, in one task, so React commits them together (one render of the panels a pace, not one each). */
-export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyMs = PANEL_PACE_MS): T {
+ *  tick, in one task, so React commits them together (one render of the panels a pace, not one each).
+ *  `settled`: whether the store's value is final (the live meter: no job under way). When a gesture ends on a
+ *  value that is not, the panel waits for the store's next change instead of showing it, so the numbers step
+ *  once to the result for where the hand stopped rather than through the one before it. */
+export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyMs = PANEL_PACE_MS, settled?: (s: S) => boolean): T {
+  const settledRef = useRef(settled);
+  settledRef.current = settled;
   const editor = useEditorApi();
   const sel = useRef(selector);
   sel.current = selector;
@@ -63,7 +68,8 @@ export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyM
       const offEditor = editor.subscribe((s, prev) => {
         if (!s.gesture && prev.gesture) {
           unpace(everyMs, update);
-          update();
+          // Not final yet: the store's next change (the result) shows at once, the gesture being over.
+          if (settledRef.current?.(store.getState()) !== false) update();
         }
       });
       return () => {

@@ -16,6 +16,9 @@ import { liveDoc } from '../editor/state';
 import { defaultEngine, type MeterEngine } from './engine';
 
 type MeterState = { readings: Readings; doc: SetupDocument; computing: boolean };
+
+/** Whether the meter's readings are final: no job is under way for a newer document. */
+export const meterSettled = (m: MeterState) => !m.computing;
 export type MeterOptions = { lightMap: boolean; stepIndex?: number };
 export type Meter = StoreApi<MeterState> & { setOptions: (o: Partial<MeterOptions>) => void; dispose: () => void; engine: MeterEngine };
 

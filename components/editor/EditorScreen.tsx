@@ -11,8 +11,8 @@ import { PlanCanvas, type LightMapSource } from '../../canvas/PlanCanvas';
 import { createEditor, type Editor } from '../../canvas/editor/editor';
 import { liveItem } from '../../canvas/editor/state';
 import { attachToPage, createPersist, saveStatusLabel, type Persist } from '../../canvas/editor/persist';
-import { EditorContext, useEditor, useEditorApi, usePaced } from '../../canvas/editor/react';
-import { createMeter, type Meter } from '../../canvas/meter/meter';
+import { EditorContext, PANEL_PACE_MS, useEditor, useEditorApi, usePaced } from '../../canvas/editor/react';
+import { createMeter, meterSettled, type Meter } from '../../canvas/meter/meter';
 import { graphiteTheme } from '../../canvas/views';
 import { WIDE_MIN, colours, fonts, space } from '../../constants/theme';
 import { confirmLeave, unsentMessage, useLeaveGuard } from '../../hooks/leaveGuard';
@@ -363,7 +363,7 @@ const LiveCanvas = memo(function LiveCanvas({ meter, units, insetBottom, control
 });
 
 function MeterPeek({ meter }: { meter: Meter }) {
-  const readings = usePaced(meter, (m) => m.readings);
+  const readings = usePaced(meter, (m) => m.readings, PANEL_PACE_MS, meterSettled);
   const m = readings.meter;
   return (
     <Text style={s.peek} testID="meter-peek" accessibilityLiveRegion="polite">
@@ -373,7 +373,7 @@ function MeterPeek({ meter }: { meter: Meter }) {
 }
 
 function LivePhotos({ meter, setupId }: { meter: Meter; setupId: string }) {
-  const aperture = usePaced(meter, (m) => m.readings.meter?.subject.aperture ?? null);
+  const aperture = usePaced(meter, (m) => m.readings.meter?.subject.aperture ?? null, PANEL_PACE_MS, meterSettled);
   return <PhotosPanel setupId={setupId} predictedAperture={aperture} />;
 }
 

@@ -3,8 +3,8 @@
 // not the meter's text; the last reading shows as soon as the hand lifts.
 import { memo } from 'react';
 import type { MeterResult } from '../../calc';
-import { useEditor, useEditorApi, usePaced, useSettled } from '../../canvas/editor/react';
-import type { Meter } from '../../canvas/meter/meter';
+import { PANEL_PACE_MS, useEditor, useEditorApi, usePaced, useSettled } from '../../canvas/editor/react';
+import { meterSettled, type Meter } from '../../canvas/meter/meter';
 import type { ItemOf, SetupDocument } from '../../model/document';
 import type { Units } from '../../model/units';
 import type { Readings } from '../../canvas/useReadings';
@@ -32,7 +32,7 @@ function useSettledLight(): ItemOf<'light'> | null {
 }
 
 export const LiveMeterPanel = memo(function LiveMeterPanel({ meter, units }: { meter: Meter; units: Units }) {
-  const { readings, doc } = usePaced(meter, readingsAndDoc);
+  const { readings, doc } = usePaced(meter, readingsAndDoc, PANEL_PACE_MS, meterSettled);
   const selectedLight = useSettledLight();
   const editor = useEditorApi();
   const readOnly = useEditor((st) => st.readOnly);
@@ -42,6 +42,6 @@ export const LiveMeterPanel = memo(function LiveMeterPanel({ meter, units }: { m
 });
 
 export const LiveSuggestedPower = memo(function LiveSuggestedPower({ meter }: { meter: Meter }) {
-  const result = usePaced(meter, (m) => m.readings.meter);
+  const result = usePaced(meter, (m) => m.readings.meter, PANEL_PACE_MS, meterSettled);
   return <SuggestedPower result={result} />;
 });

@@ -66,4 +66,47 @@ describe('usePaced', () => {
     });
     expect(view.getByTestId('b').textContent).toBe('5');
   });
+
+  it('when a gesture ends on a value that is not final, steps once to the final one', async () => {
+    const editor = createEditor(doc);
+    editor.dispatch('setViewport', { w: 900, h: 700 });
+    type Live = { n: number; computing: boolean };
+    const store = createStore<Live>(() => ({ n: 0, computing: false }));
+    const seen: number[] = [];
+    function Shows() {
+      const n = usePaced(store, (st) => st.n, PANEL_PACE_MS, (st) => !st.computing);
+      seen.push(n);
+      return <Text>{n}</Text>;
+    }
+    render(
+      <EditorContext.Provider value={editor}>
+        <Shows />
+      </EditorContext.Provider>,
+    );
+    const s = editor.getState();
+    const light = s.doc.items.find((i) => i.id === 'rimR') as { x: number; y: number };
+    const cam = s.camera!;
+    const at = { x: cam.tx + light.x * cam.scale, y: cam.ty + light.y * cam.scale };
+    act(() => editor.pointer.down({ screen: at, pointer: 'mouse' }));
+    await act(async () => {
+      store.setState({ n: 1, computing: true });
+      await vi.advanceTimersByTimeAsync(PANEL_PACE_MS + 10);
+      // A result for an older position arrives while the newest is being computed…
+      store.setState({ n: 2, computing: true });
+    });
+    seen.length = 0;
+    // …and the hand lets go before the next tick: the older value is not shown…
+    await act(async () => {
+      editor.pointer.up({ screen: at, pointer: 'mouse' });
+      await vi.advanceTimersByTimeAsync(PANEL_PACE_MS + 10);
+    });
+    expect(seen).not.toContain(2);
+    // …the final one is, at once.
+    await act(async () => {
+      store.setState({ n: 3, computing: false });
+      await vi.advanceTimersByTimeAsync(0);
+    });
+    expect(seen).not.toContain(2);
+    expect(seen.at(-1)).toBe(3);
+  });
 });
