@@ -49,7 +49,10 @@ const steps = [
   },
   () => require('react-native-web/dist/exports/Animated'),
   () => require('react-native'),
+  () => require('expo-router/build/react-navigation/core'),
   () => require('expo-router/build/react-navigation/native'),
+  () => require('expo-router/build/global-state/store'),
+  () => require('expo-router/build/useScreens'),
   () => require('expo-router/build/global-state/router-store'),
   () => require('expo-router/build/head'),
   () => require('expo-router/build/ExpoRoot'),
@@ -60,7 +63,7 @@ const steps = [
   },
 ];
 
-// Each step leaves a mark (`falloff:start 1/10` …) in the page's User Timing, where a profile shows it and the
+// Each step leaves a mark (`falloff:start 1/13` …) in the page's User Timing, where a profile shows it and the
 // first-load e2e test finds it.
 function run(i) {
   steps[i]();

@@ -13,6 +13,7 @@ import { OfflineRoot } from '../components/offline/OfflineRoot';
 import { colours } from '../constants/theme';
 import { ApiRequestError } from '../hooks/api';
 import { useAppFonts } from '../hooks/useAppFonts';
+import { useWarmDates } from '../hooks/warmDates';
 
 function makeQueryClient() {
   return new QueryClient({
@@ -31,6 +32,8 @@ function makeQueryClient() {
 export default function RootLayout() {
   const [client] = useState(makeQueryClient);
   const fontsLoaded = useAppFonts();
+  // The date formatter the library's cards and the share screen need, built while the page waits (hooks/warmDates.ts).
+  useWarmDates();
   if (!fontsLoaded) return <View style={{ flex: 1, backgroundColor: colours.graphite }} />;
   return (
     <GestureRoot style={{ flex: 1, backgroundColor: colours.graphite }}>

@@ -136,7 +136,7 @@ type PageCache = { stamp: string; routes: { re: RegExp; files: string[]; later: 
  * The app's HTML for any path that is no file (a single-page app): index.html, naming with `<link rel="preload">`
  * the script files that path's route needs before it can show (dist/route-preloads.json, written by
  * scripts/routePreloads.mjs), so the browser fetches them while it evaluates the first chunk instead of one after
- * another as the router asks; the large plan chunks (`later`) are named in a meta tag for entry.web.js to preload
+ * another as the router asks; the larger ones (`later`) are named in a meta tag for entry.web.js to preload
  * once the first chunk has arrived, so they do not slow it down. Compressed once per route (Brotli, else gzip), revalidated every time. A path no
  * route matches (or a build without the list) gets index.html itself through `files`. Read again when the build
  * changes.
@@ -162,8 +162,8 @@ export function appPage(webDir: string, files: RequestHandler): RequestHandler {
     }
     let page = c.pages.get(i);
     if (!page) {
-      // After the build's own scripts (so the first chunk is asked for first), at low priority; the large ones
-      // named for entry.web.js to preload once the first chunk has arrived.
+      // After the build's own scripts (so the first chunk is asked for first), at low priority; the larger ones
+      // (the route's chunk, the plan chunks) named for entry.web.js to preload once the first chunk has arrived.
       const r = c.routes[i]!;
       const links = r.files.map((f) => `<link rel="preload" href="${f}" as="script" fetchpriority="low">`).join('');
       const later = r.later.length ? `<meta name="falloff-later-scripts" content="${r.later.join(' ')}">` : '';

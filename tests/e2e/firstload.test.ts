@@ -123,13 +123,14 @@ describe('first load', () => {
     // Its own chunk (the plan, the meter, the document model), not the editor's workspace chunk.
     expect(scripts.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
-    // The page's HTML preloads what the route needs (the layouts, the route's chunk) and names the plan's chunk
-    // (not the editor's) for the first chunk to preload (entry.web.js), so they download while the first chunk
-    // evaluates; each is fetched once (the preload is used).
+    // The page's HTML preloads the layouts and names the route's chunk and the plan's chunk (not the editor's)
+    // for the first chunk to preload (entry.web.js), so they download while the first chunk evaluates; each is
+    // fetched once (the preload is used).
     const html = await (await fetch(new URL(new URL(made.body.url).pathname, base))).text();
     const preloads = [...html.matchAll(/<link rel="preload" href="([^"]+\.js)" as="script"/g)].map((m) => m[1]!);
     const later = (/<meta name="falloff-later-scripts" content="([^"]*)">/.exec(html)?.[1] ?? '').split(' ').filter(Boolean);
-    expect(preloads.some((s) => /\/\[token\]-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    expect(preloads.some((s) => /\/_layout-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    expect(later.some((s) => /\/\[token\]-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(later.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect([...preloads, ...later].some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
     expect(await page.evaluate(() => Array.from(document.querySelectorAll<HTMLLinkElement>('link[rel="preload"][as="script"]'), (l) => new URL(l.href).pathname))).toEqual(expect.arrayContaining(later));

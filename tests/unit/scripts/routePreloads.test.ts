@@ -27,7 +27,7 @@ describe('routePattern', () => {
 });
 
 describe('routePreloads', () => {
-  it('lists the layouts and the route’s chunk, and apart the plan chunks its screen loads, most specific route first', () => {
+  it('lists the layouts, and apart the route’s chunk and the plan chunks its screen loads, most specific route first', () => {
     const web = join(dir, 'dist');
     const maps = join(dir, 'dist-maps');
     const js = join(web, '_expo', 'static', 'js', 'web');
@@ -59,9 +59,9 @@ describe('routePreloads', () => {
     const u = (n: string) => `/_expo/static/js/web/${n}`;
     const layouts = [u('_layout-1.js'), u('_layout-2.js')];
     const byRoute = Object.fromEntries(routes.map((r) => [r.route, r]));
-    expect(byRoute['s/[token].tsx']).toMatchObject({ files: [...layouts, u('token-5.js')], later: [u('shareScreen-3.js')] });
-    expect(byRoute['(app)/setups/[id].tsx']).toMatchObject({ files: [...layouts, u('id-6.js')], later: [u('shareScreen-3.js'), u('workspace-4.js')] });
-    expect(byRoute['(app)/setups/index.tsx']).toMatchObject({ files: [...layouts, u('index-7.js')], later: [] });
+    expect(byRoute['s/[token].tsx']).toMatchObject({ files: layouts, later: [u('token-5.js'), u('shareScreen-3.js')] });
+    expect(byRoute['(app)/setups/[id].tsx']).toMatchObject({ files: layouts, later: [u('id-6.js'), u('shareScreen-3.js'), u('workspace-4.js')] });
+    expect(byRoute['(app)/setups/index.tsx']).toMatchObject({ files: layouts, later: [u('index-7.js')] });
     // /setups/join is the static route, not /setups/[id]: the first pattern that matches wins.
     expect(routes.find((r) => new RegExp(r.pattern).test('/setups/join'))!.route).toBe('(app)/setups/join.tsx');
     expect(routes.find((r) => new RegExp(r.pattern).test('/setups/abc'))!.route).toBe('(app)/setups/[id].tsx');
