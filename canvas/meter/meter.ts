@@ -32,8 +32,10 @@ export const SHOW_SHARE = 4;
 export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEngine = defaultEngine(), now: () => number = () => Date.now()): Meter {
   let options = opts;
   const first = liveDoc(editor.getState());
-  // The first reading is computed at once, so the screen opens with numbers.
-  const store = createStore<MeterState>(() => ({ readings: computeReadings(first, options), doc: first, computing: false }));
+  // The first reading is computed at once, so the screen opens with numbers — the meter's alone: the light map
+  // (its room geometry built cold: ~0.2 s on a desktop, four times that on a phone, in the editor's first render)
+  // comes from the engine, asked for below.
+  const store = createStore<MeterState>(() => ({ readings: computeReadings(first, { ...options, lightMap: false }), doc: first, computing: false }));
   let running = false;
   let dirty = false;
   let lastChange = now();
@@ -90,6 +92,7 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
     // A drag's release commits the very document the drag showed last: nothing new to compute.
     if ((s.doc !== prev.doc || s.drag !== prev.drag) && liveDoc(s) !== liveDoc(prev)) changed();
   });
+  if (options.lightMap) send();
   return Object.assign(store, {
     engine,
     setOptions: (o: Partial<MeterOptions>) => {

@@ -28,6 +28,21 @@ function meterOnPlan() {
 }
 
 describe('the live meter', () => {
+  it('opens with the meter numbers at once and asks the engine for the light map (no cold map in the first render)', async () => {
+    const e = createEditor(demoSetups[0]!.document);
+    const { engine, jobs } = manualEngine();
+    const m = createMeter(e, { lightMap: true }, engine, () => 0);
+    expect(m.getState().readings.meter?.subject.aperture).toBeGreaterThan(0);
+    expect(m.getState().readings.map).toBeNull();
+    expect(jobs).toHaveLength(1);
+    expect(jobs[0]!.job.lightMap).toBe(true);
+    jobs[0]!.resolve();
+    await flush();
+    expect(m.getState().readings.map?.stops.length).toBeGreaterThan(0);
+    expect(m.getState().computing).toBe(false);
+    m.dispose();
+  });
+
   it('runs one job at a time and sends only the newest document next', async () => {
     const e = createEditor(demoSetups[0]!.document);
     const { engine, jobs } = manualEngine();
