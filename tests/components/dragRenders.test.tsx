@@ -176,6 +176,31 @@ describe('a drag on the plan', () => {
     expect([...glyphRenders.keys()]).toEqual(['rimR']);
   });
 
+  it('a press that picks another item and drags it leaves the inspector alone until the hand lets go', async () => {
+    const m = mount();
+    meter = m.meter;
+    const { editor, renders } = m;
+    await act(async () => vi.advanceTimersByTime(50));
+    renders.clear();
+    // rimR is selected; the hand takes rimL.
+    const from = at(editor, 'rimL');
+    act(() => editor.pointer.down({ screen: from, pointer: 'mouse' }));
+    expect(editor.getState().selection).toEqual(['rimL']);
+    for (let k = 1; k <= 5; k++) {
+      await act(async () => {
+        editor.pointer.move({ screen: { x: from.x + 4 * k, y: from.y }, pointer: 'mouse' });
+        await vi.advanceTimersByTimeAsync(5);
+      });
+    }
+    expect(renders.get('inspector') ?? 0).toBe(0);
+    await act(async () => {
+      editor.pointer.up({ screen: { x: from.x + 20, y: from.y }, pointer: 'mouse' });
+      await vi.advanceTimersByTimeAsync(50);
+    });
+    expect(renders.get('inspector') ?? 0).toBeGreaterThan(0);
+    expect(m.view.getByTestId('inspector-rimL')).toBeInTheDocument();
+  });
+
   it('hands the editor at most one pointer move a frame: the newest', async () => {
     const m = mount();
     meter = m.meter;

@@ -58,15 +58,19 @@ export function createSelectTool(): Tool<SelectState> {
       }
       const hit = itemAt(s, e.screen, e.pointer);
       if (hit) {
-        if (!s.selection.includes(hit.id)) editor.dispatch('select', { ids: [hit.id], additive: s.input.shift });
         if (s.readOnly) {
+          if (!s.selection.includes(hit.id)) editor.dispatch('select', { ids: [hit.id], additive: s.input.shift });
           tool.state = { name: 'idle' };
           return;
         }
-        const sel = new Set(editor.getState().selection);
+        // The gesture starts before the selection changes, so the panels that hold during a gesture (the
+        // inspector, the meter's selected light) take the new item when the hand lets go, not in the press's
+        // frame: a press that starts a drag does not wait on the inspector's render.
         const key = newGestureKey('drag');
-        tool.state = { name: 'dragging', origin: editor.getState().doc.items.filter((i) => sel.has(i.id)), start: plan, key };
         editor.dispatch('setGesture', { gesture: key });
+        if (!s.selection.includes(hit.id)) editor.dispatch('select', { ids: [hit.id], additive: s.input.shift });
+        const sel = new Set(editor.getState().selection);
+        tool.state = { name: 'dragging', origin: editor.getState().doc.items.filter((i) => sel.has(i.id)), start: plan, key };
         return;
       }
       if (s.input.boxSelect && e.pointer === 'mouse') {
