@@ -23,6 +23,7 @@ import { PlanGestures, type PlanGestureHandlers } from './planGestures';
 import { beamClipOf, sketchBeam } from '../drawing/plan';
 import { sketchItem } from '../drawing/glyphs';
 import { createDragLayer } from './dragLayer';
+import { coalesceMoves } from './moveCoalescer';
 import { DragLayerContext, useItemDrag } from './dragViews';
 import { Grid } from './layers/Grid';
 import { Handles } from './layers/Handles';
@@ -93,10 +94,6 @@ const shownIdsOf = cachedBy((items, visible) => items.filter((i) => !visible || 
 const lightIdsOf = cachedBy((items, visible) => items.filter((i) => i.kind === 'light' && (!visible || visible.has(i.id))).map((i) => i.id));
 const wallsOf = cachedBy((items) => items.filter((i) => i.kind === 'wall'));
 
-// One frame's wait (a timer where there are no animation frames, e.g. a headless test).
-const requestFrame = (f: () => void): number => (typeof requestAnimationFrame === 'function' ? requestAnimationFrame(f) : (setTimeout(f, 16) as unknown as number));
-const cancelFrame = (id: number) => (typeof cancelAnimationFrame === 'function' ? cancelAnimationFrame(id) : clearTimeout(id));
-
 export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, insetBottom = 0, controls, onTap, children, testID }: PlanCanvasProps) {
   const editor = useEditorApi();
   const shownIds = useEditor(useShallow((s) => shownIdsOf(s.doc.items, s.visibleIds)));
@@ -122,39 +119,22 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
   const gestures = useMemo((): PlanGestureHandlers => {
     // A mouse on a wide screen is precise and draws boxes; elsewhere presses are treated as a finger.
     const kind = (): PointerKind => (editor.getState().input.boxSelect ? 'mouse' : 'touch');
-    // Pointer moves are coalesced per animation frame: the editor (and React) see at most one move a frame,
-    // the newest, and the DOM is written once a frame. A release flushes the waiting move first.
-    let waiting: Point | null = null;
-    let frame: number | null = null;
-    const flush = () => {
-      if (frame !== null) cancelFrame(frame);
-      frame = null;
-      const p = waiting;
-      waiting = null;
-      if (p) editor.pointer.move({ screen: p, pointer: kind() });
-    };
-    const queueMove = (p: Point) => {
-      waiting = p;
-      frame ??= requestFrame(() => {
-        frame = null;
-        flush();
-      });
-    };
+    // Pointer moves reach the editor at most once an animation frame, the newest (moveCoalescer.ts); a
+    // release flushes the waiting move first.
+    const moves = coalesceMoves((p: Point) => editor.pointer.move({ screen: p, pointer: kind() }));
+
     // A pinch keeps the plan point first under the fingers under them (pinchCamera), panning as they move;
     // two fingers that only slide pan until a pinch takes over. (On the web: webPinch.ts.)
     let pinchStart: { camera: Camera; focal: Point } | null = null;
     return {
       dragStart: (from, to) => {
         editor.pointer.down({ screen: from, pointer: kind() });
-        editor.pointer.move({ screen: to, pointer: kind() });
+        moves.queue(to);
       },
-      dragMove: queueMove,
-      dragRelease: (at) => {
-        waiting = at;
-        flush();
-      },
+      dragMove: moves.queue,
+      dragRelease: (at) => moves.flush(at),
       dragEnd: (at) => {
-        flush();
+        moves.flush();
         editor.pointer.up({ screen: at, pointer: kind() });
       },
       tap: (screen) => {

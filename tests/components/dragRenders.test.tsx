@@ -233,4 +233,36 @@ describe('a drag on the plan', () => {
     await act(async () => vi.advanceTimersByTimeAsync(20));
     expect(moves).toHaveLength(2);
   });
+
+  it('applies the first move of each frame at once, in the frame the browser delivered it', async () => {
+    // Frames on the test's clock too.
+    vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date', 'requestAnimationFrame', 'cancelAnimationFrame'] });
+    const m = mount();
+    meter = m.meter;
+    const { editor } = m;
+    await act(async () => vi.advanceTimersByTime(50));
+    const from = at(editor, 'rimL');
+    const moves: number[] = [];
+    const move = editor.pointer.move;
+    editor.pointer.move = (e) => {
+      moves.push(e.screen.x - from.x);
+      move(e);
+    };
+    const step = (type: 'down' | 'move' | 'up', dx: number) => act(() => firePlanPointer([{ type, x: from.x + dx, y: from.y }]));
+    step('down', 0);
+    step('move', 5);
+    // A later frame: its first move reaches the editor (and the drag layer's DOM) in the same task, not a frame
+    // later; a second move in that frame waits for the next one.
+    await act(async () => vi.advanceTimersByTimeAsync(20));
+    step('move', 10);
+    expect(moves).toEqual([5, 10]);
+    step('move', 15);
+    expect(moves).toEqual([5, 10]);
+    await act(async () => vi.advanceTimersByTimeAsync(20));
+    expect(moves).toEqual([5, 10, 15]);
+    await act(async () => vi.advanceTimersByTimeAsync(20));
+    step('move', 20);
+    expect(moves).toEqual([5, 10, 15, 20]);
+    step('up', 20);
+  });
 });
