@@ -41,8 +41,8 @@ export function useSettled<T>(selector: (s: EditorState) => T): T {
  *  newest value is shown as soon as the gesture ends. Every panel on the same pace catches up on one shared
  *  tick, in one task, so React commits them together (one render of the panels a pace, not one each).
  *  `settled`: whether the store's value is final (the live meter: no job under way). When a gesture ends on a
- *  value that is not, the panel waits for the store's next change instead of showing it, so the numbers step
- *  once to the result for where the hand stopped rather than through the one before it. */
+ *  value that is not, the panel waits for the store's first final value instead of showing it, so the numbers
+ *  step once to the result for where the hand stopped rather than through the one before it. */
 export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyMs = PANEL_PACE_MS, settled?: (s: S) => boolean): T {
   const settledRef = useRef(settled);
   settledRef.current = settled;
@@ -58,19 +58,37 @@ export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyM
         shown.current = { value };
         notify();
       };
+      // A gesture ended on a value that is not final: only the final one shows next (not a value the pace held
+      // back during the gesture, which a change of the store's other fields — a job starting — would let out).
+      let awaitingFinal = false;
+      // The gesture as this panel last saw it: the store (the meter, subscribed to the editor first) may change
+      // in the very update that ends the gesture, before this panel's editor listener hears of the end.
+      let inGesture = !!editor.getState().gesture;
+      const isSettled = () => settledRef.current?.(store.getState()) !== false;
+      const ended = () => {
+        inGesture = false;
+        unpace(everyMs, update);
+        awaitingFinal = !isSettled();
+        if (!awaitingFinal) update();
+      };
       const changed = () => {
-        if (!editor.getState().gesture) {
+        if (editor.getState().gesture) {
+          inGesture = true;
+          pace(everyMs, update);
+        } else if (inGesture) ended();
+        else {
           unpace(everyMs, update);
+          if (awaitingFinal && !isSettled()) return;
+          awaitingFinal = false;
           update();
-        } else pace(everyMs, update);
+        }
       };
       const offStore = store.subscribe(changed);
-      const offEditor = editor.subscribe((s, prev) => {
-        if (!s.gesture && prev.gesture) {
-          unpace(everyMs, update);
-          // Not final yet: the store's next change (the result) shows at once, the gesture being over.
-          if (settledRef.current?.(store.getState()) !== false) update();
-        }
+      const offEditor = editor.subscribe((s) => {
+        if (s.gesture && !inGesture) {
+          inGesture = true;
+          awaitingFinal = false;
+        } else if (!s.gesture && inGesture) ended();
       });
       return () => {
         offStore();

@@ -58,13 +58,11 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
     if (disposed) return;
     const wait = editor.getState().drag ? sentAt + gap() - now() : 0;
     if (wait > 0) {
-      // Too soon after the last job while a hand drags: the newest document goes when the gap is over.
+      // Too soon after the last job while a hand drags: the newest document goes when the gap is over. The
+      // readings shown are not final meanwhile (a gesture ending now must not show them as the result).
       running = true;
-      paced ??= setTimeout(() => {
-        paced = null;
-        sentAt = -Infinity;
-        send();
-      }, wait);
+      if (!store.getState().computing) store.setState({ computing: true });
+      paced ??= setTimeout(sendWaiting, wait);
       return;
     }
     sentAt = now();
@@ -77,11 +75,19 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
       if (disposed) return;
       running = false;
       const stale = dirty || sent.options !== options;
+      // A result for an older document shows only while the hand is still moving (the map following it); once
+      // it has stopped or let go, the numbers step once, to the result for where it is.
       const handStopped = now() - lastChange >= SETTLE_MS;
       if (!stale || !handStopped) show({ readings, doc, computing: stale });
       if (stale) send();
       else store.setState({ computing: false });
     });
+  };
+  const sendWaiting = () => {
+    if (paced) clearTimeout(paced);
+    paced = null;
+    sentAt = -Infinity;
+    send();
   };
   const changed = () => {
     lastChange = now();
@@ -89,8 +95,12 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
     else send();
   };
   const unsubscribe = editor.subscribe((s, prev) => {
-    // A drag's release commits the very document the drag showed last: nothing new to compute.
+    // A drag's release commits the very document the drag showed last: nothing new to compute — but a job
+    // waiting out the gap goes at once, the hand being off the plan.
     if ((s.doc !== prev.doc || s.drag !== prev.drag) && liveDoc(s) !== liveDoc(prev)) changed();
+    else if (prev.drag && !s.drag && paced) sendWaiting();
+    // Letting go is the hand stopping.
+    if (prev.gesture && !s.gesture) lastChange = -Infinity;
   });
   if (options.lightMap) send();
   return Object.assign(store, {

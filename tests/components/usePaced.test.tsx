@@ -101,7 +101,60 @@ describe('usePaced', () => {
       await vi.advanceTimersByTimeAsync(PANEL_PACE_MS + 10);
     });
     expect(seen).not.toContain(2);
+    // …nor when the store changes without a final value (the next job starting sets its flag again)…
+    await act(async () => {
+      store.setState({ computing: true });
+      await vi.advanceTimersByTimeAsync(0);
+    });
+    expect(seen).not.toContain(2);
     // …the final one is, at once.
+    await act(async () => {
+      store.setState({ n: 3, computing: false });
+      await vi.advanceTimersByTimeAsync(0);
+    });
+    expect(seen).not.toContain(2);
+    expect(seen.at(-1)).toBe(3);
+  });
+
+  it('holds back a value the pace kept when the store changes in the very update that ends the gesture', async () => {
+    const editor = createEditor(doc);
+    editor.dispatch('setViewport', { w: 900, h: 700 });
+    type Live = { n: number; computing: boolean };
+    const store = createStore<Live>(() => ({ n: 0, computing: false }));
+    // Like the live meter: subscribed to the editor before any panel, it starts a job as the hand lets go.
+    editor.subscribe((s, prev) => {
+      if (prev.gesture && !s.gesture) store.setState({ computing: true });
+    });
+    const seen: number[] = [];
+    function Shows() {
+      const n = usePaced(store, (st) => st.n, PANEL_PACE_MS, (st) => !st.computing);
+      seen.push(n);
+      return <Text>{n}</Text>;
+    }
+    render(
+      <EditorContext.Provider value={editor}>
+        <Shows />
+      </EditorContext.Provider>,
+    );
+    const s = editor.getState();
+    const light = s.doc.items.find((i) => i.id === 'rimR') as { x: number; y: number };
+    const cam = s.camera!;
+    const at = { x: cam.tx + light.x * cam.scale, y: cam.ty + light.y * cam.scale };
+    act(() => editor.pointer.down({ screen: at, pointer: 'mouse' }));
+    await act(async () => {
+      store.setState({ n: 1 });
+      await vi.advanceTimersByTimeAsync(PANEL_PACE_MS + 10);
+      // A result held back by the pace (shown less than a pace ago)…
+      store.setState({ n: 2 });
+    });
+    seen.length = 0;
+    // …is not let out by the job that the release starts…
+    await act(async () => {
+      editor.pointer.up({ screen: at, pointer: 'mouse' });
+      await vi.advanceTimersByTimeAsync(PANEL_PACE_MS + 10);
+    });
+    expect(seen).not.toContain(2);
+    // …the job's result shows, once.
     await act(async () => {
       store.setState({ n: 3, computing: false });
       await vi.advanceTimersByTimeAsync(0);

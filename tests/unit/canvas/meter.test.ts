@@ -137,6 +137,47 @@ describe('the live meter', () => {
     m.dispose();
   });
 
+  it('a drag let go while a job waits out the gap: not settled meanwhile, and the job goes at once', async () => {
+    const { e, jobs, m, clock } = meterOnPlan();
+    e.pointer.down({ screen: { x: 400, y: 410 }, pointer: 'mouse' });
+    e.pointer.move({ screen: { x: 420, y: 410 }, pointer: 'mouse' });
+    jobs[0]!.resolve();
+    await flush();
+    expect(m.getState().computing).toBe(false);
+    clock.t += 10;
+    e.pointer.move({ screen: { x: 460, y: 410 }, pointer: 'mouse' });
+    // Waiting out the gap: the readings shown are for an older place, so a panel must not take them as final.
+    expect(jobs.length).toBe(1);
+    expect(m.getState().computing).toBe(true);
+    e.pointer.up({ screen: { x: 460, y: 410 }, pointer: 'mouse' });
+    // The hand is off the plan: no gap to wait out.
+    expect(jobs.length).toBe(2);
+    expect(jobs[1]!.job.doc).toBe(e.getState().doc);
+    jobs[1]!.resolve();
+    await flush();
+    expect(m.getState().doc).toBe(e.getState().doc);
+    expect(m.getState().computing).toBe(false);
+    m.dispose();
+  });
+
+  it('a result for an older place arriving just after the hand lets go is not shown (one step, to where it stopped)', async () => {
+    const { e, jobs, m } = meterOnPlan();
+    const before = m.getState().doc;
+    e.pointer.down({ screen: { x: 400, y: 410 }, pointer: 'mouse' });
+    e.pointer.move({ screen: { x: 420, y: 410 }, pointer: 'mouse' });
+    e.pointer.move({ screen: { x: 460, y: 410 }, pointer: 'mouse' });
+    // Let go within SETTLE_MS of the last move (the clock has not moved), with the first job still running.
+    e.pointer.up({ screen: { x: 460, y: 410 }, pointer: 'mouse' });
+    jobs[0]!.resolve();
+    await flush();
+    expect(m.getState().doc).toBe(before);
+    expect(jobs.length).toBe(2);
+    jobs[1]!.resolve();
+    await flush();
+    expect(m.getState().doc).toBe(e.getState().doc);
+    m.dispose();
+  });
+
   describe('where showing a result is costly (a slow phone)', () => {
     afterEach(() => vi.useRealTimers());
     it('widens the gap between jobs during a drag so showing results takes at most 1 / SHOW_SHARE of the thread', async () => {
