@@ -244,8 +244,9 @@ export function createPersist(editor: Editor, o: PersistOptions): Persist {
       store.setState({ waiting: store.getState().waiting + 1 });
       writeQueue();
     }
-    // A gesture ended: save now, not after the debounce.
-    if (prev.gesture && !s.gesture && !isEmpty(pending) && store.getState().status.kind === 'pending') void flush();
+    // A gesture ended: save now, not after the debounce — in a task of its own, so the request (the
+    // document's JSON, the status shown) does not lengthen the frame that paints where the hand let go.
+    if (prev.gesture && !s.gesture && !isEmpty(pending) && store.getState().status.kind === 'pending') schedule(0);
   });
 
   const persist: Persist = Object.assign(store, {

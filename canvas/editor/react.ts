@@ -18,27 +18,89 @@ export function useEditor<T>(selector: (s: EditorState) => T): T {
   return useStore(useEditorApi(), selector);
 }
 
-/** Like useEditor, but while a gesture is under way the value stays as it was when the gesture began. */
+/** Runs `f` once the frame being prepared now has been painted: in a task after the next animation frame
+ *  (a timer where there are no animation frames). Calls asked for before then run together, in one task, so
+ *  React commits what they change together. Panels beside the plan catch up on a gesture's end this way: the
+ *  frame that shows where the hand let go draws the plan alone, and the panels follow in the next. */
+export function afterPaint(f: () => void): () => void {
+  afterPaintQueue.add(f);
+  if (!afterPaintArmed) {
+    afterPaintArmed = true;
+    const run = () => {
+      afterPaintArmed = false;
+      const due = [...afterPaintQueue];
+      afterPaintQueue.clear();
+      for (const g of due) g();
+    };
+    if (typeof requestAnimationFrame === 'function') requestAnimationFrame(() => setTimeout(run, 0));
+    else setTimeout(run, 0);
+  }
+  return () => afterPaintQueue.delete(f);
+}
+const afterPaintQueue = new Set<() => void>();
+let afterPaintArmed = false;
+
+/** Like useEditor, but while a gesture is under way the value stays as it was when the gesture began, and
+ *  after its end until the frame that shows the plan where the hand let go has been painted (afterPaint). */
 export function useSettled<T>(selector: (s: EditorState) => T): T {
+  return useHeld(selector, true);
+}
+
+/** Like useEditor, but a change that comes with a gesture's end (a drag's release: its moves committed)
+ *  shows once the frame that draws the plan where the hand let go has been painted (afterPaint), so panels
+ *  beside the plan do not lengthen that frame. During a gesture it follows at once (a side view's own lift). */
+export function useEditorLate<T>(selector: (s: EditorState) => T): T {
+  return useHeld(selector, false);
+}
+
+function useHeld<T>(selector: (s: EditorState) => T, duringGesture: boolean): T {
   const editor = useEditorApi();
   const last = useRef<{ value: T } | null>(null);
+  const holding = useRef(false);
   const sel = useRef(selector);
   sel.current = selector;
-  const subscribe = useCallback((notify: () => void) => editor.subscribe(notify), [editor]);
+  const subscribe = useCallback(
+    (notify: () => void) => {
+      let cancel: (() => void) | null = null;
+      const off = editor.subscribe((s, prev) => {
+        if (s.gesture) {
+          cancel?.();
+          cancel = null;
+          holding.current = duringGesture;
+        } else if (prev.gesture || holding.current) {
+          holding.current = true;
+          cancel ??= afterPaint(() => {
+            cancel = null;
+            holding.current = false;
+            notify();
+          });
+          return;
+        }
+        notify();
+      });
+      return () => {
+        off();
+        cancel?.();
+        holding.current = false;
+      };
+    },
+    [editor, duringGesture],
+  );
   const get = useCallback(() => {
     const s = editor.getState();
-    if (s.gesture && last.current) return last.current.value;
+    if (((duringGesture && s.gesture) || holding.current) && last.current) return last.current.value;
     const v = sel.current(s);
     if (!last.current || !Object.is(last.current.value, v)) last.current = { value: v };
     return last.current.value;
-  }, [editor]);
+  }, [editor, duringGesture]);
   return useSyncExternalStore(subscribe, get, get);
 }
 
 /** What an outside store (the live meter, or the editor itself) holds, for panels beside the plan: it follows
  *  the store at once while no gesture is under way, and at most once every `everyMs` during one (numbers that
  *  change sixty times a second cannot be read, and each change is a large render beside the dragged glyph); the
- *  newest value is shown as soon as the gesture ends. Every panel on the same pace catches up on one shared
+ *  newest value is shown as soon as the gesture ends and the frame showing where the hand let go is painted
+ *  (afterPaint). Every panel on the same pace catches up on one shared
  *  tick, in one task, so React commits them together (one render of the panels a pace, not one each).
  *  `settled`: whether the store's value is final (the live meter: no job under way). When a gesture ends on a
  *  value that is not, the panel waits for the store's first final value instead of showing it, so the numbers
@@ -65,18 +127,24 @@ export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyM
       // in the very update that ends the gesture, before this panel's editor listener hears of the end.
       let inGesture = !!editor.getState().gesture;
       const isSettled = () => settledRef.current?.(store.getState()) !== false;
+      let cancelCatchUp: (() => void) | null = null;
       const ended = () => {
         inGesture = false;
         unpace(everyMs, update);
         awaitingFinal = !isSettled();
-        if (!awaitingFinal) update();
+        // The newest value, once the frame showing where the hand let go is painted (afterPaint).
+        if (!awaitingFinal)
+          cancelCatchUp ??= afterPaint(() => {
+            cancelCatchUp = null;
+            update();
+          });
       };
       const changed = () => {
         if (editor.getState().gesture) {
           inGesture = true;
           pace(everyMs, update);
         } else if (inGesture) ended();
-        else {
+        else if (!cancelCatchUp) {
           unpace(everyMs, update);
           if (awaitingFinal && !isSettled()) return;
           awaitingFinal = false;
@@ -94,6 +162,7 @@ export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyM
         offStore();
         offEditor();
         unpace(everyMs, update);
+        cancelCatchUp?.();
       };
     },
     [editor, store, everyMs],

@@ -14,16 +14,18 @@ import { labelBounds, placeLabels } from '../../drawing/labels';
 import { g } from '../../drawing/nodes';
 import { contourLabelNodes } from '../../drawing/plan';
 import type { Units } from '../../model/units';
-import { useEditor } from '../editor/react';
+import { useEditor, useEditorLate } from '../editor/react';
 import { lightMapNodes } from '../meter/mapNodes';
 import { DirectSketch } from '../views/DirectSketch';
 import { SketchView } from '../views/SketchView';
 
 export const LightMapLayer = memo(function LightMapLayer({ map, ink, units }: { map: LightMapResult; ink: string; units: Units }) {
-  const items = useEditor((s) => s.doc.items);
+  // The labels come back after the frame that shows where the hand let go (useEditorLate): placing them is
+  // the largest part of the release's work here.
+  const items = useEditorLate((s) => s.doc.items);
   const stage = useEditor((s) => s.doc.stage);
   const scale = useEditor((s) => s.camera?.scale ?? 80);
-  const dragging = useEditor((s) => s.drag !== null);
+  const dragging = useEditorLate((s) => s.drag !== null);
   const lines = useMemo(() => lightMapNodes(map, ink, { labels: false }), [map, ink]);
   const labels = useMemo(() => {
     if (dragging) return null;

@@ -1,6 +1,6 @@
 // The comments section of the editor (a tab on a phone, a section on a wide screen): the thread for the
 // signed-in member, with the item selected on the plan offered as the pin.
-import { useEditor } from '../../canvas/editor/react';
+import { useEditor, useEditorLate } from '../../canvas/editor/react';
 import { useMe } from '../../hooks/me';
 import { itemName } from '../../model/classes';
 import type { Units } from '../../model/units';
@@ -8,7 +8,7 @@ import { CommentThread } from './CommentThread';
 
 export function CommentsPanel({ setupId, units, canWrite }: { setupId: string; units: Units; canWrite: boolean }) {
   const me = useMe();
-  const doc = useEditor((s) => s.doc);
+  const doc = useEditorLate((s) => s.doc);
   const selected = useEditor((s) => (s.selection.length === 1 ? s.selection[0]! : null));
   const item = selected ? doc.items.find((i) => i.id === selected) : undefined;
   if (!me.data) return null;

@@ -5,7 +5,7 @@
 import { useMemo, useRef, useState } from 'react';
 import { Pressable, StyleSheet, Text, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
 import Svg, { Circle, G, Line, Path, Rect, Text as SvgText } from 'react-native-svg';
-import { useEditor, useEditorApi } from '../../canvas/editor/react';
+import { useEditor, useEditorApi, useEditorLate } from '../../canvas/editor/react';
 import { itemNames } from '../../model/kinds';
 import { shownItems } from '../../canvas/editor/state';
 import { colours, fonts, space } from '../../constants/theme';
@@ -22,7 +22,8 @@ const sel = graphiteTheme.selection;
 
 export function SideView({ units, height = 260 }: { units: Units; height?: number }) {
   const editor = useEditorApi();
-  const doc = useEditor((s) => s.doc);
+  // A plan drag's release shows here after the plan's own frame (its own lifts follow at once).
+  const doc = useEditorLate((s) => s.doc);
   const visible = useEditor((s) => s.visibleIds);
   const selection = useEditor((s) => s.selection);
   const [refId, setRefId] = useState<string | null>(null);

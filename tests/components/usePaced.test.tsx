@@ -5,7 +5,7 @@ import { Profiler } from 'react';
 import { Text } from 'react-native';
 import { createStore, type StoreApi } from 'zustand';
 import { createEditor } from '../../canvas/editor/editor';
-import { EditorContext, PANEL_PACE_MS, usePaced } from '../../canvas/editor/react';
+import { EditorContext, PANEL_PACE_MS, useEditorLate, usePaced, useSettled } from '../../canvas/editor/react';
 import { demoSetups } from '../../db/seed-setups';
 
 const doc = demoSetups.find((d) => d.title.startsWith('Twin rims'))!.document;
@@ -16,7 +16,7 @@ function Shows({ store, testID }: { store: StoreApi<{ n: number }>; testID: stri
 }
 
 describe('usePaced', () => {
-  beforeEach(() => vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date'] }));
+  beforeEach(() => vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date', 'requestAnimationFrame', 'cancelAnimationFrame'] }));
   afterEach(() => vi.useRealTimers());
 
   it('commits panels that change at different moments of a gesture together, once a pace', async () => {
@@ -58,13 +58,19 @@ describe('usePaced', () => {
     expect(commits).toBe(2);
     expect(view.getByTestId('a').textContent).toBe('2');
     expect(view.getByTestId('b').textContent).toBe('1');
-    // The gesture's end shows the newest at once.
+    // The gesture's end shows the newest once the frame that draws the plan where the hand let go is painted:
+    // not in the release's own task, but right after the next animation frame, both panels in one commit.
+    commits = 0;
     await act(async () => {
       b.setState({ n: 5 });
+      a.setState({ n: 6 });
       editor.pointer.up({ screen: { x: cam.tx + light.x * cam.scale, y: cam.ty + light.y * cam.scale }, pointer: 'mouse' });
-      await vi.advanceTimersByTimeAsync(0);
     });
+    expect(view.getByTestId('b').textContent).toBe('1');
+    await act(async () => vi.advanceTimersByTimeAsync(17));
     expect(view.getByTestId('b').textContent).toBe('5');
+    expect(view.getByTestId('a').textContent).toBe('6');
+    expect(commits).toBe(1);
   });
 
   it('when a gesture ends on a value that is not final, steps once to the final one', async () => {
@@ -161,5 +167,80 @@ describe('usePaced', () => {
     });
     expect(seen).not.toContain(2);
     expect(seen.at(-1)).toBe(3);
+  });
+
+  it('useSettled holds through a gesture and catches up after the frame that shows where the hand let go', async () => {
+    const editor = createEditor(doc);
+    editor.dispatch('setViewport', { w: 900, h: 700 });
+    editor.dispatch('toggleSnap');
+    function RimX() {
+      const x = useSettled((st) => (st.doc.items.find((i) => i.id === 'rimR') as unknown as { x: number }).x);
+      return <Text testID="x">{x.toFixed(2)}</Text>;
+    }
+    const view = render(
+      <EditorContext.Provider value={editor}>
+        <RimX />
+      </EditorContext.Provider>,
+    );
+    const s = editor.getState();
+    const light = s.doc.items.find((i) => i.id === 'rimR') as { x: number; y: number };
+    const cam = s.camera!;
+    const at = { x: cam.tx + light.x * cam.scale, y: cam.ty + light.y * cam.scale };
+    const before = view.getByTestId('x').textContent;
+    act(() => {
+      editor.pointer.down({ screen: at, pointer: 'mouse' });
+      editor.pointer.move({ screen: { x: at.x + 50, y: at.y }, pointer: 'mouse' });
+    });
+    await act(async () => vi.advanceTimersByTimeAsync(PANEL_PACE_MS * 2));
+    expect(view.getByTestId('x').textContent).toBe(before);
+    act(() => editor.pointer.up({ screen: { x: at.x + 50, y: at.y }, pointer: 'mouse' }));
+    // Committed, but the panel waits for the plan's frame to be painted…
+    expect((editor.getState().doc.items.find((i) => i.id === 'rimR') as unknown as { x: number }).x).not.toBeCloseTo(light.x);
+    expect(view.getByTestId('x').textContent).toBe(before);
+    // …then shows where the light was let go.
+    await act(async () => vi.advanceTimersByTimeAsync(17));
+    expect(view.getByTestId('x').textContent).toBe((light.x + 50 / cam.scale).toFixed(2));
+  });
+
+  it('useEditorLate follows a gesture at once, and shows what its end commits after the plan frame is painted', async () => {
+    const editor = createEditor(doc);
+    editor.dispatch('setViewport', { w: 900, h: 700 });
+    editor.dispatch('toggleSnap');
+    const heightOf = (st: ReturnType<typeof editor.getState>) => (st.doc.items.find((i) => i.id === 'rimR') as unknown as { heightM: number }).heightM;
+    const xOf = (st: ReturnType<typeof editor.getState>) => (st.doc.items.find((i) => i.id === 'rimR') as unknown as { x: number }).x;
+    function Rim() {
+      const h = useEditorLate(heightOf);
+      const x = useEditorLate(xOf);
+      return <Text testID="rim">{`${h.toFixed(2)} ${x.toFixed(2)}`}</Text>;
+    }
+    const view = render(
+      <EditorContext.Provider value={editor}>
+        <Rim />
+      </EditorContext.Provider>,
+    );
+    const shown = () => view.getByTestId('rim').textContent!.split(' ').map(Number);
+    // A lift in the side view: a gesture whose changes go straight into the document — followed at once.
+    act(() => {
+      editor.dispatch('setGesture', { gesture: 'lift-test' });
+      editor.dispatch('setHeight', { id: 'rimR', heightM: 2.5, gestureKey: 'lift-test' });
+    });
+    expect(shown()[0]).toBeCloseTo(2.5);
+    act(() => editor.dispatch('setGesture', { gesture: null }));
+    await act(async () => vi.advanceTimersByTimeAsync(17));
+    // A drag on the plan: its release commits the moves; this panel shows them after the next frame.
+    const s = editor.getState();
+    const cam = s.camera!;
+    const x0 = xOf(s);
+    const light = s.doc.items.find((i) => i.id === 'rimR') as { x: number; y: number };
+    const at = { x: cam.tx + light.x * cam.scale, y: cam.ty + light.y * cam.scale };
+    act(() => {
+      editor.pointer.down({ screen: at, pointer: 'mouse' });
+      editor.pointer.move({ screen: { x: at.x + 50, y: at.y }, pointer: 'mouse' });
+      editor.pointer.up({ screen: { x: at.x + 50, y: at.y }, pointer: 'mouse' });
+    });
+    expect(xOf(editor.getState())).toBeCloseTo(x0 + 50 / cam.scale);
+    expect(shown()[1]).toBeCloseTo(x0);
+    await act(async () => vi.advanceTimersByTimeAsync(17));
+    expect(shown()[1]).toBeCloseTo(x0 + 50 / cam.scale);
   });
 });
