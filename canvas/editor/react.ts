@@ -104,8 +104,9 @@ function useHeld<T>(selector: (s: EditorState) => T, duringGesture: boolean): T 
  *  tick, in one task, so React commits them together (one render of the panels a pace, not one each).
  *  `settled`: whether the store's value is final (the live meter: no job under way). When a gesture ends on a
  *  value that is not, the panel waits for the store's first final value instead of showing it, so the numbers
- *  step once to the result for where the hand stopped rather than through the one before it. */
-export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyMs = PANEL_PACE_MS, settled?: (s: S) => boolean): T {
+ *  step once to the result for where the hand stopped rather than through the one before it. `everyMs` null:
+ *  the panel holds through a gesture (one out of sight: a phone's sheet lowered to its peek). */
+export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyMs: number | null = PANEL_PACE_MS, settled?: (s: S) => boolean): T {
   const settledRef = useRef(settled);
   settledRef.current = settled;
   const editor = useEditorApi();
@@ -142,7 +143,7 @@ export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyM
       const changed = () => {
         if (editor.getState().gesture) {
           inGesture = true;
-          pace(everyMs, update);
+          if (everyMs !== null) pace(everyMs, update);
         } else if (inGesture) ended();
         else if (!cancelCatchUp) {
           unpace(everyMs, update);
@@ -200,8 +201,8 @@ function pace(everyMs: number, update: () => void) {
   }, wait);
 }
 
-function unpace(everyMs: number, update: () => void) {
-  clocks.get(everyMs)?.waiting.delete(update);
+function unpace(everyMs: number | null, update: () => void) {
+  if (everyMs !== null) clocks.get(everyMs)?.waiting.delete(update);
 }
 
 /** How often a text panel follows an outside store during a gesture. */

@@ -178,7 +178,9 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
       <LiveCanvas meter={meter} units={units} insetBottom={wide ? 0 : sheetH} controls={viewToggles} />
     </ErrorBoundary>
   );
-  const meterPanel = <LiveMeterPanel meter={meter} units={units} />;
+  // A phone's sheet at its peek shows its header only: the panels below it hold through a drag.
+  const offscreen = !wide && sheetH <= PEEK_PX + 1;
+  const meterPanel = <LiveMeterPanel meter={meter} units={units} offscreen={offscreen} />;
   const notes = (
     <>
       <NotesFields readOnly={readOnly} />
@@ -197,7 +199,7 @@ function EditorBody({ parts, units, readOnly, setupId }: { parts: Parts; units: 
       case 'meter':
         return meterPanel;
       case 'frame':
-        return <EditorFrame stepIndex={step ?? undefined} wide={wide} readOnly={readOnly} />;
+        return <EditorFrame stepIndex={step ?? undefined} wide={wide} readOnly={readOnly} offscreen={offscreen} />;
       case 'item':
         return (
           <>

@@ -31,8 +31,10 @@ function useSettledLight(): ItemOf<'light'> | null {
   });
 }
 
-export const LiveMeterPanel = memo(function LiveMeterPanel({ meter, units }: { meter: Meter; units: Units }) {
-  const { readings, doc } = usePaced(meter, readingsAndDoc, PANEL_PACE_MS, meterSettled);
+/** `offscreen`: the panel is out of sight (a phone's sheet lowered to its peek), so it holds through a gesture
+ *  instead of following at its pace: a render of the whole panel costs a slow phone more than a frame. */
+export const LiveMeterPanel = memo(function LiveMeterPanel({ meter, units, offscreen = false }: { meter: Meter; units: Units; offscreen?: boolean }) {
+  const { readings, doc } = usePaced(meter, readingsAndDoc, offscreen ? null : PANEL_PACE_MS, meterSettled);
   const selectedLight = useSettledLight();
   const editor = useEditorApi();
   const readOnly = useEditor((st) => st.readOnly);

@@ -9,9 +9,10 @@ import { liveDoc } from '../../canvas/editor/state';
 import { space } from '../../constants/theme';
 import { FrameView } from './FrameView';
 
-export function EditorFrame({ stepIndex, wide, readOnly }: { stepIndex?: number; wide: boolean; readOnly: boolean }) {
+/** `offscreen`: out of sight (a phone's sheet lowered to its peek): holds through a gesture, no draft pictures. */
+export function EditorFrame({ stepIndex, wide, readOnly, offscreen = false }: { stepIndex?: number; wide: boolean; readOnly: boolean; offscreen?: boolean }) {
   const store = useEditorApi();
-  const doc = usePaced(store, liveDoc, FRAME_PACE_MS);
+  const doc = usePaced(store, liveDoc, offscreen ? null : FRAME_PACE_MS);
   const { width } = useWindowDimensions();
   const subject = doc.items.find((i) => i.kind === 'subject');
   const paneWidth = wide ? 340 - 2 * space.md : Math.min(640, width - 2 * space.md);

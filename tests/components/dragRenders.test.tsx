@@ -79,6 +79,9 @@ function mount() {
         <LiveMeterPanel meter={meter} units="metric" />
         <LiveSuggestedPower meter={meter} />
       </Profiler>
+      <Profiler id="offscreen" onRender={counted}>
+        <LiveMeterPanel meter={meter} units="metric" offscreen />
+      </Profiler>
       <EditorFrame wide readOnly={false} />
       <PlanCanvas theme={graphiteTheme} units="metric" lightMap={map} />
     </EditorContext.Provider>,
@@ -174,6 +177,31 @@ describe('a drag on the plan', () => {
     expect(stopLabels()).toBeGreaterThan(0); // and come back on release
     // At release React draws the dragged item from the document once more, and no other item.
     expect([...glyphRenders.keys()]).toEqual(['rimR']);
+  });
+
+  it('a meter panel out of sight (a phone sheet at its peek) holds through a drag and catches up on release', async () => {
+    const m = mount();
+    meter = m.meter;
+    const { editor, renders } = m;
+    await act(async () => vi.advanceTimersByTime(50));
+    renders.clear();
+    const from = at(editor, 'rimR');
+    act(() => editor.pointer.down({ screen: from, pointer: 'mouse' }));
+    // Longer than two paces: the panel in sight follows at its pace, the one out of sight not at all.
+    for (let k = 1; k <= 12; k++) {
+      await act(async () => {
+        editor.pointer.move({ screen: { x: from.x - 4 * k, y: from.y + 2 * k }, pointer: 'mouse' });
+        await vi.advanceTimersByTimeAsync(50);
+      });
+    }
+    expect(12 * 50).toBeGreaterThan(2 * PANEL_PACE_MS);
+    expect(renders.get('meter') ?? 0).toBeGreaterThanOrEqual(2);
+    expect(renders.get('offscreen') ?? 0).toBe(0);
+    await act(async () => {
+      editor.pointer.up({ screen: { x: from.x - 48, y: from.y + 24 }, pointer: 'mouse' });
+      await vi.advanceTimersByTimeAsync(50);
+    });
+    expect(renders.get('offscreen') ?? 0).toBeGreaterThan(0);
   });
 
   it('a press that picks another item and drags it leaves the inspector alone until the hand lets go', async () => {
