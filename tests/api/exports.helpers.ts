@@ -6,7 +6,7 @@ import { testAddress, type Client } from '../support/http';
 /** The cookie header a test client would send (its jar is private to it). */
 const cookieOf = (c: Client | null) => (c ? [...(c as unknown as { cookies: Map<string, string> }).cookies].map(([k, v]) => `${k}=${v}`).join('; ') : '');
 
-export type Raw = { status: number; type: string; disposition: string; body: Buffer; json: any };
+export type Raw = { status: number; type: string; disposition: string; retryAfter: string | null; body: Buffer; json: any };
 
 /** GET (or another method) returning the body as bytes; `c` null sends no cookie (signed out). */
 export async function raw(base: string, c: Client | null, path: string, init: { method?: string; body?: BodyInit; headers?: Record<string, string> } = {}): Promise<Raw> {
@@ -19,7 +19,7 @@ export async function raw(base: string, c: Client | null, path: string, init: { 
   } catch {
     /* not JSON */
   }
-  return { status: res.status, type: res.headers.get('content-type') ?? '', disposition: res.headers.get('content-disposition') ?? '', body, json };
+  return { status: res.status, type: res.headers.get('content-type') ?? '', disposition: res.headers.get('content-disposition') ?? '', retryAfter: res.headers.get('retry-after'), body, json };
 }
 
 export async function pdfText(pdf: Buffer): Promise<{ text: string; pages: number }> {

@@ -103,6 +103,9 @@ describe('the photo routes on an app whose object storage does not answer', () =
     for (const [what, r] of Object.entries({ up, read, thumb, del })) {
       expect(r.status, `${what}: ${r.body.toString().slice(0, 300)}`).toBe(503);
       expect(r.json.error.code, what).toBe('storage_unavailable');
+      // A client is told when to try again, in the header and in the body.
+      expect(r.retryAfter, what).toMatch(/^[1-9]\d*$/);
+      expect(r.json.error.retryAfterS, what).toBe(Number(r.retryAfter));
     }
     // Nothing was lost on the way: the photo is still listed and still served where storage answers.
     expect((await raw(base, team.owner.client, kept.json.url)).status).toBe(200);
