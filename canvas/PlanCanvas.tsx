@@ -16,7 +16,7 @@ import { pinchCamera, scaleBarLength, toScreen, type Camera } from './editor/cam
 import { itemAt, planAt } from './editor/hit';
 import { useEditor, useEditorApi } from './editor/react';
 import { itemById, type PointerKind } from './editor/state';
-import { gridStepM } from './editor/snap';
+import { gridMajorM, gridStepM } from './editor/snap';
 import { Beam } from './layers/Beams';
 import { attachWebPinch } from './webPinch';
 import { PlanGestures, type PlanGestureHandlers } from './planGestures';
@@ -110,6 +110,8 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
   useEffect(() => {
     if (size.insetBottom !== insetBottom) editor.dispatch('setViewport', { w: size.w, h: size.h, insetBottom });
   }, [editor, insetBottom, size]);
+  // A drag snaps to the grid drawn: of metres, or of feet and inches.
+  useEffect(() => editor.dispatch('setInput', { units }), [editor, units]);
 
   const onLayout = (e: LayoutChangeEvent) => {
     const { width: w, height: h } = e.nativeEvent.layout;
@@ -194,7 +196,7 @@ export const PlanCanvas = memo(function PlanCanvas({ theme, units, lightMap, ins
           <View style={StyleSheet.absoluteFill} collapsable={false}>
             <Svg width={size.w} height={size.h}>
               <G transform={`translate(${camera.tx} ${camera.ty}) scale(${camera.scale})`}>
-                <Grid stage={stage} theme={theme} stepM={gridStepM(camera.scale)} />
+                <Grid stage={stage} theme={theme} stepM={gridStepM(camera.scale, units)} majorM={gridMajorM(units)} />
                 <MapLines source={lightMap} ink={theme.ink} units={units} />
                 <G pointerEvents="none">
                   {lightIds.map((id) => (

@@ -19,13 +19,15 @@ const GRID_DRAW_MIN_M = 0.05;
  * The stage and its grid: lines every `stepM` (0.5 m by default, as the exports print it; the editor passes the
  * step its drags snap to), heavier on whole metres — or on every line when the step is a metre or more.
  */
-export function sketchGrid(stage: SetupDocument['stage'], theme: PlanTheme, fill: string = theme.background, stepM = 0.5): SvgNode {
-  const step = Math.max(GRID_DRAW_MIN_M, stepM);
+export function sketchGrid(stage: SetupDocument['stage'], theme: PlanTheme, fill: string = theme.background, stepM = 0.5, majorM = 1): SvgNode {
+  // A fine snapping step is drawn every few steps (lines on snap positions all the same), at least GRID_DRAW_MIN_M apart.
+  const step = stepM * Math.max(1, Math.ceil(GRID_DRAW_MIN_M / stepM - 1e-9));
   const lines: SvgNode[] = [];
-  const majorAt = (v: number) => step >= 1 || Math.abs(v - Math.round(v)) < 1e-6;
+  // Heavier on whole metres (or whole feet: `majorM`).
+  const majorAt = (v: number) => step >= majorM - 1e-9 || Math.abs(v / majorM - Math.round(v / majorM)) < 1e-6;
   const along = (len: number, draw: (v: number, major: boolean) => SvgNode) => {
     for (let k = 0; k * step <= len + 1e-9; k++) {
-      const v = Math.round(k * step * 1000) / 1000;
+      const v = Math.round(k * step * 10000) / 10000;
       lines.push(draw(v, majorAt(v)));
     }
   };

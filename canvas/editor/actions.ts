@@ -28,7 +28,7 @@ export type Action<A = void> = {
 const writable = (s: EditorState) => !s.readOnly;
 const hasSelection = (s: EditorState) => !s.readOnly && s.selection.length > 0;
 /** The snapping grid for the view as it is zoomed (0.1 m with no view yet): see snap.ts. */
-const gridOf = (s: EditorState) => gridStepM(s.camera?.scale);
+const gridOf = (s: EditorState) => gridStepM(s.camera?.scale, s.input.units);
 const unlockedSelection = (s: EditorState) =>
   new Set(s.doc.items.filter((i) => s.selection.includes(i.id) && !i.locked).map((i) => i.id));
 

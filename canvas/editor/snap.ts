@@ -1,29 +1,39 @@
 // Snapping while moving: to a grid that follows the zoom, and onto a wall when the point comes within reach of one.
 import type { Point } from '../../model/geometry';
 import type { Item } from '../../model/document';
+import { M_PER_FT, type Units } from '../../model/units';
 
 /** The grid without a view (keys, tests, the program): 0.1 m. */
 export const GRID_STEP_M = 0.1;
+/** The same in feet and inches: 3 in. */
+const GRID_STEP_IMPERIAL_M = 0.25 * M_PER_FT;
 const WALL_SNAP_M = 0.2;
 const END_SNAP_M = 0.25;
 
 /** The grid steps a drag can snap to, finest first (metres). */
 export const GRID_STEPS_M = [0.01, 0.02, 0.05, 0.1, 0.25, 0.5, 1, 2, 5] as const;
+/** The same for someone who works in feet and inches: ½, 1, 2, 3 and 6 in, then 1, 2, 5, 10 and 20 ft (in metres). */
+export const GRID_STEPS_IMPERIAL_M = [1 / 24, 1 / 12, 1 / 6, 1 / 4, 1 / 2, 1, 2, 5, 10, 20].map((ft) => ft * M_PER_FT);
+/** Where the grid's heavier lines fall: whole metres, or whole feet. */
+export const gridMajorM = (units: Units = 'metric') => (units === 'imperial' ? M_PER_FT : 1);
 /** A step is at least this many screen pixels, so a finger lands on the point it means (and not the next). */
 export const GRID_MIN_PX = 20;
 
 /**
  * The snapping grid at a zoom (pixels per metre): the finest step still at least GRID_MIN_PX on screen — 0.5 m
  * on a phone showing the whole 8 × 6 m stage (about 42 px/m), 0.25 m wide, 0.1 m or finer zoomed in, 1–2 m
- * zoomed far out. Without a zoom, GRID_STEP_M.
+ * zoomed far out; in feet and inches (`units` imperial) the same from GRID_STEPS_IMPERIAL_M (6 in on that phone,
+ * 3 in wide). Without a zoom, GRID_STEP_M (3 in).
  */
-export function gridStepM(scale: number | null | undefined): number {
-  if (!scale || !Number.isFinite(scale) || scale <= 0) return GRID_STEP_M;
-  return GRID_STEPS_M.find((step) => step * scale >= GRID_MIN_PX) ?? 5;
+export function gridStepM(scale: number | null | undefined, units: Units = 'metric'): number {
+  const steps = units === 'imperial' ? GRID_STEPS_IMPERIAL_M : GRID_STEPS_M;
+  if (!scale || !Number.isFinite(scale) || scale <= 0) return units === 'imperial' ? GRID_STEP_IMPERIAL_M : GRID_STEP_M;
+  return steps.find((step) => step * scale >= GRID_MIN_PX) ?? steps[steps.length - 1]!;
 }
 
-/** Round to a step, without binary fractions' dust (0.30000000000000004). */
-const snapToGrid = (v: number, step: number) => Math.round(Math.round(v / step) * step * 1000) / 1000;
+/** Round to a step, without binary fractions' dust (0.30000000000000004): to a tenth of a millimetre, so a
+ *  step in inches keeps its inch (8 ft is 2.4384 m). */
+const snapToGrid = (v: number, step: number) => Math.round(Math.round(v / step) * step * 10000) / 10000;
 
 function projectOnSegment(p: Point, a: Point, b: Point): { point: Point; d: number } {
   const dx = b.x - a.x;

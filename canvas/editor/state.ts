@@ -4,6 +4,7 @@
 import type { Item, SetupDocument } from '../../model/document';
 import type { Point } from '../../model/geometry';
 import type { Camera } from './camera';
+import type { Units } from '../../model/units';
 
 /** What a pointer is: a finger is fatter than a mouse (hit tolerance), and a mouse on a wide screen draws
  *  selection boxes where a finger pans. */
@@ -16,6 +17,8 @@ export type InputState = {
   shift: boolean;
   /** Empty-space mouse drags draw a selection box (a wide screen) rather than pan. */
   boxSelect: boolean;
+  /** The units the plan is shown in: a drag snaps to a grid of metres, or of feet and inches. */
+  units: Units;
 };
 
 export type EditorState = {
@@ -74,7 +77,7 @@ export function initialState(doc: SetupDocument, opts: InitialOptions = {}): Edi
     meta: { title: opts.title ?? '', notes: opts.notes ?? '' },
     camera: null,
     viewport: { w: 0, h: 0, insetBottom: 0 },
-    input: { space: false, shift: false, boxSelect: false },
+    input: { space: false, shift: false, boxSelect: false, units: 'metric' },
     gesture: null,
     box: null,
     visibleIds: null,
