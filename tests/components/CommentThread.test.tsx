@@ -34,7 +34,7 @@ const pinned: SetupComment = {
 
 afterEach(() => vi.unstubAllGlobals());
 
-it('shows its pins on a plan of the setup without running the meter, as the plan changes too', async () => {
+it('shows a pinned comment beside a plan of the setup without running the meter, as the plan changes too (the pin marker itself needs a laid-out plan: e2e comment-pins)', async () => {
   vi.stubGlobal(
     'fetch',
     vi.fn(async (input: string | URL | Request) => {
