@@ -8,7 +8,8 @@ import { createLightMapCache, lightMap, meterParsed, parseScene, type LightInput
 import { buildOccluders } from '../../../calc/flatScene';
 import { millimetres } from '../../../calc/lightmap';
 import { bounceCoarse, bounceSplit, buildGeometry } from '../../../calc/lightmap-grid';
-import { buildRoom, resetRoomCache } from '../../../calc/room';
+import { polygonIrradiancePerLuminance } from '../../../calc/bounce';
+import { buildRoom, polygonFlat, polygonResponse, polygonSolidAngle, resetRoomCache } from '../../../calc/room';
 import { castShadows, castShadowsSum } from '../../../calc/shadows';
 
 const softbox = (id: string, x: number, y: number, aimDeg: number): LightInput =>
@@ -155,6 +156,86 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
       }),
       { numRuns: 60 },
     );
+  });
+
+  it('a face’s polygon integrals (one contour term per edge, the dome’s signed cosine unclipped, the solid angle by one atan2) equal the plain clipped sums', () => {
+    // Plain: Lambert's contour integral over the polygon clipped to the horizon (bounce.ts, list form); the solid
+    // angle as the sum of Van Oosterom–Strackee triangles; the dome as ½(flat along the axis − flat along its
+    // reverse) + ½Ω.
+    const plainSolid = (p: number[][]) => {
+      const len = (v: number[]) => Math.hypot(v[0]!, v[1]!, v[2]!);
+      const dot = (u: number[], v: number[]) => u[0]! * v[0]! + u[1]! * v[1]! + u[2]! * v[2]!;
+      const a = p[0]!;
+      let s = 0;
+      for (let i = 1; i + 1 < p.length; i++) {
+        const b = p[i]!;
+        const c = p[i + 1]!;
+        const triple = a[0]! * (b[1]! * c[2]! - b[2]! * c[1]!) - a[1]! * (b[0]! * c[2]! - b[2]! * c[0]!) + a[2]! * (b[0]! * c[1]! - b[1]! * c[0]!);
+        const den = len(a) * len(b) * len(c) + dot(a, b) * len(c) + dot(a, c) * len(b) + dot(b, c) * len(a);
+        s += Math.abs(2 * Math.atan2(triple, den));
+      }
+      return s;
+    };
+    const unit = fc.tuple(fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true })).filter(([x, y, z]) => Math.hypot(x, y, z) > 0.1);
+    const arb = fc.record({
+      corners: fc.constantFrom(4, 8),
+      reversed: fc.boolean(),
+      u: unit,
+      w: unit,
+      centre: fc.tuple(fc.double({ min: -3, max: 3, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true })),
+      radius: fc.double({ min: 0.02, max: 1.2, noNaN: true }),
+      aspect: fc.double({ min: 0.25, max: 1, noNaN: true }),
+      n: unit,
+    });
+    let crossing = 0;
+    let checked = 0;
+    fc.assert(
+      fc.property(arb, ({ corners, reversed, u, w, centre, radius, aspect, n }) => {
+        // Two unit vectors across the face's plane (w made perpendicular to u).
+        const ul = Math.hypot(...u);
+        const uu = u.map((x) => x / ul);
+        const wd = w[0] * uu[0]! + w[1] * uu[1]! + w[2] * uu[2]!;
+        const wp = w.map((x, i) => x - wd * uu[i]!);
+        const wl = Math.hypot(...wp);
+        if (wl < 1e-3) return;
+        const ww = wp.map((x) => x / wl);
+        // Not within a micrometre of the face's plane, where both forms are ill-conditioned (checked apart below).
+        const m = [uu[1]! * ww[2]! - uu[2]! * ww[1]!, uu[2]! * ww[0]! - uu[0]! * ww[2]!, uu[0]! * ww[1]! - uu[1]! * ww[0]!];
+        if (Math.abs(m[0]! * centre[0] + m[1]! * centre[1] + m[2]! * centre[2]) < 1e-6) return;
+        const pts: number[][] = [];
+        for (let i = 0; i < corners; i++) {
+          const a = ((i + 0.5) * 2 * Math.PI) / corners;
+          const x = Math.cos(a) * radius;
+          const y = Math.sin(a) * radius * aspect;
+          pts.push([0, 1, 2].map((c) => centre[c]! + uu[c]! * x + ww[c]! * y));
+        }
+        if (reversed) pts.reverse();
+        const nl = Math.hypot(...n);
+        const [nx, ny, nz] = n.map((x) => x / nl) as [number, number, number];
+        const buf = Float64Array.from(pts.flat());
+        const V = pts.map(([x, y, z]) => ({ x: x!, y: y!, z: z! }));
+        const flat = polygonIrradiancePerLuminance(V, { x: nx, y: ny, z: nz });
+        const back = polygonIrradiancePerLuminance(V, { x: -nx, y: -ny, z: -nz });
+        const omega = plainSolid(pts);
+        if (flat > 0 && back > 0) crossing++;
+        checked++;
+        const tol = 1e-9 * omega + 1e-15;
+        expect(Math.abs(polygonFlat(buf, corners, nx, ny, nz) - flat)).toBeLessThanOrEqual(tol);
+        expect(Math.abs(polygonSolidAngle(buf, corners) - omega)).toBeLessThanOrEqual(tol);
+        const dome = polygonResponse(buf, corners, { x: 0, y: 0, z: 0, nx, ny, nz, kind: 'dome' });
+        expect(Math.abs(dome - Math.max(0, 0.5 * (flat - back) + 0.5 * omega))).toBeLessThanOrEqual(tol);
+        expect(polygonResponse(buf, corners, { x: 0, y: 0, z: 0, nx, ny, nz, kind: 'flat' })).toBe(polygonFlat(buf, corners, nx, ny, nz));
+      }),
+      { numRuns: 3000 },
+    );
+    // Faces across the receptor's horizon (both halves lit) were among them.
+    expect(crossing).toBeGreaterThan(checked / 10);
+    // The point on the face's plane (its own plane through the receptor): the plain halves, not the oriented sum.
+    const inPlane = Float64Array.from([1, -0.5, -0.5, 1, 0.5, -0.5, 1, 0.5, 0.5, 1, -0.5, 0.5].map((v, i) => (i % 3 === 0 ? 0 : v) + (i % 3 === 1 ? 1 : 0)));
+    const V = Array.from({ length: 4 }, (_, k) => ({ x: inPlane[3 * k]!, y: inPlane[3 * k + 1]!, z: inPlane[3 * k + 2]! }));
+    const flat = polygonIrradiancePerLuminance(V, { x: 0, y: 1, z: 0 });
+    const back = polygonIrradiancePerLuminance(V, { x: 0, y: -1, z: 0 });
+    expect(polygonResponse(inPlane, 4, { x: 0, y: 0, z: 0, nx: 0, ny: 1, nz: 0, kind: 'dome' })).toBeCloseTo(Math.max(0, 0.5 * (flat - back)), 12);
   });
 
   it('a light’s bounce from its parts (first bounce on the patches it reaches, later bounces on the coarse patches) equals the pass over its total', () => {
