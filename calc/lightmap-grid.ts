@@ -11,7 +11,7 @@ import type { LightMapGrid } from './lightmap';
 import { PROFILE_LUT_SIZE } from './modifiers';
 import { type FieldReceptor, type Room, type RoomLight, type Weights, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse, patchWeights } from './room';
 import type { Scene } from './sceneSchema';
-import { castShadows, castShadowsSum } from './shadows';
+import { castShadows, castShadowsCount, castShadowsSum } from './shadows';
 import { DEG } from './vec';
 
 const DEFAULT_BOUNCE_STEP = 4;
@@ -65,6 +65,8 @@ export type Geometry = {
   nzs: Float64Array;
   /** Occluders without the subject's body, and the body alone (it does not shade points inside it). */
   occ: Occluders;
+  /** Every occluder in `occ` opaque (or clear): a big face's shadows are counted by runs (castShadowsCount). */
+  occOpaque: boolean;
   body: Occluders | null;
   inBody: Uint8Array | null;
   /** Coarse bounce grid: every `step`-th point; kernel[p·nK + k] = response of coarse point k to room patch p, signed by side. */
@@ -418,6 +420,7 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
     nys,
     nzs,
     occ: room.occFree,
+    occOpaque: room.occFree.transmission.every((t) => t === 0 || t === 1),
     body,
     inBody,
     step,
@@ -436,11 +439,33 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
 let shadowCur = new Float32Array(0);
 let shadowStamp = new Int32Array(0);
 let shadowId = 0;
+let shadowDiff = new Int32Array(0);
 
 /** Shadows of one light on the grid: walls and flags from the light (or the 16 points of a big face), then the body. */
 function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
-  out.fill(1);
-  if (L.face) {
+  if (L.face && g.occOpaque) {
+    // Opaque occluders: each sample's shadows as runs of cells per row (castShadowsCount), counted in one
+    // difference row; the running sum is how many samples see a cell shaded, and the mean transmission is
+    // (count − shaded)/count — castShadowsSum's numbers (whole counts, so exactly) with no work per covered cell.
+    const { nx, ny } = g.frame;
+    const w = nx + 1;
+    if (shadowDiff.length !== ny * w) shadowDiff = new Int32Array(ny * w);
+    else shadowDiff.fill(0);
+    const diff = shadowDiff;
+    const pts = faceSamplePoints(L, L.face);
+    for (const [sx, sy, sz] of pts) castShadowsCount(g.occ, sx, sy, sz, g.z, g.frame, diff);
+    const m = pts.length;
+    const inv = 1 / m;
+    for (let j = 0; j < ny; j++) {
+      const row = j * nx;
+      const drow = j * w;
+      let c = 0;
+      for (let i = 0; i < nx; i++) {
+        c += diff[drow + i]!;
+        out[row + i] = (m - c) * inv;
+      }
+    }
+  } else if (L.face) {
     // Mean transmission over the face's points: out sums what each point's shadows take (1 − t, each point's
     // shadows once, over the cells they cover), then becomes (count − sum)/count. Opaque shadows sum whole
     // numbers, so a point every sample sees shaded is exactly 0, as the mean of the samples.
@@ -461,7 +486,10 @@ function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Ar
     const m = pts.length;
     const inv = 1 / m;
     for (let k = 0; k < g.n; k++) out[k] = (m - out[k]!) * inv;
-  } else castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
+  } else {
+    out.fill(1);
+    castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
+  }
   if (g.body && g.inBody) {
     tmp.fill(1);
     castShadows(g.body, L.px, L.py, L.pz, g.z, g.frame, tmp);

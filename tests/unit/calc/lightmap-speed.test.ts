@@ -10,7 +10,7 @@ import { millimetres } from '../../../calc/lightmap';
 import { bounceCoarse, bounceSplit, buildGeometry } from '../../../calc/lightmap-grid';
 import { polygonIrradiancePerLuminance } from '../../../calc/bounce';
 import { buildRoom, polygonFlat, polygonResponse, polygonSolidAngle, resetRoomCache } from '../../../calc/room';
-import { castShadows, castShadowsSum } from '../../../calc/shadows';
+import { castShadows, castShadowsCount, castShadowsSum } from '../../../calc/shadows';
 
 const softbox = (id: string, x: number, y: number, aimDeg: number): LightInput =>
   ({ id, kind: 'flash', x, y, heightM: 2, aimDeg, tiltDeg: -10, output: { type: 'energy', ratedWs: 400 }, modifier: 'softbox' }) as LightInput;
@@ -236,6 +236,76 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
     const flat = polygonIrradiancePerLuminance(V, { x: 0, y: 1, z: 0 });
     const back = polygonIrradiancePerLuminance(V, { x: 0, y: -1, z: 0 });
     expect(polygonResponse(inPlane, 4, { x: 0, y: 0, z: 0, nx: 0, ny: 1, nz: 0, kind: 'dome' })).toBeCloseTo(Math.max(0, 0.5 * (flat - back)), 12);
+  });
+
+  it('a face’s shadows counted by runs per row equal the summed shadows, exactly (property: random opaque flags, overlapping and tilted, walls on the grid’s edge)', () => {
+    const arb = fc.record({
+      samples: fc.array(fc.tuple(fc.double({ min: 0, max: 6, noNaN: true }), fc.double({ min: 0, max: 5, noNaN: true }), fc.double({ min: 0.2, max: 3.5, noNaN: true })), { minLength: 1, maxLength: 16 }),
+      flags: fc.array(
+        fc.record({
+          x1: fc.double({ min: -1, max: 7, noNaN: true }),
+          y1: fc.double({ min: -1, max: 6, noNaN: true }),
+          dx: fc.double({ min: -2, max: 2, noNaN: true }),
+          dy: fc.double({ min: -2, max: 2, noNaN: true }),
+          base: fc.double({ min: 0, max: 2, noNaN: true }),
+          h: fc.double({ min: 0.1, max: 3, noNaN: true }),
+          tilt: fc.constantFrom(0, 0, 35, -60),
+        }),
+        { minLength: 1, maxLength: 6 },
+      ),
+    });
+    const frame = { nx: 25, ny: 21, x0: 0, y0: 0, dx: 0.25, dy: 0.25 };
+    const n = frame.nx * frame.ny;
+    const cur = new Float32Array(n);
+    const stamp = new Int32Array(n);
+    let id = 0;
+    let overlapping = 0;
+    fc.assert(
+      fc.property(arb, ({ samples, flags }) => {
+        const s = parseScene(
+          studio({
+            flags: flags
+              .filter((f) => Math.hypot(f.dx, f.dy) > 0.05)
+              .map((f, i) => ({ id: `f${i}`, x1: f.x1, y1: f.y1, x2: f.x1 + f.dx, y2: f.y1 + f.dy, baseM: f.base, topM: f.base + f.h, tiltDeg: f.tilt }))
+              // Two flags one behind the other: their shadows overlap from most sources.
+              .concat([
+                { id: 'pa', x1: 2, y1: 2, x2: 3.2, y2: 2, baseM: 0, topM: 3, tiltDeg: 0 },
+                { id: 'pb', x1: 2.2, y1: 2.4, x2: 3.4, y2: 2.4, baseM: 0, topM: 3, tiltDeg: 0 },
+              ]),
+          }),
+        );
+        const o = buildOccluders(s);
+        expect([...o.transmission].every((t) => t === 0 || t === 1)).toBe(true);
+        const sum = new Float32Array(n);
+        const diff = new Int32Array(frame.ny * (frame.nx + 1));
+        const one = new Float32Array(n);
+        for (const [x, y, z] of samples) {
+          castShadowsSum(o, x, y, z, 1.6, frame, sum, cur, stamp, ++id);
+          castShadowsCount(o, x, y, z, 1.6, frame, diff);
+          // Cells two shadows of this sample cover (the runs merged there).
+          one.fill(1);
+          let twice = 0;
+          for (let q = 0; q < o.count; q++) {
+            const single = { ...o, count: 1, ax: o.ax.subarray(q), ay: o.ay.subarray(q), ex: o.ex.subarray(q), ey: o.ey.subarray(q), zLo: o.zLo.subarray(q), zHi: o.zHi.subarray(q), transmission: o.transmission.subarray(q), surface: o.surface.subarray(q), tilted: o.tilted?.subarray(q), vx: o.vx?.subarray(q), vy: o.vy?.subarray(q), vz: o.vz?.subarray(q) };
+            const t = new Float32Array(n).fill(1);
+            castShadows(single, x, y, z, 1.6, frame, t);
+            for (let k = 0; k < n; k++) if (t[k] === 0 && one[k] === 0) twice++;
+            for (let k = 0; k < n; k++) if (t[k] === 0) one[k] = 0;
+          }
+          if (twice > 0) overlapping++;
+        }
+        for (let j = 0; j < frame.ny; j++) {
+          let c = 0;
+          for (let i = 0; i < frame.nx; i++) {
+            c += diff[j * (frame.nx + 1) + i]!;
+            expect(c).toBe(sum[j * frame.nx + i]);
+          }
+        }
+      }),
+      { numRuns: 80 },
+    );
+    // Shadows of one sample overlapped in some of the cases (the merge was tested).
+    expect(overlapping).toBeGreaterThan(20);
   });
 
   it('a light’s bounce from its parts (first bounce on the patches it reaches, later bounces on the coarse patches) equals the pass over its total', () => {
