@@ -550,6 +550,8 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
   const dz2 = dz * dz;
   const azdz = L.az * dz;
   const R2 = L.faceR2;
+  // Imported constants read once: a module's binding may be a getter (CommonJS builds), called per point otherwise.
+  const minD2 = MIN_DISTANCE_SQ_M2;
   const lut = L.lut;
   const last = PROFILE_LUT_SIZE - 1;
   const kind = g.kind === 'dome' ? 1 : g.kind === 'pointed' ? 2 : 0;
@@ -580,9 +582,9 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
     const a = lut[j]!;
     const prof = a + (lut[j + 1]! - a) * (f - j);
     const e2 = d2 + R2;
-    // Math.max, not a ternary: the imported constant is a module variable to V8, and a ternary between it and e2
-    // made the optimised loop box e2 as a heap number at every point (garbage a frame); equal for e2 ≥ 0.
-    const w = (I * prof * resp) / Math.max(e2, MIN_DISTANCE_SQ_M2);
+    // Math.max, not a ternary: a ternary between the clamp and e2 made the optimised loop box e2 as a heap number
+    // at every point (garbage a frame); equal for e2 ≥ 0.
+    const w = (I * prof * resp) / Math.max(e2, minD2);
     out[k] = w * t;
     if (pf) pf[k] = w;
   }
