@@ -491,12 +491,29 @@ function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Ar
     castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
   }
   if (g.body && g.inBody) {
-    tmp.fill(1);
-    castShadows(g.body, L.px, L.py, L.pz, g.z, g.frame, tmp);
+    // The body's shadow, multiplied in over the cells it covers alone (castShadows reports its rows and each
+    // row's columns), in a buffer kept all 1 between calls (those cells are put back): before, a fill and a
+    // multiply over the whole grid per light, for a shadow of a few hundred cells. Cells outside it were × 1.
+    const { nx, ny } = g.frame;
+    if (bodyShade.length !== g.n) bodyShade = new Float32Array(g.n).fill(1);
+    if (bodySpans.length !== 2 * ny) bodySpans = new Int32Array(2 * ny);
+    const shade = bodyShade;
+    const spans = bodySpans;
+    castShadows(g.body, L.px, L.py, L.pz, g.z, g.frame, shade, -1, bodyRows, spans);
     const inB = g.inBody;
-    for (let k = 0; k < g.n; k++) if (inB[k] === 0) out[k]! *= tmp[k]!;
+    for (let j = bodyRows[0]!; j <= bodyRows[1]!; j++) {
+      const row = j * nx;
+      for (let k = row + spans[2 * j]!; k <= row + spans[2 * j + 1]!; k++) {
+        if (inB[k] === 0) out[k]! *= shade[k]!;
+        shade[k] = 1;
+      }
+    }
   }
 }
+
+let bodyShade = new Float32Array(0);
+let bodySpans = new Int32Array(0);
+const bodyRows = new Int32Array(2);
 
 const rBuf: FieldReceptor = { x: 0, y: 0, z: 0, nx: 1, ny: 0, nz: 0, kind: 'flat' };
 

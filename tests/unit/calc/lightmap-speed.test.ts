@@ -7,7 +7,7 @@ import { describe, expect, it, vi } from 'vitest';
 import { createLightMapCache, lightMap, meterParsed, parseScene, type LightInput, type LightMapGrid, type SceneInput } from '../../../calc';
 import { buildOccluders } from '../../../calc/flatScene';
 import { millimetres } from '../../../calc/lightmap';
-import { bounceCoarse, bounceSplit, buildGeometry } from '../../../calc/lightmap-grid';
+import { bounceCoarse, bounceSplit, buildGeometry, directGrid } from '../../../calc/lightmap-grid';
 import { polygonIrradiancePerLuminance } from '../../../calc/bounce';
 import { buildRoom, polygonFlat, polygonResponse, polygonSolidAngle, resetRoomCache } from '../../../calc/room';
 import { castShadows, castShadowsCount, castShadowsSum } from '../../../calc/shadows';
@@ -306,6 +306,34 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
     );
     // Shadows of one sample overlapped in some of the cases (the merge was tested).
     expect(overlapping).toBeGreaterThan(20);
+  });
+
+  it('the body’s shadow multiplied in over the cells it covers equals a whole-grid multiply, light after light', () => {
+    resetRoomCache();
+    const scene = parseScene(studio({ subject: { x: 3, y: 2.5, heightM: 1.6, facingDeg: 0, body: { widthM: 0.45, depthM: 0.25, topM: 1.7 } } }));
+    const room = buildRoom(scene);
+    // Under the shoulders: the torso's and the head's shadows lie apart along some rows, cells between them unshaded.
+    const g = buildGeometry(room, { x0: 0, y0: 0, x1: 6, y1: 5, nx: 61, ny: 51, heightM: 1.2 }, 'test');
+    expect(g.body).not.toBeNull();
+    const bare = { ...g, body: null, inBody: null };
+    const out = new Float32Array(g.n);
+    const plain = new Float32Array(g.n);
+    const tmp = new Float32Array(g.n);
+    const shade = new Float32Array(g.n);
+    let shaded = 0;
+    // Twice over the lights: a cell left shaded from one light would show in the next.
+    for (const L of [...room.lights, ...room.lights]) {
+      directGrid(L, g, out, tmp);
+      directGrid(L, bare, plain, tmp);
+      shade.fill(1);
+      castShadows(g.body!, L.px, L.py, L.pz, g.z, g.frame, shade);
+      for (let k = 0; k < g.n; k++) {
+        if (g.inBody![k] === 0) plain[k]! *= shade[k]!;
+        if (shade[k] === 0 && g.inBody![k] === 0 && plain[k] === 0 && out[k] === 0) shaded++;
+        expect(out[k]).toBe(plain[k]);
+      }
+    }
+    expect(shaded).toBeGreaterThan(100);
   });
 
   it('a light’s bounce from its parts (first bounce on the patches it reaches, later bounces on the coarse patches) equals the pass over its total', () => {
