@@ -9,7 +9,7 @@ import { buildOccluders } from '../../../calc/flatScene';
 import { millimetres } from '../../../calc/lightmap';
 import { bounceCoarse, bounceSplit, buildGeometry, directGrid } from '../../../calc/lightmap-grid';
 import { polygonIrradiancePerLuminance } from '../../../calc/bounce';
-import { buildRoom, polygonFlat, polygonResponse, polygonSolidAngle, resetRoomCache } from '../../../calc/room';
+import { buildRoom, directLux, polygonFlat, polygonResponse, polygonSolidAngle, resetRoomCache } from '../../../calc/room';
 import { castShadows, castShadowsCount, castShadowsSum } from '../../../calc/shadows';
 
 const softbox = (id: string, x: number, y: number, aimDeg: number): LightInput =>
@@ -334,6 +334,36 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
       }
     }
     expect(shaded).toBeGreaterThan(100);
+  });
+
+  it('the map’s direct loop reads directLux at every lit point (point sources, dome and flat)', () => {
+    for (const receptor of ['dome-camera', 'flat-face'] as const) {
+      resetRoomCache();
+      const scene = parseScene(studio({ options: { receptor } }));
+      const room = buildRoom(scene);
+      const g = buildGeometry(room, { x0: 0, y0: 0, x1: 6, y1: 5, nx: 61, ny: 51 }, 'test');
+      const out = new Float32Array(g.n);
+      const tmp = new Float32Array(g.n);
+      const points = room.lights.filter((L) => !L.face);
+      expect(points.length).toBe(2);
+      for (const L of points) {
+        directGrid(L, g, out, tmp);
+        let lit = 0;
+        let edge = 0;
+        for (let k = 0; k < g.n; k++) {
+          const want = directLux(L, g.occ, { x: g.px[k]!, y: g.py[k]!, z: g.z, nx: g.nxs[k]!, ny: g.nys[k]!, nz: g.nzs[k]!, kind: g.kind === 'dome' ? 'dome' : 'flat' });
+          // A shadow's edge may fall either side of a point on it (raster and ray test): counted, not compared.
+          if ((want === 0) !== (out[k] === 0)) {
+            edge++;
+            continue;
+          }
+          if (want > 0) lit++;
+          expect(Math.abs(out[k]! - want)).toBeLessThanOrEqual(2e-7 * want);
+        }
+        expect(lit).toBeGreaterThan(150);
+        expect(edge).toBeLessThan(g.n / 200);
+      }
+    }
   });
 
   it('a light’s bounce from its parts (first bounce on the patches it reaches, later bounces on the coarse patches) equals the pass over its total', () => {
