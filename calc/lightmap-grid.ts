@@ -602,8 +602,10 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
     // Math.max, not a ternary: a ternary between the clamp and e2 made the optimised loop box e2 as a heap number
     // at every point (garbage a frame); equal for e2 ≥ 0.
     const w = (I * prof * resp) / Math.max(e2, minD2);
-    out[k] = w * t;
+    // A big face keeps the shadows' transmission in out and the point form in pf (areaCorrection multiplies them
+    // by the face's ratio); a point source is done here.
     if (pf) pf[k] = w;
+    else out[k] = w * t;
   }
   if (face && pf) areaCorrection(L, g, out, pf);
 }
@@ -617,7 +619,7 @@ let ratioBuf = new Float64Array(0);
 let ratioDone = new Uint8Array(0);
 
 /**
- * Big faces: out holds point form × shadows, pf the point form alone. The exact value's ratio to the point
+ * Big faces: out holds the shadows' transmission, pf the point form. The exact value's ratio to the point
  * form varies smoothly except where the face crosses a point's horizon; it is found on a coarse grid and
  * interpolated. Coarse cells near the light, or whose corners disagree by over a factor of two, get the ratio
  * every AREA_FINE_STRIDE points; within them, a fine cell whose corners still disagree (by over
@@ -711,9 +713,14 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
     for (let i = 0; i < nx; i++) {
       const k = j * nx + i;
       const p = pf[k]!;
-      // Fully shaded points stay dark (their ratio is still defined, as a corner for their neighbours).
-      if (!(p > 0) || out[k] === 0) continue;
-      const t = out[k]! / p;
+      // out holds the shadows' transmission here. Fully shaded points stay dark (their ratio is still defined, as a
+      // corner for their neighbours); so do points with no point-form light.
+      const t = out[k]!;
+      if (!(p > 0)) {
+        out[k] = 0;
+        continue;
+      }
+      if (t === 0) continue;
       const a = colA[i]!;
       if (fine[fineRow + a] === 1) {
         const ia = colIa[i]!;
