@@ -399,8 +399,11 @@ export function polygonSolidAngle(pts: Float64Array, n: number): number {
     if (!(Math.abs(triple) > 1e-9 * la * lb * lc)) return solidAngleByTriangles(pts, n);
     if (triple > 0) pos = true;
     else neg = true;
-    // Scaled to |den| + |triple| = 1 (the argument is all that counts), so the product neither overflows nor underflows.
-    const s = 1 / (Math.abs(den) + Math.abs(triple));
+    // Scaled to |den| + |triple| = 1 (the argument is all that counts), so the product neither overflows nor
+    // underflows; corners a hair from the point (lengths near the smallest doubles) take the plain sum.
+    const size = Math.abs(den) + Math.abs(triple);
+    if (!(size > 1e-290)) return solidAngleByTriangles(pts, n);
+    const s = 1 / size;
     const d = den * s;
     const t = triple * s;
     const r2 = re * d - im * t;

@@ -236,6 +236,10 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
     const flat = polygonIrradiancePerLuminance(V, { x: 0, y: 1, z: 0 });
     const back = polygonIrradiancePerLuminance(V, { x: 0, y: -1, z: 0 });
     expect(polygonResponse(inPlane, 4, { x: 0, y: 0, z: 0, nx: 0, ny: 1, nz: 0, kind: 'dome' })).toBeCloseTo(Math.max(0, 0.5 * (flat - back)), 12);
+    // A corner a hair from the point (the property test's wall corner 2.5e-323 m from the subject): finite, as the plain sum.
+    const hair = Float64Array.from([0, -2.5e-323, 0, 0.2, -2.5e-323, 0, 0.2, -2.5e-323, 0.5, 0, -2.5e-323, 0.5]);
+    expect(Number.isFinite(polygonSolidAngle(hair, 4))).toBe(true);
+    expect(Number.isFinite(polygonResponse(hair, 4, { x: 0, y: 0, z: 0, nx: 1, ny: 0, nz: 0, kind: 'dome' }))).toBe(true);
   });
 
   it('a face’s shadows counted by runs per row equal the summed shadows, exactly (property: random opaque flags, overlapping and tilted, walls on the grid’s edge)', () => {
