@@ -442,7 +442,7 @@ let shadowId = 0;
 let shadowDiff = new Int32Array(0);
 
 /** Shadows of one light on the grid: walls and flags from the light (or the 16 points of a big face), then the body. */
-function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
+function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array): void {
   if (L.face && g.occOpaque) {
     // Opaque occluders: each sample's shadows as runs of cells per row (castShadowsCount), counted in one
     // difference row; the running sum is how many samples see a cell shaded, and the mean transmission is
@@ -557,8 +557,9 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
     out.fill(0);
     return;
   }
-  shadowGrid(L, g, out, tmp);
-  const { px, py, nxs, nys, nzs, n } = g;
+  shadowGrid(L, g, out);
+  const { nxs, nys, nzs } = g;
+  const { nx, ny, x0, y0, dx: gdx, dy: gdy } = g.frame;
   const lpx = L.px;
   const lpy = L.py;
   const lax = L.ax;
@@ -576,36 +577,42 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
   const face = L.face;
   // For big faces keep the point form (with shadows) to scale by the exact/point ratio below.
   const pf = face ? tmp : null;
-  for (let k = 0; k < n; k++) {
-    const t = out[k]!;
-    if (pf) pf[k] = 0;
-    // Shaded points of a big face keep their point form (pf): the exact/point ratio stays defined through shadows.
-    if (t === 0 && !pf) continue;
-    const dx = px[k]! - lpx;
-    const dy = py[k]! - lpy;
-    const d2 = dx * dx + dy * dy + dz2;
-    // A grid point on the light itself: directions are undefined; the clamp keeps every cosine in [−1, 1].
-    const invD = 1 / Math.sqrt(d2 > 1e-12 ? d2 : 1e-12);
-    const cosInc = -(dx * nxs[k]! + dy * nys[k]! + dz * nzs[k]!) * invD;
-    const resp = kind === 0 ? cosInc : kind === 1 ? (1 + cosInc) * 0.5 : 1;
-    if (!(resp > 1e-9) || (onWall && behindOwnWall(L, px[k]!, py[k]!))) {
-      out[k] = 0;
-      continue;
+  // Point (i, j) at (x0 + i·dx, y0 + j·dy), as buildGeometry placed it (the same doubles), computed rather than
+  // read: two fewer arrays streamed per point.
+  for (let j = 0, k = 0; j < ny; j++) {
+    const y = y0 + j * gdy;
+    const dy = y - lpy;
+    for (let i = 0; i < nx; i++, k++) {
+      const t = out[k]!;
+      if (pf) pf[k] = 0;
+      // Shaded points of a big face keep their point form (pf): the exact/point ratio stays defined through shadows.
+      if (t === 0 && !pf) continue;
+      const x = x0 + i * gdx;
+      const dx = x - lpx;
+      const d2 = dx * dx + dy * dy + dz2;
+      // A grid point on the light itself: directions are undefined; the clamp keeps every cosine in [−1, 1].
+      const invD = 1 / Math.sqrt(d2 > 1e-12 ? d2 : 1e-12);
+      const cosInc = -(dx * nxs[k]! + dy * nys[k]! + dz * nzs[k]!) * invD;
+      const resp = kind === 0 ? cosInc : kind === 1 ? (1 + cosInc) * 0.5 : 1;
+      if (!(resp > 1e-9) || (onWall && behindOwnWall(L, x, y))) {
+        out[k] = 0;
+        continue;
+      }
+      // Beam profile from the table indexed by sin(θ/2) (see modifiers.profileLut), inlined.
+      const u2 = (1 - (dx * lax + dy * lay + azdz) * invD) * 0.5;
+      const f = (u2 > 0 ? Math.sqrt(u2) : 0) * last;
+      const q = f | 0;
+      const a = lut[q]!;
+      const prof = a + (lut[q + 1]! - a) * (f - q);
+      const e2 = d2 + R2;
+      // Math.max, not a ternary: a ternary between the clamp and e2 made the optimised loop box e2 as a heap number
+      // at every point (garbage a frame); equal for e2 ≥ 0.
+      const w = (I * prof * resp) / Math.max(e2, minD2);
+      // A big face keeps the shadows' transmission in out and the point form in pf (areaCorrection multiplies them
+      // by the face's ratio); a point source is done here.
+      if (pf) pf[k] = w;
+      else out[k] = w * t;
     }
-    // Beam profile from the table indexed by sin(θ/2) (see modifiers.profileLut), inlined.
-    const u2 = (1 - (dx * lax + dy * lay + azdz) * invD) * 0.5;
-    const f = (u2 > 0 ? Math.sqrt(u2) : 0) * last;
-    const j = f | 0;
-    const a = lut[j]!;
-    const prof = a + (lut[j + 1]! - a) * (f - j);
-    const e2 = d2 + R2;
-    // Math.max, not a ternary: a ternary between the clamp and e2 made the optimised loop box e2 as a heap number
-    // at every point (garbage a frame); equal for e2 ≥ 0.
-    const w = (I * prof * resp) / Math.max(e2, minD2);
-    // A big face keeps the shadows' transmission in out and the point form in pf (areaCorrection multiplies them
-    // by the face's ratio); a point source is done here.
-    if (pf) pf[k] = w;
-    else out[k] = w * t;
   }
   if (face && pf) areaCorrection(L, g, out, pf);
 }

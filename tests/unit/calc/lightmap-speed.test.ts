@@ -350,6 +350,13 @@ describe('light map speed-ups give the plain computation’s numbers', () => {
       const tmp = new Float32Array(g.n);
       const points = room.lights.filter((L) => !L.face);
       expect(points.length).toBe(2);
+      // The loop computes each point's place as x0 + i·dx, y0 + j·dy: the same doubles the geometry holds.
+      for (let k = 0; k < g.n; k++) {
+        const i = k % g.frame.nx;
+        const j = (k - i) / g.frame.nx;
+        expect(g.frame.x0 + i * g.frame.dx).toBe(g.px[k]);
+        expect(g.frame.y0 + j * g.frame.dy).toBe(g.py[k]);
+      }
       for (const L of points) {
         directGrid(L, g, out, tmp);
         let lit = 0;
