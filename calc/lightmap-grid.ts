@@ -59,10 +59,10 @@ export type Geometry = {
   kind: MapReceptorKind;
   px: Float64Array;
   py: Float64Array;
-  /** Receptor normal of each point (3-D unit; for 'pointed' the dome's, used for the bounce). */
-  nxs: Float64Array;
-  nys: Float64Array;
-  nzs: Float64Array;
+  /** Receptor normal of each point (3-D unit, in float32: half the bytes the direct loop streams; for 'pointed' the dome's, used for the bounce). */
+  nxs: Float32Array;
+  nys: Float32Array;
+  nzs: Float32Array;
   /** Occluders without the subject's body, and the body alone (it does not shade points inside it). */
   occ: Occluders;
   /** Every occluder in `occ` opaque (or clear): a big face's shadows are counted by runs (castShadowsCount). */
@@ -316,9 +316,9 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
   const n = nx * ny;
   const px = new Float64Array(n);
   const py = new Float64Array(n);
-  const nxs = new Float64Array(n);
-  const nys = new Float64Array(n);
-  const nzs = new Float64Array(n);
+  const nxs = new Float32Array(n);
+  const nys = new Float32Array(n);
+  const nzs = new Float32Array(n);
   const body = bodyOccluders(scene);
   const inBody = body ? new Uint8Array(n) : null;
   for (let j = 0; j < ny; j++) {
