@@ -11,7 +11,7 @@ import type { LightMapGrid } from './lightmap';
 import { PROFILE_LUT_SIZE } from './modifiers';
 import { type FieldReceptor, type Room, type RoomLight, type Weights, areaUnshaded, behindOwnWall, bodyPanels, faceSamplePoints, patchResponse, patchWeights } from './room';
 import type { Scene } from './sceneSchema';
-import { castShadows, castShadowsSum } from './shadows';
+import { castShadows, castShadowsCount, castShadowsSum } from './shadows';
 import { DEG } from './vec';
 
 const DEFAULT_BOUNCE_STEP = 4;
@@ -59,12 +59,14 @@ export type Geometry = {
   kind: MapReceptorKind;
   px: Float64Array;
   py: Float64Array;
-  /** Receptor normal of each point (3-D unit; for 'pointed' the dome's, used for the bounce). */
-  nxs: Float64Array;
-  nys: Float64Array;
-  nzs: Float64Array;
+  /** Receptor normal of each point (3-D unit, in float32: half the bytes the direct loop streams; for 'pointed' the dome's, used for the bounce). */
+  nxs: Float32Array;
+  nys: Float32Array;
+  nzs: Float32Array;
   /** Occluders without the subject's body, and the body alone (it does not shade points inside it). */
   occ: Occluders;
+  /** Every occluder in `occ` opaque (or clear): a big face's shadows are counted by runs (castShadowsCount). */
+  occOpaque: boolean;
   body: Occluders | null;
   inBody: Uint8Array | null;
   /** Coarse bounce grid: every `step`-th point; kernel[p·nK + k] = response of coarse point k to room patch p, signed by side. */
@@ -314,9 +316,9 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
   const n = nx * ny;
   const px = new Float64Array(n);
   const py = new Float64Array(n);
-  const nxs = new Float64Array(n);
-  const nys = new Float64Array(n);
-  const nzs = new Float64Array(n);
+  const nxs = new Float32Array(n);
+  const nys = new Float32Array(n);
+  const nzs = new Float32Array(n);
   const body = bodyOccluders(scene);
   const inBody = body ? new Uint8Array(n) : null;
   for (let j = 0; j < ny; j++) {
@@ -418,6 +420,7 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
     nys,
     nzs,
     occ: room.occFree,
+    occOpaque: room.occFree.transmission.every((t) => t === 0 || t === 1),
     body,
     inBody,
     step,
@@ -436,11 +439,33 @@ export function buildGeometry(room: Room, grid: LightMapGrid, key: string): Geom
 let shadowCur = new Float32Array(0);
 let shadowStamp = new Int32Array(0);
 let shadowId = 0;
+let shadowDiff = new Int32Array(0);
 
 /** Shadows of one light on the grid: walls and flags from the light (or the 16 points of a big face), then the body. */
-function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Array): void {
-  out.fill(1);
-  if (L.face) {
+function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array): void {
+  if (L.face && g.occOpaque) {
+    // Opaque occluders: each sample's shadows as runs of cells per row (castShadowsCount), counted in one
+    // difference row; the running sum is how many samples see a cell shaded, and the mean transmission is
+    // (count − shaded)/count — castShadowsSum's numbers (whole counts, so exactly) with no work per covered cell.
+    const { nx, ny } = g.frame;
+    const w = nx + 1;
+    if (shadowDiff.length !== ny * w) shadowDiff = new Int32Array(ny * w);
+    else shadowDiff.fill(0);
+    const diff = shadowDiff;
+    const pts = faceSamplePoints(L, L.face);
+    for (const [sx, sy, sz] of pts) castShadowsCount(g.occ, sx, sy, sz, g.z, g.frame, diff);
+    const m = pts.length;
+    const inv = 1 / m;
+    for (let j = 0; j < ny; j++) {
+      const row = j * nx;
+      const drow = j * w;
+      let c = 0;
+      for (let i = 0; i < nx; i++) {
+        c += diff[drow + i]!;
+        out[row + i] = (m - c) * inv;
+      }
+    }
+  } else if (L.face) {
     // Mean transmission over the face's points: out sums what each point's shadows take (1 − t, each point's
     // shadows once, over the cells they cover), then becomes (count − sum)/count. Opaque shadows sum whole
     // numbers, so a point every sample sees shaded is exactly 0, as the mean of the samples.
@@ -461,14 +486,34 @@ function shadowGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Float32Ar
     const m = pts.length;
     const inv = 1 / m;
     for (let k = 0; k < g.n; k++) out[k] = (m - out[k]!) * inv;
-  } else castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
+  } else {
+    out.fill(1);
+    castShadows(g.occ, L.px, L.py, L.pz, g.z, g.frame, out);
+  }
   if (g.body && g.inBody) {
-    tmp.fill(1);
-    castShadows(g.body, L.px, L.py, L.pz, g.z, g.frame, tmp);
+    // The body's shadow, multiplied in over the cells it covers alone (castShadows reports its rows and each
+    // row's columns), in a buffer kept all 1 between calls (those cells are put back): before, a fill and a
+    // multiply over the whole grid per light, for a shadow of a few hundred cells. Cells outside it were × 1.
+    const { nx, ny } = g.frame;
+    if (bodyShade.length !== g.n) bodyShade = new Float32Array(g.n).fill(1);
+    if (bodySpans.length !== 2 * ny) bodySpans = new Int32Array(2 * ny);
+    const shade = bodyShade;
+    const spans = bodySpans;
+    castShadows(g.body, L.px, L.py, L.pz, g.z, g.frame, shade, -1, bodyRows, spans);
     const inB = g.inBody;
-    for (let k = 0; k < g.n; k++) if (inB[k] === 0) out[k]! *= tmp[k]!;
+    for (let j = bodyRows[0]!; j <= bodyRows[1]!; j++) {
+      const row = j * nx;
+      for (let k = row + spans[2 * j]!; k <= row + spans[2 * j + 1]!; k++) {
+        if (inB[k] === 0) out[k]! *= shade[k]!;
+        shade[k] = 1;
+      }
+    }
   }
 }
+
+let bodyShade = new Float32Array(0);
+let bodySpans = new Int32Array(0);
+const bodyRows = new Int32Array(2);
 
 const rBuf: FieldReceptor = { x: 0, y: 0, z: 0, nx: 1, ny: 0, nz: 0, kind: 'flat' };
 
@@ -512,8 +557,9 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
     out.fill(0);
     return;
   }
-  shadowGrid(L, g, out, tmp);
-  const { px, py, nxs, nys, nzs, n } = g;
+  shadowGrid(L, g, out);
+  const { nxs, nys, nzs } = g;
+  const { nx, ny, x0, y0, dx: gdx, dy: gdy } = g.frame;
   const lpx = L.px;
   const lpy = L.py;
   const lax = L.ax;
@@ -522,6 +568,8 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
   const dz2 = dz * dz;
   const azdz = L.az * dz;
   const R2 = L.faceR2;
+  // Imported constants read once: a module's binding may be a getter (CommonJS builds), called per point otherwise.
+  const minD2 = MIN_DISTANCE_SQ_M2;
   const lut = L.lut;
   const last = PROFILE_LUT_SIZE - 1;
   const kind = g.kind === 'dome' ? 1 : g.kind === 'pointed' ? 2 : 0;
@@ -529,34 +577,42 @@ export function directGrid(L: RoomLight, g: Geometry, out: Float32Array, tmp: Fl
   const face = L.face;
   // For big faces keep the point form (with shadows) to scale by the exact/point ratio below.
   const pf = face ? tmp : null;
-  for (let k = 0; k < n; k++) {
-    const t = out[k]!;
-    if (pf) pf[k] = 0;
-    // Shaded points of a big face keep their point form (pf): the exact/point ratio stays defined through shadows.
-    if (t === 0 && !pf) continue;
-    const dx = px[k]! - lpx;
-    const dy = py[k]! - lpy;
-    const d2 = dx * dx + dy * dy + dz2;
-    // A grid point on the light itself: directions are undefined; the clamp keeps every cosine in [−1, 1].
-    const invD = 1 / Math.sqrt(d2 > 1e-12 ? d2 : 1e-12);
-    const cosInc = -(dx * nxs[k]! + dy * nys[k]! + dz * nzs[k]!) * invD;
-    const resp = kind === 0 ? cosInc : kind === 1 ? (1 + cosInc) * 0.5 : 1;
-    if (!(resp > 1e-9) || (onWall && behindOwnWall(L, px[k]!, py[k]!))) {
-      out[k] = 0;
-      continue;
+  // Point (i, j) at (x0 + i·dx, y0 + j·dy), as buildGeometry placed it (the same doubles), computed rather than
+  // read: two fewer arrays streamed per point.
+  for (let j = 0, k = 0; j < ny; j++) {
+    const y = y0 + j * gdy;
+    const dy = y - lpy;
+    for (let i = 0; i < nx; i++, k++) {
+      const t = out[k]!;
+      if (pf) pf[k] = 0;
+      // Shaded points of a big face keep their point form (pf): the exact/point ratio stays defined through shadows.
+      if (t === 0 && !pf) continue;
+      const x = x0 + i * gdx;
+      const dx = x - lpx;
+      const d2 = dx * dx + dy * dy + dz2;
+      // A grid point on the light itself: directions are undefined; the clamp keeps every cosine in [−1, 1].
+      const invD = 1 / Math.sqrt(d2 > 1e-12 ? d2 : 1e-12);
+      const cosInc = -(dx * nxs[k]! + dy * nys[k]! + dz * nzs[k]!) * invD;
+      const resp = kind === 0 ? cosInc : kind === 1 ? (1 + cosInc) * 0.5 : 1;
+      if (!(resp > 1e-9) || (onWall && behindOwnWall(L, x, y))) {
+        out[k] = 0;
+        continue;
+      }
+      // Beam profile from the table indexed by sin(θ/2) (see modifiers.profileLut), inlined.
+      const u2 = (1 - (dx * lax + dy * lay + azdz) * invD) * 0.5;
+      const f = (u2 > 0 ? Math.sqrt(u2) : 0) * last;
+      const q = f | 0;
+      const a = lut[q]!;
+      const prof = a + (lut[q + 1]! - a) * (f - q);
+      const e2 = d2 + R2;
+      // Math.max, not a ternary: a ternary between the clamp and e2 made the optimised loop box e2 as a heap number
+      // at every point (garbage a frame); equal for e2 ≥ 0.
+      const w = (I * prof * resp) / Math.max(e2, minD2);
+      // A big face keeps the shadows' transmission in out and the point form in pf (areaCorrection multiplies them
+      // by the face's ratio); a point source is done here.
+      if (pf) pf[k] = w;
+      else out[k] = w * t;
     }
-    // Beam profile from the table indexed by sin(θ/2) (see modifiers.profileLut), inlined.
-    const u2 = (1 - (dx * lax + dy * lay + azdz) * invD) * 0.5;
-    const f = (u2 > 0 ? Math.sqrt(u2) : 0) * last;
-    const j = f | 0;
-    const a = lut[j]!;
-    const prof = a + (lut[j + 1]! - a) * (f - j);
-    const e2 = d2 + R2;
-    // Math.max, not a ternary: the imported constant is a module variable to V8, and a ternary between it and e2
-    // made the optimised loop box e2 as a heap number at every point (garbage a frame); equal for e2 ≥ 0.
-    const w = (I * prof * resp) / Math.max(e2, MIN_DISTANCE_SQ_M2);
-    out[k] = w * t;
-    if (pf) pf[k] = w;
   }
   if (face && pf) areaCorrection(L, g, out, pf);
 }
@@ -570,7 +626,7 @@ let ratioBuf = new Float64Array(0);
 let ratioDone = new Uint8Array(0);
 
 /**
- * Big faces: out holds point form × shadows, pf the point form alone. The exact value's ratio to the point
+ * Big faces: out holds the shadows' transmission, pf the point form. The exact value's ratio to the point
  * form varies smoothly except where the face crosses a point's horizon; it is found on a coarse grid and
  * interpolated. Coarse cells near the light, or whose corners disagree by over a factor of two, get the ratio
  * every AREA_FINE_STRIDE points; within them, a fine cell whose corners still disagree (by over
@@ -664,9 +720,14 @@ function areaCorrection(L: RoomLight, g: Geometry, out: Float32Array, pf: Float3
     for (let i = 0; i < nx; i++) {
       const k = j * nx + i;
       const p = pf[k]!;
-      // Fully shaded points stay dark (their ratio is still defined, as a corner for their neighbours).
-      if (!(p > 0) || out[k] === 0) continue;
-      const t = out[k]! / p;
+      // out holds the shadows' transmission here. Fully shaded points stay dark (their ratio is still defined, as a
+      // corner for their neighbours); so do points with no point-form light.
+      const t = out[k]!;
+      if (!(p > 0)) {
+        out[k] = 0;
+        continue;
+      }
+      if (t === 0) continue;
       const a = colA[i]!;
       if (fine[fineRow + a] === 1) {
         const ia = colIa[i]!;

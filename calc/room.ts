@@ -4,7 +4,6 @@
  * patches, every later bounce by radiosity on coarse patches. Receptors (flat discs and domes) gather from it.
  * Shared by meter.ts and field.ts.
  */
-import { quadIrradiancePerLuminance } from './bounce';
 import type { Rgb } from './colour';
 import { MODIFIERS, lookupProfile } from './modifiers';
 import {
@@ -256,7 +255,6 @@ function areaFace(L: PreparedLight): AreaFace | null {
 }
 
 const polyBuf = new Float64Array(3 * 8);
-const quadBuf = new Float64Array(12);
 /**
  * Points of a big face its occlusion is tested from: a 4 × 4 grid at the centres of its quarters. An even count
  * across: a flag edge over the face's middle (half the face hidden) cuts exactly half (−1 stop), where a 3 × 3
@@ -264,24 +262,100 @@ const quadBuf = new Float64Array(12);
  */
 const SAMPLE_FRACTIONS: readonly (readonly [number, number])[] = [-3 / 4, -1 / 4, 1 / 4, 3 / 4].flatMap((a) => [-3 / 4, -1 / 4, 1 / 4, 3 / 4].map((b) => [a, b] as const));
 
-/**
- * Irradiance per unit luminance from a convex polygon (corners relative to the receptor) on a flat receptor
- * of normal n, clipped to its horizon — Lambert's contour integral; works for up to 8 corners.
- */
-function polygonFlat(pts: Float64Array, n: number, nx: number, ny: number, nz: number): number {
-  // A quad is read in place (its first 12 numbers): no copy, and no subarray view allocated per call.
-  if (n === 4) return quadIrradiancePerLuminance(pts, nx, ny, nz);
-  // Fan of quads sharing the first corner (each convex): (0, i, i+1, i+2).
+const clipPoly = new Float64Array(3 * 10);
+
+/** Σ γᵢ·(n·cᵢ)/|cᵢ| over the edges of the polygon q (m corners), cᵢ = qᵢ × qᵢ₊₁, γᵢ the angle between the corners. */
+function contourSum(q: Float64Array, m: number, nx: number, ny: number, nz: number): number {
   let sum = 0;
-  for (let i = 1; i + 1 < n; i += 2) {
-    const last = Math.min(i + 2, n - 1);
-    quadBuf[0] = pts[0]!; quadBuf[1] = pts[1]!; quadBuf[2] = pts[2]!;
-    quadBuf[3] = pts[3 * i]!; quadBuf[4] = pts[3 * i + 1]!; quadBuf[5] = pts[3 * i + 2]!;
-    quadBuf[6] = pts[3 * (i + 1)]!; quadBuf[7] = pts[3 * (i + 1) + 1]!; quadBuf[8] = pts[3 * (i + 1) + 2]!;
-    quadBuf[9] = pts[3 * last]!; quadBuf[10] = pts[3 * last + 1]!; quadBuf[11] = pts[3 * last + 2]!;
-    sum += quadIrradiancePerLuminance(quadBuf, nx, ny, nz);
+  for (let i = 0; i < m; i++) {
+    const j = i + 1 === m ? 0 : i + 1;
+    const ax = q[3 * i]!;
+    const ay = q[3 * i + 1]!;
+    const az = q[3 * i + 2]!;
+    const bx = q[3 * j]!;
+    const by = q[3 * j + 1]!;
+    const bz = q[3 * j + 2]!;
+    const cx = ay * bz - az * by;
+    const cy = az * bx - ax * bz;
+    const cz = ax * by - ay * bx;
+    const cl = Math.sqrt(cx * cx + cy * cy + cz * cz);
+    if (cl < 1e-15) continue; // edge through the receptor or degenerate: no contribution
+    sum += (Math.atan2(cl, ax * bx + ay * by + az * bz) * (nx * cx + ny * cy + nz * cz)) / cl;
   }
   return sum;
+}
+
+/** The polygon's unnormalised vector irradiance Σ γᵢ·cᵢ/|cᵢ| (its sign set by the corners' order), into vecOut. */
+const vecOut = new Float64Array(3);
+function contourVector(q: Float64Array, m: number): void {
+  let sx = 0;
+  let sy = 0;
+  let sz = 0;
+  for (let i = 0; i < m; i++) {
+    const j = i + 1 === m ? 0 : i + 1;
+    const ax = q[3 * i]!;
+    const ay = q[3 * i + 1]!;
+    const az = q[3 * i + 2]!;
+    const bx = q[3 * j]!;
+    const by = q[3 * j + 1]!;
+    const bz = q[3 * j + 2]!;
+    const cx = ay * bz - az * by;
+    const cy = az * bx - ax * bz;
+    const cz = ax * by - ay * bx;
+    const cl = Math.sqrt(cx * cx + cy * cy + cz * cz);
+    if (cl < 1e-15) continue;
+    const g = Math.atan2(cl, ax * bx + ay * by + az * bz) / cl;
+    sx += g * cx;
+    sy += g * cy;
+    sz += g * cz;
+  }
+  vecOut[0] = sx;
+  vecOut[1] = sy;
+  vecOut[2] = sz;
+}
+
+/**
+ * Irradiance per unit luminance from a convex polygon (corners relative to the receptor, at most 8) on a flat
+ * receptor of normal n, clipped to its horizon — Lambert's contour integral over the polygon's own edges (one
+ * term per edge: an octagon costs 8, where a fan of quads cost 12, its diagonals twice).
+ */
+export function polygonFlat(pts: Float64Array, n: number, nx: number, ny: number, nz: number): number {
+  let behind = false;
+  let front = false;
+  for (let i = 0; i < n; i++) {
+    if (pts[3 * i]! * nx + pts[3 * i + 1]! * ny + pts[3 * i + 2]! * nz >= 0) front = true;
+    else behind = true;
+  }
+  if (!front) return 0;
+  if (!behind) return Math.abs(contourSum(pts, n, nx, ny, nz)) * 0.5;
+  // Clip against the plane n·p = 0 (Sutherland–Hodgman, one plane: at most one corner more).
+  let m = 0;
+  for (let i = 0; i < n; i++) {
+    const j = i + 1 === n ? 0 : i + 1;
+    const ax = pts[3 * i]!;
+    const ay = pts[3 * i + 1]!;
+    const az = pts[3 * i + 2]!;
+    const bx = pts[3 * j]!;
+    const by = pts[3 * j + 1]!;
+    const bz = pts[3 * j + 2]!;
+    const da = ax * nx + ay * ny + az * nz;
+    const db = bx * nx + by * ny + bz * nz;
+    if (da >= 0) {
+      clipPoly[3 * m] = ax;
+      clipPoly[3 * m + 1] = ay;
+      clipPoly[3 * m + 2] = az;
+      m++;
+    }
+    if ((da >= 0) !== (db >= 0)) {
+      const t = da / (da - db);
+      clipPoly[3 * m] = ax + (bx - ax) * t;
+      clipPoly[3 * m + 1] = ay + (by - ay) * t;
+      clipPoly[3 * m + 2] = az + (bz - az) * t;
+      m++;
+    }
+  }
+  if (m < 3) return 0;
+  return Math.abs(contourSum(clipPoly, m, nx, ny, nz)) * 0.5;
 }
 
 const lenBuf = new Float64Array(8);
@@ -289,15 +363,59 @@ const lenBuf = new Float64Array(8);
 /**
  * Solid angle of a convex polygon (corners relative to the point, at most 8): a fan of triangles, each by Van
  * Oosterom & Strackee (1983), tan(Ω/2) = a·(b × c) / (abc + (a·b)c + (a·c)b + (b·c)a). Corner lengths are found
- * once (Math.sqrt, not Math.hypot, which is several times slower in V8).
+ * once (Math.sqrt, not Math.hypot, which is several times slower in V8). The triangles' half angles are summed as
+ * the argument of the product of the complex numbers den + i·triple (one atan2, not one per triangle): for a
+ * convex polygon off its plane they all turn the same way and sum to under π. Triangles that turn different ways
+ * or lie within 1e-9 (relative) of the point's plane (a point on or near the polygon's plane) take the plain
+ * per-triangle sum.
  */
-function polygonSolidAngle(pts: Float64Array, n: number): number {
+export function polygonSolidAngle(pts: Float64Array, n: number): number {
   for (let i = 0; i < n; i++) {
     const x = pts[3 * i]!;
     const y = pts[3 * i + 1]!;
     const z = pts[3 * i + 2]!;
     lenBuf[i] = Math.sqrt(x * x + y * y + z * z);
   }
+  const ax = pts[0]!;
+  const ay = pts[1]!;
+  const az = pts[2]!;
+  const la = lenBuf[0]!;
+  let re = 1;
+  let im = 0;
+  let pos = false;
+  let neg = false;
+  for (let i = 1; i + 1 < n; i++) {
+    const bx = pts[3 * i]!;
+    const by = pts[3 * i + 1]!;
+    const bz = pts[3 * i + 2]!;
+    const cx = pts[3 * i + 3]!;
+    const cy = pts[3 * i + 4]!;
+    const cz = pts[3 * i + 5]!;
+    const lb = lenBuf[i]!;
+    const lc = lenBuf[i + 1]!;
+    const triple = ax * (by * cz - bz * cy) - ay * (bx * cz - bz * cx) + az * (bx * cy - by * cx);
+    const den = la * lb * lc + (ax * bx + ay * by + az * bz) * lc + (ax * cx + ay * cy + az * cz) * lb + (bx * cx + by * cy + bz * cz) * la;
+    // Near the polygon's plane (|triple| tiny against the corners' distances) the plain sum decides.
+    if (!(Math.abs(triple) > 1e-9 * la * lb * lc)) return solidAngleByTriangles(pts, n);
+    if (triple > 0) pos = true;
+    else neg = true;
+    // Scaled to |den| + |triple| = 1 (the argument is all that counts), so the product neither overflows nor
+    // underflows; corners a hair from the point (lengths near the smallest doubles) take the plain sum.
+    const size = Math.abs(den) + Math.abs(triple);
+    if (!(size > 1e-290)) return solidAngleByTriangles(pts, n);
+    const s = 1 / size;
+    const d = den * s;
+    const t = triple * s;
+    const r2 = re * d - im * t;
+    im = re * t + im * d;
+    re = r2;
+  }
+  if (pos && neg) return solidAngleByTriangles(pts, n);
+  return Math.abs(2 * Math.atan2(im, re));
+}
+
+/** polygonSolidAngle as a plain sum over the fan's triangles (lenBuf filled by the caller). */
+function solidAngleByTriangles(pts: Float64Array, n: number): number {
   const ax = pts[0]!;
   const ay = pts[1]!;
   const az = pts[2]!;
@@ -324,16 +442,41 @@ function polygonSolidAngle(pts: Float64Array, n: number): number {
  * factor); dome — an ideal hemisphere responds to a direction at θ from its axis with its projected area,
  * (1 + cos θ)/2 of the frontal response for θ from 0° to 180°, so its response to a luminous polygon is
  * ½(solid angle) + ½∫cos θ dω, the cosine signed: what lies in front of the axis' plane adds, what lies behind
- * it takes away (the flat response along the axis minus the flat response along its reverse). A light 125°
- * behind the axis reads (1 + cos 125°)/2 = 0.21 of its frontal response, not ½.
+ * it takes away. A light 125° behind the axis reads (1 + cos 125°)/2 = 0.21 of its frontal response, not ½.
+ * The signed integral is the axis' component of the polygon's vector irradiance ∫ω dω = ½Σγᵢ·cᵢ/|cᵢ| over the
+ * whole polygon, unclipped (equal to the flat response along the axis minus that along its reverse, each clipped
+ * to its horizon; tested): one contour sum, oriented so that it points to the polygon's side of the point.
  */
-function polygonResponse(pts: Float64Array, n: number, r: FieldReceptor): number {
-  const flat = polygonFlat(pts, n, r.nx, r.ny, r.nz);
-  if (r.kind !== 'dome') return flat;
-  const behind = polygonFlat(pts, n, -r.nx, -r.ny, -r.nz);
-  return Math.max(0, 0.5 * (flat - behind) + 0.5 * polygonSolidAngle(pts, n));
+export function polygonResponse(pts: Float64Array, n: number, r: FieldReceptor): number {
+  if (r.kind !== 'dome') return polygonFlat(pts, n, r.nx, r.ny, r.nz);
+  // The polygon's normal m from its first three corners and its plane's offset h = q₀·m: every direction to the
+  // polygon has the sign of h along m, so the vector irradiance does too.
+  const e1x = pts[3]! - pts[0]!;
+  const e1y = pts[4]! - pts[1]!;
+  const e1z = pts[5]! - pts[2]!;
+  const e2x = pts[6]! - pts[0]!;
+  const e2y = pts[7]! - pts[1]!;
+  const e2z = pts[8]! - pts[2]!;
+  const mx = e1y * e2z - e1z * e2y;
+  const my = e1z * e2x - e1x * e2z;
+  const mz = e1x * e2y - e1y * e2x;
+  const h = pts[0]! * mx + pts[1]! * my + pts[2]! * mz;
+  const ml = Math.sqrt(mx * mx + my * my + mz * mz);
+  const q0 = Math.sqrt(pts[0]! * pts[0]! + pts[1]! * pts[1]! + pts[2]! * pts[2]!);
+  let signed: number;
+  if (Math.abs(h) > 1e-9 * ml * q0) {
+    contourVector(pts, n);
+    const sx = vecOut[0]!;
+    const sy = vecOut[1]!;
+    const sz = vecOut[2]!;
+    const along = sx * r.nx + sy * r.ny + sz * r.nz;
+    signed = ((sx * mx + sy * my + sz * mz) * h < 0 ? -along : along) * 0.5;
+  } else {
+    // The point on (or within rounding of) the polygon's plane: the two clipped halves.
+    signed = polygonFlat(pts, n, r.nx, r.ny, r.nz) - polygonFlat(pts, n, -r.nx, -r.ny, -r.nz);
+  }
+  return Math.max(0, 0.5 * signed + 0.5 * polygonSolidAngle(pts, n));
 }
-
 /**
  * An area source's light at a receptor before occlusion, lux·s: the face as a Lambertian polygon of luminance
  * I/A integrated over the receptor, times the beam's shape beyond a Lambertian face (p(θ)/cos θ, at most 1).

@@ -150,7 +150,7 @@ const allNew = () => {
   return { ...mapScene, lights: mapScene.lights.map((l) => ({ ...l, powerFraction: l.powerFraction * (gen % 2 ? 0.999 : 1) })) };
 };
 const tFull = time(40, () => warm.updateParsed(allNew(), grid), 'map, every light new');
-console.log(`  every light new (grid kept), with contours and wall tones: ${fmt(tFull)}   [target ≤ 16 ms; before issue 10's map: 5.2–9.2 ms, 27–49 ms under load, with one bounce and no area faces; before the wall-tone and face-ratio work: CPU 47.8 ms; before the summed bounce: CPU 35.0 ms; before the 2026-12-04 speed work: median 20.8 ms, CPU 21.3 ms]  (CPU ${fmt(cpu(20, () => warm.updateParsed(allNew(), grid)))})`);
+console.log(`  every light new (grid kept), with contours and wall tones: ${fmt(tFull)}   [target ≤ 16 ms; before issue 10's map: 5.2–9.2 ms, 27–49 ms under load, with one bounce and no area faces; before the wall-tone and face-ratio work: CPU 47.8 ms; before the summed bounce: CPU 35.0 ms; before the 2026-12-04 speed work: median 20.8 ms, CPU 21.3 ms; before its second round (quiet machine): median 16.2 ms, CPU 16.3 ms]  (CPU ${fmt(cpu(20, () => warm.updateParsed(allNew(), grid)))})`);
 
 // 3. one light moves: only that light's direct grid (coarse, then refined near a big face), its coarse bounce
 // and its wall samples are recomputed.
@@ -164,7 +164,7 @@ const moved = () => {
 };
 const tMove = time(200, () => cache.updateParsed(moved(), grid), 'one light moved');
 const cpuMove = cpu(100, () => cache.updateParsed(moved(), grid));
-console.log(`light map, one light moved (cached): ${fmt(tMove)}   [target ≤ 4 ms; before the wall-tone and face-ratio work: CPU 5.7 ms, 12–13 ms earlier; before the 2026-12-04 speed work: median 9.4 ms, CPU 6.3 ms]  CPU ${fmt(cpuMove)} a frame  (recomputed ${cache.stats.lightsRecomputed}, reused ${cache.stats.lightsReused})`);
+console.log(`light map, one light moved (cached): ${fmt(tMove)}   [target ≤ 4 ms; before the wall-tone and face-ratio work: CPU 5.7 ms, 12–13 ms earlier; before the 2026-12-04 speed work: median 9.4 ms, CPU 6.3 ms; before its second round (quiet machine): median 3.74 ms, CPU 4.07 ms]  CPU ${fmt(cpuMove)} a frame  (recomputed ${cache.stats.lightsRecomputed}, reused ${cache.stats.lightsReused})`);
 const both = () => {
   const sc = moved();
   meterParsed(sc);
