@@ -3,7 +3,7 @@
 // likes); it downloads no plan screen, no reanimated and no gesture handler (checked against the build's source
 // maps); its fonts are WOFF2 subsets, a few tens of kilobytes each, declared with font-display: swap. A read-only
 // link loads the plan in a chunk of its own (components/shareScreen.ts), not the editor's workspace chunk. The
-// app starts in steps (entry.web.js).
+// library comes without zod (its dialogs' schemas load when one opens). The app starts in steps (entry.web.js).
 import { existsSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { describe, expect, inject, it } from 'vitest';
@@ -91,6 +91,50 @@ describe('first load', () => {
     await expect.poll(() => page.getByText('enter an e-mail address').isVisible(), { timeout: 30_000 }).toBe(true);
     expect(scripts.some((s) => /\/formSchemas-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(scripts.some((s) => /\/authClient-[0-9a-f]+\.js$/.test(s))).toBe(true);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('shows the library without zod, whose schemas arrive when a dialog opens, and the editor without gesture handler', async () => {
+    const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
+    const context = await browser().newContext({ viewport: viewports.phone, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    await context.addCookies(
+      owner
+        .cookieHeader()
+        .split('; ')
+        .filter(Boolean)
+        .map((c) => ({ name: c.slice(0, c.indexOf('=')), value: c.slice(c.indexOf('=') + 1), url: base })),
+    );
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    const scripts: string[] = [];
+    page.on('request', (r) => r.resourceType() === 'script' && scripts.push(new URL(r.url()).pathname));
+    await page.goto(`${base}/setups`);
+    await expect.poll(() => page.getByTestId('setup-card').count(), { timeout: 30_000 }).toBeGreaterThan(0);
+    // The library's route chunk and its layouts: the dialogs' forms take their schemas through lazyResolver
+    // (components/library/SetupDialogs.tsx), so neither zod nor the forms' schemas come with the page.
+    const sources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
+    expect(sources.length).toBeGreaterThan(100);
+    for (const heavy of ['node_modules/zod/', '/model/forms.ts', '@hookform/resolvers', '/model/document.ts', '/calc/']) {
+      expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
+    }
+    expect(scripts.some((s) => /\/formSchemas-[0-9a-f]+\.js$/.test(s))).toBe(false);
+    // Opening "New setup" fetches them; the form still checks with the shared schema.
+    await page.getByRole('button', { name: 'New setup' }).click();
+    await expect.poll(() => scripts.some((s) => /\/formSchemas-[0-9a-f]+\.js$/.test(s)), { timeout: 30_000 }).toBe(true);
+    await page.getByRole('button', { name: 'Create and open' }).click();
+    await expect.poll(() => page.getByText('give the setup a title').isVisible(), { timeout: 30_000 }).toBe(true);
+
+    // The editor on a phone: its bottom sheet drags with the page's own pointer events
+    // (components/editor/sheetDrag.web.tsx), so the page downloads no gesture handler (tests/e2e/phone-sheet.test.ts
+    // drags it).
+    const setup = (await owner.get<{ setups: { id: string; title: string }[] }>('/api/setups?q=Clamshell%20headshot')).body.setups.find((x) => x.title.startsWith('Clamshell headshot'))!;
+    scripts.length = 0;
+    await page.goto(`${base}/setups/${setup.id}`);
+    await expect.poll(() => page.getByTestId('sheet-handle').isVisible(), { timeout: 30_000 }).toBe(true);
+    const editorSources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
+    expect(editorSources.some((s) => s.includes('/components/editor/BottomSheet.tsx'))).toBe(true);
+    for (const heavy of ['react-native-gesture-handler', '@egjs/hammerjs']) expect(editorSources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
     expect(errors).toEqual([]);
     await context.close();
   });
