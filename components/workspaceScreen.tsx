@@ -8,7 +8,10 @@ type Workspace = typeof import('./workspace');
 type ScreenName = { [K in keyof Workspace]: Workspace[K] extends ComponentType<never> ? K : never }[keyof Workspace];
 
 /** The lower tier first, then the workspace: its modules expect the lower tier's to be defined. */
-const loadWorkspace = () => import('./shareScreen').then(() => import('./workspace'));
+const loadWorkspace = () =>
+  import('./shareScreen')
+    .then((m) => m.shareModules())
+    .then(() => import('./workspace'));
 
 function suspended<P extends object>(Screen: ComponentType<P>, name: string) {
   function WorkspaceScreen(props: P) {
@@ -30,7 +33,11 @@ export function workspaceScreen<K extends ScreenName>(name: K) {
 
 /** The read-only link's screen: its own chunk, without the editor's. */
 export function sharedSetupScreen() {
-  type Props = ComponentProps<typeof import('./shareScreen').SharedSetupScreen>;
-  const Screen = lazy(() => import('./shareScreen').then((m) => ({ default: m.SharedSetupScreen })));
+  type Props = ComponentProps<import('./shareScreen').ShareModules['SharedSetupScreen']>;
+  const Screen = lazy(() =>
+    import('./shareScreen')
+      .then((m) => m.shareModules())
+      .then((m) => ({ default: m.SharedSetupScreen })),
+  );
   return suspended<Props>(Screen, 'SharedSetupScreen');
 }

@@ -191,6 +191,14 @@ describe('first load', () => {
     // Every group layout loads on every page; what two of them share comes once (scripts/chunkTiers.cjs).
     const twice = sources.filter((s, i) => !s.includes('empty-module') && sources.indexOf(s) !== i);
     expect(twice).toEqual([]);
+    // Nor a library twice, as its ES and its CommonJS build (a `require` by a package's name resolves to the
+    // latter: components/shareScreen.ts requires only our own modules).
+    const stems = sources.map((s) => s.replace(/\.(c|m)?js$/, ''));
+    expect(sources.filter((s, i) => /\.(c|m)?js$/.test(s) && stems.indexOf(stems[i]!) !== i)).toEqual([]);
+    // The share chunk's modules evaluated in steps, each a task of its own (components/shareScreen.ts).
+    const shareMarks = await page.evaluate(() => performance.getEntriesByType('mark').map((m) => m.name).filter((n) => n.startsWith('falloff:share ')));
+    expect(shareMarks.length).toBeGreaterThan(3);
+    expect(shareMarks).toEqual(shareMarks.map((_, i) => `falloff:share ${i + 1}/${shareMarks.length}`));
     expect(errors).toEqual([]);
     await context.close();
   });

@@ -1,0 +1,5 @@
+// What the share chunk (components/shareScreen.ts) gives once its modules have been evaluated.
+import type { parseDocument } from '../model/document';
+import type { SharedSetupScreen } from './crew/SharedSetupScreen';
+
+export type ShareModules = { SharedSetupScreen: typeof SharedSetupScreen; parseDocument: typeof parseDocument };
