@@ -3,6 +3,7 @@
 // chunk, which holds what the two share (scripts/chunkTiers.cjs).
 import { Suspense, lazy, type ComponentProps, type ComponentType } from 'react';
 import { Loading } from './Loading';
+import { SharedShell } from './SharedShell';
 
 type Workspace = typeof import('./workspace');
 type ScreenName = { [K in keyof Workspace]: Workspace[K] extends ComponentType<never> ? K : never }[keyof Workspace];
@@ -13,10 +14,10 @@ const loadWorkspace = () =>
     .then((m) => m.shareModules())
     .then(() => import('./workspace'));
 
-function suspended<P extends object>(Screen: ComponentType<P>, name: string) {
+function suspended<P extends object>(Screen: ComponentType<P>, name: string, Fallback: ComponentType = Loading) {
   function WorkspaceScreen(props: P) {
     return (
-      <Suspense fallback={<Loading />}>
+      <Suspense fallback={<Fallback />}>
         <Screen {...props} />
       </Suspense>
     );
@@ -39,5 +40,6 @@ export function sharedSetupScreen() {
       .then((m) => m.shareModules())
       .then((m) => ({ default: m.SharedSetupScreen })),
   );
-  return suspended<Props>(Screen, 'SharedSetupScreen');
+  // Until the chunk has arrived, the page's frame with a line of words (the page's first paint).
+  return suspended<Props>(Screen, 'SharedSetupScreen', SharedShell);
 }

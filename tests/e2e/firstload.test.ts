@@ -139,6 +139,34 @@ describe('first load', () => {
     await context.close();
   });
 
+  it('paints the read-only page’s frame and words before its plan chunk arrives', async () => {
+    const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
+    const setup = (await owner.get<{ setups: { id: string; title: string }[] }>('/api/setups?q=Clamshell%20headshot')).body.setups.find((x) => x.title.startsWith('Clamshell headshot'))!;
+    const made = await owner.post<{ url: string }>(`/api/setups/${setup.id}/shares`, { label: 'First load shell test' });
+    expect(made.status).toBe(201);
+    const context = await browser().newContext({ viewport: viewports.phone, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    // The share chunk is held until the test lets it go.
+    let release!: () => void;
+    const held = new Promise<void>((r) => (release = r));
+    await page.route(/\/shareScreen-[0-9a-f]+\.js$/, async (route) => {
+      await held;
+      await route.continue();
+    });
+    await page.goto(new URL(new URL(made.body.url).pathname, base).href, { waitUntil: 'commit' });
+    // components/SharedShell.tsx: the route's fallback, painted with the first chunks (the page's first
+    // contentful paint), not a spinner.
+    await expect.poll(() => page.getByText('Opening the shared setup…').isVisible(), { timeout: 30_000 }).toBe(true);
+    expect(await page.getByText('FALLOFF · READ-ONLY').isVisible()).toBe(true);
+    expect(await page.evaluate(() => performance.getEntriesByName('first-contentful-paint').length)).toBe(1);
+    release();
+    await expect.poll(() => page.getByTestId('shared-camera').isVisible(), { timeout: 30_000 }).toBe(true);
+    expect(await page.getByText('Opening the shared setup…').count()).toBe(0);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('loads the read-only plan with a link, without the editor’s chunk', async () => {
     const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
     // A demo setup by name: the owner's newest setup is whatever another test file made last (an empty plan reads
@@ -185,7 +213,9 @@ describe('first load', () => {
     // spaces CSS does not write (web/culoriCss.js).
     // Nor better-auth's client: who is signed in is read with a plain fetch (hooks/session.ts).
     expect(scripts.some((s) => /\/authClient-[0-9a-f]+\.js$/.test(s))).toBe(false);
-    for (const heavy of ['node_modules/better-auth/', 'node_modules/@better-fetch/', '/hooks/authClient.ts', '/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl']) {
+    // Nor the classes' model and page parts (the comments take an item's name from model/kinds.ts and the error
+    // words from components/errorText.ts).
+    for (const heavy of ['node_modules/better-auth/', 'node_modules/@better-fetch/', '/hooks/authClient.ts', '/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl', '/model/classes.ts', '/components/classes/parts.tsx']) {
       expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
     }
     // Every group layout loads on every page; what two of them share comes once (scripts/chunkTiers.cjs).
