@@ -1,7 +1,8 @@
 // The bottom sheet's drag on the web, from the page's own pointer events (mouse, pen, one finger), so the
 // editor's page loads no gesture handler (the phones use its pan: sheetDrag.tsx). A press on the handle row
 // becomes a drag once it has moved SHEET_DRAG_MIN_PX vertically; the speed at release is the last
-// SHEET_VELOCITY_WINDOW_MS of movement. The click that ends a drag does not reach the button it started on.
+// SHEET_VELOCITY_WINDOW_MS of movement. The click that ends a drag (the next within 300 ms, unless another
+// press comes first) does not reach the button under the pointer.
 import { SHEET_DRAG_MIN_PX, SHEET_VELOCITY_WINDOW_MS, type SheetDragHandlers } from './sheetDragTypes';
 
 type Sample = { t: number; y: number };
@@ -53,6 +54,10 @@ export function attachSheetPointer(el: HTMLElement, handlers: () => SheetDragHan
       handlers().end(releaseVelocity(p.samples));
     } else handlers().end(0);
   };
+  // A new press anywhere ends that: its own click is a click, however soon it comes.
+  const onAnyDown = () => {
+    swallowUntil = -Infinity;
+  };
   const onClick = (e: Event) => {
     if (now() > swallowUntil) return;
     swallowUntil = -Infinity;
@@ -60,12 +65,14 @@ export function attachSheetPointer(el: HTMLElement, handlers: () => SheetDragHan
     e.preventDefault();
   };
 
+  window.addEventListener('pointerdown', onAnyDown, { capture: true, passive: true });
   el.addEventListener('pointerdown', onDown);
   el.addEventListener('click', onClick, true);
   window.addEventListener('pointermove', onMove, { passive: true });
   window.addEventListener('pointerup', onUp, { passive: true });
   window.addEventListener('pointercancel', onUp, { passive: true });
   return () => {
+    window.removeEventListener('pointerdown', onAnyDown, { capture: true });
     el.removeEventListener('pointerdown', onDown);
     el.removeEventListener('click', onClick, true);
     window.removeEventListener('pointermove', onMove);

@@ -214,8 +214,9 @@ describe('first load', () => {
     // Nor better-auth's client: who is signed in is read with a plain fetch (hooks/session.ts).
     expect(scripts.some((s) => /\/authClient-[0-9a-f]+\.js$/.test(s))).toBe(false);
     // Nor the classes' model and page parts (the comments take an item's name from model/kinds.ts and the error
-    // words from components/errorText.ts).
-    for (const heavy of ['node_modules/better-auth/', 'node_modules/@better-fetch/', '/hooks/authClient.ts', '/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl', '/model/classes.ts', '/components/classes/parts.tsx']) {
+    // words from components/errorText.ts), nor the frame's renderer (the frame worker renders; the page loads it,
+    // a chunk of its own, only without a worker: components/frame/engine.ts).
+    for (const heavy of ['node_modules/better-auth/', 'node_modules/@better-fetch/', '/hooks/authClient.ts', '/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl', '/model/classes.ts', '/components/classes/parts.tsx', '/calc/frame/render.ts']) {
       expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
     }
     // Every group layout loads on every page; what two of them share comes once (scripts/chunkTiers.cjs).

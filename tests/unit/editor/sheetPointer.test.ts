@@ -85,6 +85,24 @@ describe('the bottom sheet’s drag on the web', () => {
     expect(clicked).toBe(1);
   });
 
+  it('a tap soon after a drag is still a tap', () => {
+    const g = setup();
+    g.at(0);
+    g.down(700);
+    g.at(20);
+    g.move(640);
+    g.at(40);
+    g.up(600);
+    let clicked = 0;
+    g.el.addEventListener('click', () => clicked++);
+    // A new press 100 ms after the release (within the 300 ms the drag's own click is waited for).
+    g.at(140);
+    (window as EventTarget).dispatchEvent(Object.assign(new Event('pointerdown'), { pointerId: 2, pointerType: 'touch', isPrimary: true, button: 0, clientX: 20, clientY: 820 }));
+    g.up(820, { pointerId: 2 });
+    g.click();
+    expect(clicked).toBe(1);
+  });
+
   it('a cancelled drag ends with no speed; other pointers and the right button are ignored', () => {
     const g = setup();
     g.at(0);
