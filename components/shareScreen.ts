@@ -52,6 +52,7 @@ export function shareModules(): Promise<ShareModules> {
         resolve({
           SharedSetupScreen: (require('./crew/SharedSetupScreen') as typeof import('./crew/SharedSetupScreen')).SharedSetupScreen,
           parseDocument: (require('../model/document') as typeof import('../model/document')).parseDocument,
+          warmMeterEngine: (require('../canvas/meter/engine') as typeof import('../canvas/meter/engine')).warmMeterEngine,
         });
         /* eslint-enable @typescript-eslint/no-require-imports */
       } catch (err) {

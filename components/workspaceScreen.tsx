@@ -38,7 +38,11 @@ export function sharedSetupScreen() {
   const Screen = lazy(() =>
     import('./shareScreen')
       .then((m) => m.shareModules())
-      .then((m) => ({ default: m.SharedSetupScreen })),
+      .then((m) => {
+        // The meter's worker starts now, while the setup is still on its way (its script is large).
+        m.warmMeterEngine();
+        return { default: m.SharedSetupScreen };
+      }),
   );
   // Until the chunk has arrived, the page's frame with a line of words (the page's first paint).
   return suspended<Props>(Screen, 'SharedSetupScreen', SharedShell);

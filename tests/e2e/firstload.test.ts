@@ -182,6 +182,8 @@ describe('first load', () => {
     const workers: string[] = [];
     page.on('request', (r) => r.resourceType() === 'script' && scripts.push(new URL(r.url()).pathname));
     page.on('worker', (w) => workers.push(new URL(w.url()).pathname));
+    const sharedAsks: string[] = [];
+    page.on('request', (r) => /^\/api\/shared\/[^/]+$/.test(new URL(r.url()).pathname) && sharedAsks.push(r.url()));
     await page.goto(new URL(new URL(made.body.url).pathname, base).href);
     await expect.poll(() => page.getByTestId('shared-camera').isVisible(), { timeout: 30_000 }).toBe(true);
     expect(await page.getByTestId('shared-plan').locator('svg').count()).toBeGreaterThan(0);
@@ -192,6 +194,16 @@ describe('first load', () => {
     await expect.poll(() => page.getByText('At the subject').first().isVisible()).toBe(true);
     expect(await page.getByText(subject, { exact: true }).count()).toBeGreaterThanOrEqual(2);
     expect(workers).toContain('/workers/meter.js');
+    // One meter worker: started while the setup was on its way (warmMeterEngine) and taken by the screen.
+    expect(workers.filter((w) => w === '/workers/meter.js')).toHaveLength(1);
+    // The setup asked for once, by the route as it rendered (hooks/sharedEarly.ts), before the share chunk's
+    // modules were evaluated (its first step's mark), and that answer taken by the screen.
+    expect(sharedAsks).toHaveLength(1);
+    const [askedAt, firstStep] = await page.evaluate(() => [
+      performance.getEntriesByType('resource').find((e) => /\/api\/shared\/[^/]+$/.test(new URL(e.name).pathname))?.startTime ?? NaN,
+      performance.getEntriesByName('falloff:share 1/6')[0]?.startTime ?? NaN,
+    ]);
+    expect(askedAt).toBeLessThan(firstStep!);
     // Its own chunk (the plan, the meter, the document model), not the editor's workspace chunk.
     expect(scripts.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
