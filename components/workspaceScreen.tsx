@@ -8,11 +8,28 @@ import { SharedShell } from './SharedShell';
 type Workspace = typeof import('./workspace');
 type ScreenName = { [K in keyof Workspace]: Workspace[K] extends ComponentType<never> ? K : never }[keyof Workspace];
 
-/** The lower tier first, then the workspace: its modules expect the lower tier's to be defined. */
-const loadWorkspace = () =>
-  import('./shareScreen')
+/** The lower tier first, then the workspace: its modules expect the lower tier's to be defined. Once: a route
+ *  may start it early (`preloadWorkspace`), and the screen's lazy component then takes the same promise. A
+ *  `falloff:workspace` mark says when the workspace's modules were evaluated. */
+let workspace: Promise<Workspace> | null = null;
+const loadWorkspace = (): Promise<Workspace> =>
+  (workspace ??= import('./shareScreen')
     .then((m) => m.shareModules())
-    .then(() => import('./workspace'));
+    .then(() => import('./workspace'))
+    .then((w) => {
+      if (typeof performance !== 'undefined' && typeof performance.mark === 'function') performance.mark('falloff:workspace');
+      return w;
+    })
+    .catch((err: unknown) => {
+      workspace = null;
+      throw err;
+    }));
+
+/** Starts loading and evaluating the plan screens now (a route whose data is still on its way: the editor's
+ *  workspace chunk then evaluates while its setup downloads, not after). */
+export function preloadWorkspace() {
+  void loadWorkspace().catch(() => {});
+}
 
 function suspended<P extends object>(Screen: ComponentType<P>, name: string, Fallback: ComponentType = Loading) {
   function WorkspaceScreen(props: P) {

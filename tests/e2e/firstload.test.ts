@@ -130,7 +130,17 @@ describe('first load', () => {
     // drags it).
     const setup = (await owner.get<{ setups: { id: string; title: string }[] }>('/api/setups?q=Clamshell%20headshot')).body.setups.find((x) => x.title.startsWith('Clamshell headshot'))!;
     scripts.length = 0;
-    await page.goto(`${base}/setups/${setup.id}`);
+    // The editor's route starts the plan screens' chunks as it renders (preloadWorkspace), so they evaluate
+    // while the setup is still on its way: held here until the workspace's modules have been evaluated.
+    let releaseSetup!: () => void;
+    const setupHeld = new Promise<void>((r) => (releaseSetup = r));
+    await page.route(new RegExp(`/api/setups/${setup.id}$`), async (route) => {
+      if (route.request().method() === 'GET') await setupHeld;
+      await route.continue();
+    });
+    await page.goto(`${base}/setups/${setup.id}`, { waitUntil: 'commit' });
+    await expect.poll(() => page.evaluate(() => performance.getEntriesByName('falloff:workspace').length), { timeout: 30_000 }).toBe(1);
+    releaseSetup();
     await expect.poll(() => page.getByTestId('sheet-handle').isVisible(), { timeout: 30_000 }).toBe(true);
     const editorSources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
     expect(editorSources.some((s) => s.includes('/components/editor/BottomSheet.tsx'))).toBe(true);
