@@ -3,17 +3,38 @@
 // chunk, which holds what the two share (scripts/chunkTiers.cjs).
 import { Suspense, lazy, type ComponentProps, type ComponentType } from 'react';
 import { Loading } from './Loading';
+import { SharedShell } from './SharedShell';
 
 type Workspace = typeof import('./workspace');
 type ScreenName = { [K in keyof Workspace]: Workspace[K] extends ComponentType<never> ? K : never }[keyof Workspace];
 
-/** The lower tier first, then the workspace: its modules expect the lower tier's to be defined. */
-const loadWorkspace = () => import('./shareScreen').then(() => import('./workspace'));
+/** The lower tier first, then the workspace: its modules expect the lower tier's to be defined. Once: a route
+ *  may start it early (`preloadWorkspace`), and the screen's lazy component then takes the same promise. A
+ *  `falloff:workspace` mark says when the workspace's modules were evaluated. */
+let workspace: Promise<Workspace> | null = null;
+const loadWorkspace = (): Promise<Workspace> =>
+  (workspace ??= import('./shareScreen')
+    .then((m) => m.shareModules())
+    .then(() => import('./workspace'))
+    .then((w) => {
+      if (typeof performance !== 'undefined' && typeof performance.mark === 'function') performance.mark('falloff:workspace');
+      return w;
+    })
+    .catch((err: unknown) => {
+      workspace = null;
+      throw err;
+    }));
 
-function suspended<P extends object>(Screen: ComponentType<P>, name: string) {
+/** Starts loading and evaluating the plan screens now (a route whose data is still on its way: the editor's
+ *  workspace chunk then evaluates while its setup downloads, not after). */
+export function preloadWorkspace() {
+  void loadWorkspace().catch(() => {});
+}
+
+function suspended<P extends object>(Screen: ComponentType<P>, name: string, Fallback: ComponentType = Loading) {
   function WorkspaceScreen(props: P) {
     return (
-      <Suspense fallback={<Loading />}>
+      <Suspense fallback={<Fallback />}>
         <Screen {...props} />
       </Suspense>
     );
@@ -30,7 +51,16 @@ export function workspaceScreen<K extends ScreenName>(name: K) {
 
 /** The read-only link's screen: its own chunk, without the editor's. */
 export function sharedSetupScreen() {
-  type Props = ComponentProps<typeof import('./shareScreen').SharedSetupScreen>;
-  const Screen = lazy(() => import('./shareScreen').then((m) => ({ default: m.SharedSetupScreen })));
-  return suspended<Props>(Screen, 'SharedSetupScreen');
+  type Props = ComponentProps<import('./shareScreen').ShareModules['SharedSetupScreen']>;
+  const Screen = lazy(() =>
+    import('./shareScreen')
+      .then((m) => m.shareModules())
+      .then((m) => {
+        // The meter's worker starts now, while the setup is still on its way (its script is large).
+        m.warmMeterEngine();
+        return { default: m.SharedSetupScreen };
+      }),
+  );
+  // Until the chunk has arrived, the page's frame with a line of words (the page's first paint).
+  return suspended<Props>(Screen, 'SharedSetupScreen', SharedShell);
 }

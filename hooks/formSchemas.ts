@@ -1,3 +1,4 @@
-// The signed-out forms' schemas and their resolver, as one lazily loaded chunk (hooks/lazyResolver.ts).
+// The forms' schemas and their resolver, as one lazily loaded chunk (hooks/lazyResolver.ts): the signed-out
+// pages' and the library's dialogs' (a new setup, a copy).
 export { zodResolver } from '@hookform/resolvers/zod';
-export { forgotPasswordBody, resetPasswordBody, signInBody, signUpBody } from '../model/forms';
+export { duplicateForm, forgotPasswordBody, newSetupForm, resetPasswordBody, signInBody, signUpBody } from '../model/forms';

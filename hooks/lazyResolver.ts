@@ -17,11 +17,11 @@ export function loadFormSchemas(): Promise<Schemas> {
   return loading;
 }
 
-/** `zodResolver(pick(schemas))`, with the schemas loaded on the first check. */
-export function lazyResolver<T extends FieldValues>(pick: (s: Schemas) => Schema): Resolver<T> {
+/** `zodResolver(pick(schemas))`, with the schemas loaded on the first check (`Out`: the parsed values). */
+export function lazyResolver<T extends FieldValues, Out = T>(pick: (s: Schemas) => Schema): Resolver<T, unknown, Out> {
   return async (values, context, options) => {
     const s = await loadFormSchemas();
-    return (s.zodResolver(pick(s)) as unknown as Resolver<T>)(values, context, options);
+    return (s.zodResolver(pick(s)) as unknown as Resolver<T, unknown, Out>)(values, context, options);
   };
 }
 

@@ -50,7 +50,10 @@ export function useTags(studio?: string) {
 
 /** The document model's parser, loaded with the plan screens (components/shareScreen.ts): the library and the
  *  sign-in page never download the setup document's schema or the meter it brings. */
-export const documentParser = () => import('../components/shareScreen').then((m) => m.parseDocument);
+export const documentParser = () =>
+  import('../components/shareScreen')
+    .then((m) => m.shareModules())
+    .then((m) => m.parseDocument);
 
 /** Read a setup, its document parsed (and migrated) with the shared schema. The editor owns it once open. */
 export function useSetup(id: string) {

@@ -3,6 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { CreateShareBody, SendToCrewBody, ShareLink } from '../model/api';
 import { parseDocument } from '../model/document';
 import { call } from './api';
+import { takeSharedEarly } from './sharedEarly';
 
 const shareKeys = {
   all: ['shares'] as const,
@@ -44,7 +45,8 @@ export function useSharedSetup(token: string) {
   return useQuery({
     queryKey: shareKeys.shared(token),
     queryFn: async ({ signal }) => {
-      const s = await call('sharedSetup', { params: { token }, signal });
+      // The route's early request when there is one (hooks/sharedEarly.ts), else a request of its own.
+      const s = await (takeSharedEarly(token) ?? call('sharedSetup', { params: { token }, signal }));
       return { ...s, document: parseDocument(s.document) };
     },
     refetchOnWindowFocus: true,

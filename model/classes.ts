@@ -7,7 +7,7 @@
 import { z } from 'zod';
 import type { MeterResult } from '../calc';
 import type { Item, SetupDocument } from './document';
-import { kinds } from './kinds';
+import { itemName } from './kinds';
 import { computeReadings } from './setupReadings';
 import { itemsAtStep } from './documentToScene';
 import { formatAperture, formatStops } from './units';
@@ -152,12 +152,9 @@ export function evaluateCheck(check: Check, doc: SetupDocument): CheckResult {
 /** A change smaller than this (stops) reads as "unchanged": below what a meter's display shows. */
 const UNCHANGED_STOPS = 0.05;
 
-/** How an item is named in a sentence: its label, else its kind ("the reflector"). */
-export function itemName(i: Item): string {
-  if (i.label) return i.label;
-  if (i.kind === 'note') return 'a note';
-  return `the ${kinds[i.kind].label.toLowerCase()}`;
-}
+// How an item is named in a sentence lives with the kinds (the read-only link's comments use it without this
+// module's schemas).
+export { itemName };
 
 function listNames(items: Item[]): string {
   const names = items.map(itemName);

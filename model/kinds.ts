@@ -174,3 +174,10 @@ const namesOf = new WeakMap<readonly Item[], Map<string, string>>();
 export function warningText(w: { message: string; lightId?: string }, names: ReadonlyMap<string, string>): string {
   return w.lightId && names.has(w.lightId) ? w.message.split(w.lightId).join(names.get(w.lightId)!) : w.message;
 }
+
+/** How an item is named in a sentence: its label, else its kind ("the reflector"). */
+export function itemName(i: Item): string {
+  if (i.label) return i.label;
+  if (i.kind === 'note') return 'a note';
+  return `the ${kinds[i.kind].label.toLowerCase()}`;
+}

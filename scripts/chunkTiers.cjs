@@ -39,7 +39,11 @@ const slash = (p) => p.replace(/\\/g, '/');
 const entryPaths = (chunk) => [...chunk.entries].map((m) => slash(m.path));
 const entryEndsWith = (chunk, suffix) => entryPaths(chunk).some((p) => p.endsWith(suffix));
 
-const tiers = [{ lower: 'components/shareScreen.ts', upper: 'components/workspace.ts' }];
+// The frame's renderer in the page (components/frame/engine.ts, only without a worker) loads after the share chunk.
+const tiers = [
+  { lower: 'components/shareScreen.ts', upper: 'components/workspace.ts' },
+  { lower: 'components/shareScreen.ts', upper: 'calc/frame/job.ts' },
+];
 /** Chunks whose modules every page needs: what they import stays in `__common`. */
 const light = [/\/app\/_layout\.tsx$/, /\/app\/\+not-found\.tsx$/, /\/app\/s\/\[token\]\.tsx$/];
 /** Route groups whose layout always renders (and so loads) before any route inside the group. */

@@ -15,9 +15,7 @@ import { type Field, type Receptor, bounceInto, directInto, exposureAt, prepareF
 import { type FrameInput, type FrameScene, SKIN_HUE, SKIN_TONES, parseFrameInput } from './scene';
 import { MAT_CLOTH, MAT_EYE, type Solids, buildBoxes, buildSubjectSolids, hitBoxes, hitSolids, solidNormal, solidsClear } from './solids';
 
-/** What the frame leaves out, in one line a photographer reads. */
-export const FRAME_LIMITS =
-  'Not modelled: light scattering under the skin, shine on skin and props (only the eyes reflect the lights), lens flare and depth of field — everything is in focus.';
+export { FRAME_LIMITS } from './limits';
 
 /** Reflectance of clothing on the neutral form (our own mid-dark grey) and of the eye (mostly the dark iris and pupil that show between the lids). */
 const CLOTH_REFLECTANCE = 0.1;

@@ -43,6 +43,20 @@ function workerEngine(url = WORKER_URL): MeterEngine {
   };
 }
 
+let warm: MeterEngine | null = null;
+
+/** Starts a worker engine now, where there are workers, so its script downloads and evaluates while the page
+ *  does other work (the read-only link's screen, before its setup has arrived); the next defaultEngine() takes
+ *  it. */
+export function warmMeterEngine() {
+  if (!warm && typeof Worker !== 'undefined' && typeof window !== 'undefined') warm = workerEngine();
+}
+
 export function defaultEngine(): MeterEngine {
+  if (warm) {
+    const e = warm;
+    warm = null;
+    return e;
+  }
   return typeof Worker !== 'undefined' && typeof window !== 'undefined' ? workerEngine() : inlineEngine();
 }

@@ -4,7 +4,6 @@ import { Link, useRouter, type Href } from 'expo-router';
 import { useEffect, useState, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, Text, TextInput, View, type ViewStyle } from 'react-native';
 import { colours, fonts, radius, space } from '../../constants/theme';
-import { ApiRequestError } from '../../hooks/api';
 import { usePageTitle } from '../../hooks/pageTitle';
 
 export function Page({ children, wide = false, testID }: { children: ReactNode; wide?: boolean; testID?: string }) {
@@ -98,7 +97,7 @@ export function SavingText({
   );
 }
 
-export const errorText = (e: unknown) => (e instanceof ApiRequestError ? e.message : e instanceof Error ? e.message : 'Something went wrong.');
+export { errorText } from '../errorText';
 
 export function NotFound({ what, back }: { what: string; back: ReactNode }) {
   usePageTitle(`${what} not found`);

@@ -8,12 +8,12 @@ import { createEditor } from '../../canvas/editor/editor';
 import { colours, fonts, space } from '../../constants/theme';
 import { useAddComment, useComments, useMarkCommentsRead, useResolveComment } from '../../hooks/comments';
 import type { SetupComment } from '../../model/api';
-import { itemName } from '../../model/classes';
+import { itemName } from '../../model/kinds';
 import type { SetupDocument } from '../../model/document';
 import type { Units } from '../../model/units';
 import { ReadOnlyPlan, type Pin, type PinTarget } from '../classes/ReadOnlyPlan';
 import { Button, ErrorText } from '../ui';
-import { errorText } from '../classes/parts';
+import { errorText } from '../errorText';
 import { formatWhen } from '../../model/format';
 
 export type Thread = { start: SetupComment; replies: SetupComment[]; pin: number | null };

@@ -13,7 +13,7 @@ import { useShareMembership, useSharedSetup } from '../../hooks/shares';
 import { CommentThread } from '../comments/CommentThread';
 import { crewSheet, type CrewSheet, type Reading } from '../../model/crewSheet';
 import { readingsPending } from '../../model/setupReadings';
-import { Loading } from '../Loading';
+import { SharedShell } from '../SharedShell';
 import { Body, Title } from '../ui';
 import { FrameView } from '../frame/FrameView';
 import { ExportButtons } from './ExportButtons';
@@ -26,7 +26,7 @@ import { SkipLink } from '../SkipLink';
 export function SharedSetupScreen({ token }: { token: string }) {
   const q = useSharedSetup(token);
   usePageTitle(q.isError ? 'Link opens nothing' : q.data?.title);
-  if (q.isPending) return <Loading />;
+  if (q.isPending) return <SharedShell />;
   if (q.isError) {
     const gone = q.error instanceof ApiRequestError && q.error.status === 404;
     return (

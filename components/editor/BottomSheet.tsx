@@ -1,12 +1,14 @@
-// The phone's bottom sheet: a handle to drag between a peek, half and most of the screen; the canvas stays
-// full-screen behind it. The height follows the finger and springs to the nearest stop with React Native's
-// Animated (on the JS thread: the web build carries no reanimated, and a height cannot animate natively anyway).
+// The phone's bottom sheet: a handle row to drag (sheetDrag.tsx; on the web sheetDrag.web.tsx, with no gesture
+// handler) between a peek, half and most of the screen; the canvas stays full-screen behind it. The height
+// follows the finger and springs to the nearest stop with React Native's Animated (on the JS thread: the web
+// build carries no reanimated, and a height cannot animate natively anyway).
 // The screen can ask for a stop (`request`: a tap on an item opens its settings at half height) and hears the
 // height as it changes (`onHeight`), so the plan re-fits to the space above the sheet.
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Animated, Pressable, StyleSheet, View, useWindowDimensions } from 'react-native';
-import { Gesture, GestureDetector } from 'react-native-gesture-handler';
 import { colours } from '../../constants/theme';
+import { SheetDrag } from './sheetDrag';
+import type { SheetDragHandlers } from './sheetDragTypes';
 
 /** The lowest height: the handle, the kit at hand, the meter's line and the tabs. */
 export const PEEK_PX = 184;
@@ -68,18 +70,16 @@ export function BottomSheet({ children, header, request, onHeight }: { children:
     });
     return () => h.removeListener(id);
   }, [h]);
-  const drag = Gesture.Pan()
-    .runOnJS(true)
-    .onStart(() => {
+  const drag: SheetDragHandlers = {
+    start: () => {
       spring.current?.stop();
       // Caught mid-spring, the drag starts from where the sheet is.
       h.stopAnimation((v) => (now.current = v));
       start.current = now.current;
-    })
-    .onUpdate((e) => {
-      set(Math.min(stops[2], Math.max(stops[0], start.current - e.translationY)));
-    })
-    .onEnd((e) => springTo(nearestStop(stops, now.current, e.velocityY)));
+    },
+    move: (dy) => set(Math.min(stops[2], Math.max(stops[0], start.current - dy))),
+    end: (velocityY) => springTo(nearestStop(stops, now.current, velocityY)),
+  };
   // A stop asked for by the screen (never lowers a sheet the user raised higher).
   const n = request?.n;
   useEffect(() => {
@@ -92,7 +92,7 @@ export function BottomSheet({ children, header, request, onHeight }: { children:
   }, [n]); // eslint-disable-line react-hooks/exhaustive-deps
   return (
     <Animated.View style={[s.sheet, { height: h }]} accessibilityLabel="Readings and settings">
-      <GestureDetector gesture={drag}>
+      <SheetDrag handlers={drag}>
         {/* The drag zone carries no role: the tabs inside it are controls of their own, and the handle is a
             separate button that steps the sheet through its heights (a keyboard and a screen reader's way). */}
         <View style={s.handleZone}>
@@ -107,7 +107,7 @@ export function BottomSheet({ children, header, request, onHeight }: { children:
           </Pressable>
           {header}
         </View>
-      </GestureDetector>
+      </SheetDrag>
       <View style={{ flex: 1 }}>{children}</View>
     </Animated.View>
   );

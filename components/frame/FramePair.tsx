@@ -2,7 +2,7 @@
 // the pictures the two plans would make, not only their numbers.
 import { useState } from 'react';
 import { StyleSheet, Text, View } from 'react-native';
-import { FRAME_LIMITS } from '../../calc/frame/render';
+import { FRAME_LIMITS } from '../../calc/frame/limits';
 import { colours, fonts, space } from '../../constants/theme';
 import type { SetupDocument } from '../../model/document';
 import { FramePicture, type Look, Toggles } from './FrameView';

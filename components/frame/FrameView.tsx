@@ -3,7 +3,7 @@
 // subject's skin tone. Rendered progressively off the UI thread (useFrame → engine → Web Worker).
 import { useState } from 'react';
 import { Image, Modal, Pressable, ScrollView, StyleSheet, Text, View, useWindowDimensions } from 'react-native';
-import { FRAME_LIMITS } from '../../calc/frame/render';
+import { FRAME_LIMITS } from '../../calc/frame/limits';
 import { SKIN_TONES, SKIN_TONE_IDS, type SkinTone } from '../../calc/frame/scene';
 import { colours, fonts, space } from '../../constants/theme';
 import type { ItemOf, SetupDocument } from '../../model/document';

@@ -2,7 +2,7 @@
 // thread after the current task (native, component tests, or a web build without the worker file). A job is a
 // frame input in, an image out; the worker keeps the last rendered frame of each quality so a change of look
 // (black and white, clipping, stops) re-applies the look without rendering again.
-import { type FrameJob, type FrameJobResult, runFrameJob } from '../../calc/frame/job';
+import type { FrameJob, FrameJobResult } from '../../calc/frame/job';
 import type { FrameLook } from '../../calc/frame/looks';
 import type { FrameInput } from '../../calc/frame/scene';
 import { inlineClient, workerClient } from '../../canvas/workerClient';
@@ -35,7 +35,10 @@ function toImage(r: FrameRequest, res: FrameJobResult, blob: Blob | null): Frame
   return { version: r.version, quality: r.quality, width: res.width, height: res.height, ms: res.ms, uri, rgba: uri ? null : res.rgba };
 }
 
-const renderInline = (r: FrameRequest): FrameImage | { error: string } => {
+// The renderer is loaded only when this thread renders (no worker: phones, tests, a worker that failed): on
+// the web it is a chunk of its own (scripts/chunkTiers.cjs), so the pages that show a frame do not download it.
+const renderInline = async (r: FrameRequest): Promise<FrameImage | { error: string }> => {
+  const { runFrameJob } = await import('../../calc/frame/job');
   const job: FrameJob = { id: 0, input: r.input, width: r.width, look: r.look, latticeStep: r.latticeStep };
   return toImage(r, runFrameJob(job), null);
 };

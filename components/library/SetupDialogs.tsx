@@ -1,13 +1,14 @@
 // The library's dialogs: a new setup, a copy (of a setup or a template), and the confirmation before a
-// delete. Forms use react-hook-form with the shared schemas from model/api.ts; the server's field errors
-// show beside the field too.
-import { zodResolver } from '@hookform/resolvers/zod';
+// delete. Forms use react-hook-form with the shared schemas from model/forms.ts, taken through lazyResolver
+// (the schemas' chunk, with zod, loads at the page's first touch, not with the library's route chunk); the
+// server's field errors show beside the field too.
 import { useEffect } from 'react';
 import { useForm, type Control, type FieldValues, type Path, type UseFormSetError } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiRequestError } from '../../hooks/api';
+import { lazyResolver, loadFormSchemas } from '../../hooks/lazyResolver';
 import type { StudioSummary, SetupSummary } from '../../model/api';
-import { duplicateForm, newSetupForm } from '../../model/forms';
+import type { duplicateForm, newSetupForm } from '../../model/forms';
 import { ChoiceField } from '../ChoiceField';
 import { Dialog, DialogActions } from '../Dialog';
 import { FormField } from '../FormField';
@@ -51,13 +52,15 @@ export function NewSetupDialog({
   const options = studioOptions(studios);
   const first = options.find((o) => o.value === defaultStudio)?.value ?? options[0]?.value ?? '';
   const { control: typed, handleSubmit, formState, reset, setError } = useForm<NewValues, unknown, z.output<typeof newSetupForm>>({
-    resolver: zodResolver(newSetupForm),
+    resolver: lazyResolver<NewValues, z.output<typeof newSetupForm>>((s) => s.newSetupForm),
     defaultValues: { title: '', studioId: first, tags: '' },
   });
   // The fields edit the typed text (tags as one line); only submit sees the parsed values.
   const control = typed as unknown as Control<NewValues>;
   useEffect(() => {
-    if (visible) reset({ title: '', studioId: first, tags: '' });
+    if (!visible) return;
+    reset({ title: '', studioId: first, tags: '' });
+    void loadFormSchemas().catch(() => {}); // ready before the first submit
   }, [visible, first, reset]);
   const submit = handleSubmit(async (v) => {
     try {
@@ -101,11 +104,13 @@ export function DuplicateDialog({
     studioId: options.find((o) => o.value === src?.studioId)?.value ?? options[0]?.value ?? '',
   });
   const { control, handleSubmit, formState, reset, setError } = useForm<CopyValues, unknown, z.output<typeof duplicateForm>>({
-    resolver: zodResolver(duplicateForm),
+    resolver: lazyResolver<CopyValues, z.output<typeof duplicateForm>>((s) => s.duplicateForm),
     defaultValues: start(source),
   });
   useEffect(() => {
-    if (source) reset(start(source));
+    if (!source) return;
+    reset(start(source));
+    void loadFormSchemas().catch(() => {}); // ready before the first submit
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [source?.id, reset]);
   const submit = handleSubmit(async (v) => {

@@ -3,7 +3,7 @@
 // likes); it downloads no plan screen, no reanimated and no gesture handler (checked against the build's source
 // maps); its fonts are WOFF2 subsets, a few tens of kilobytes each, declared with font-display: swap. A read-only
 // link loads the plan in a chunk of its own (components/shareScreen.ts), not the editor's workspace chunk. The
-// app starts in steps (entry.web.js).
+// library comes without zod (its dialogs' schemas load when one opens). The app starts in steps (entry.web.js).
 import { existsSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { describe, expect, inject, it } from 'vitest';
@@ -95,6 +95,88 @@ describe('first load', () => {
     await context.close();
   });
 
+  it('shows the library without zod, whose schemas arrive when a dialog opens, and the editor without gesture handler', async () => {
+    const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
+    const context = await browser().newContext({ viewport: viewports.phone, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    await context.addCookies(
+      owner
+        .cookieHeader()
+        .split('; ')
+        .filter(Boolean)
+        .map((c) => ({ name: c.slice(0, c.indexOf('=')), value: c.slice(c.indexOf('=') + 1), url: base })),
+    );
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    const scripts: string[] = [];
+    page.on('request', (r) => r.resourceType() === 'script' && scripts.push(new URL(r.url()).pathname));
+    await page.goto(`${base}/setups`);
+    await expect.poll(() => page.getByTestId('setup-card').count(), { timeout: 30_000 }).toBeGreaterThan(0);
+    // The library's route chunk and its layouts: the dialogs' forms take their schemas through lazyResolver
+    // (components/library/SetupDialogs.tsx), so neither zod nor the forms' schemas come with the page.
+    const sources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
+    expect(sources.length).toBeGreaterThan(100);
+    for (const heavy of ['node_modules/zod/', '/model/forms.ts', '@hookform/resolvers', '/model/document.ts', '/calc/']) {
+      expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
+    }
+    expect(scripts.some((s) => /\/formSchemas-[0-9a-f]+\.js$/.test(s))).toBe(false);
+    // Opening "New setup" fetches them; the form still checks with the shared schema.
+    await page.getByRole('button', { name: 'New setup' }).click();
+    await expect.poll(() => scripts.some((s) => /\/formSchemas-[0-9a-f]+\.js$/.test(s)), { timeout: 30_000 }).toBe(true);
+    await page.getByRole('button', { name: 'Create and open' }).click();
+    await expect.poll(() => page.getByText('give the setup a title').isVisible(), { timeout: 30_000 }).toBe(true);
+
+    // The editor on a phone: its bottom sheet drags with the page's own pointer events
+    // (components/editor/sheetDrag.web.tsx), so the page downloads no gesture handler (tests/e2e/phone-sheet.test.ts
+    // drags it).
+    const setup = (await owner.get<{ setups: { id: string; title: string }[] }>('/api/setups?q=Clamshell%20headshot')).body.setups.find((x) => x.title.startsWith('Clamshell headshot'))!;
+    scripts.length = 0;
+    // The editor's route starts the plan screens' chunks as it renders (preloadWorkspace), so they evaluate
+    // while the setup is still on its way: held here until the workspace's modules have been evaluated.
+    let releaseSetup!: () => void;
+    const setupHeld = new Promise<void>((r) => (releaseSetup = r));
+    await page.route(new RegExp(`/api/setups/${setup.id}$`), async (route) => {
+      if (route.request().method() === 'GET') await setupHeld;
+      await route.continue();
+    });
+    await page.goto(`${base}/setups/${setup.id}`, { waitUntil: 'commit' });
+    await expect.poll(() => page.evaluate(() => performance.getEntriesByName('falloff:workspace').length), { timeout: 30_000 }).toBe(1);
+    releaseSetup();
+    await expect.poll(() => page.getByTestId('sheet-handle').isVisible(), { timeout: 30_000 }).toBe(true);
+    const editorSources = sourcesOf(scripts.filter((s) => s.startsWith('/_expo/')));
+    expect(editorSources.some((s) => s.includes('/components/editor/BottomSheet.tsx'))).toBe(true);
+    for (const heavy of ['react-native-gesture-handler', '@egjs/hammerjs']) expect(editorSources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('paints the read-only page’s frame and words before its plan chunk arrives', async () => {
+    const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
+    const setup = (await owner.get<{ setups: { id: string; title: string }[] }>('/api/setups?q=Clamshell%20headshot')).body.setups.find((x) => x.title.startsWith('Clamshell headshot'))!;
+    const made = await owner.post<{ url: string }>(`/api/setups/${setup.id}/shares`, { label: 'First load shell test' });
+    expect(made.status).toBe(201);
+    const context = await browser().newContext({ viewport: viewports.phone, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    // The share chunk is held until the test lets it go.
+    let release!: () => void;
+    const held = new Promise<void>((r) => (release = r));
+    await page.route(/\/shareScreen-[0-9a-f]+\.js$/, async (route) => {
+      await held;
+      await route.continue();
+    });
+    await page.goto(new URL(new URL(made.body.url).pathname, base).href, { waitUntil: 'commit' });
+    // components/SharedShell.tsx: the route's fallback, painted with the first chunks (the page's first
+    // contentful paint), not a spinner.
+    await expect.poll(() => page.getByText('Opening the shared setup…').isVisible(), { timeout: 30_000 }).toBe(true);
+    expect(await page.getByText('FALLOFF · READ-ONLY').isVisible()).toBe(true);
+    expect(await page.evaluate(() => performance.getEntriesByName('first-contentful-paint').length)).toBe(1);
+    release();
+    await expect.poll(() => page.getByTestId('shared-camera').isVisible(), { timeout: 30_000 }).toBe(true);
+    expect(await page.getByText('Opening the shared setup…').count()).toBe(0);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('loads the read-only plan with a link, without the editor’s chunk', async () => {
     const owner = await new Client(base).signIn(demoUsers.owner.email, DEMO_PASSWORD);
     // A demo setup by name: the owner's newest setup is whatever another test file made last (an empty plan reads
@@ -110,6 +192,8 @@ describe('first load', () => {
     const workers: string[] = [];
     page.on('request', (r) => r.resourceType() === 'script' && scripts.push(new URL(r.url()).pathname));
     page.on('worker', (w) => workers.push(new URL(w.url()).pathname));
+    const sharedAsks: string[] = [];
+    page.on('request', (r) => /^\/api\/shared\/[^/]+$/.test(new URL(r.url()).pathname) && sharedAsks.push(r.url()));
     await page.goto(new URL(new URL(made.body.url).pathname, base).href);
     await expect.poll(() => page.getByTestId('shared-camera').isVisible(), { timeout: 30_000 }).toBe(true);
     expect(await page.getByTestId('shared-plan').locator('svg').count()).toBeGreaterThan(0);
@@ -120,6 +204,16 @@ describe('first load', () => {
     await expect.poll(() => page.getByText('At the subject').first().isVisible()).toBe(true);
     expect(await page.getByText(subject, { exact: true }).count()).toBeGreaterThanOrEqual(2);
     expect(workers).toContain('/workers/meter.js');
+    // One meter worker: started while the setup was on its way (warmMeterEngine) and taken by the screen.
+    expect(workers.filter((w) => w === '/workers/meter.js')).toHaveLength(1);
+    // The setup asked for once, by the route as it rendered (hooks/sharedEarly.ts), before the share chunk's
+    // modules were evaluated (its first step's mark), and that answer taken by the screen.
+    expect(sharedAsks).toHaveLength(1);
+    const [askedAt, firstStep] = await page.evaluate(() => [
+      performance.getEntriesByType('resource').find((e) => /\/api\/shared\/[^/]+$/.test(new URL(e.name).pathname))?.startTime ?? NaN,
+      performance.getEntriesByName('falloff:share 1/6')[0]?.startTime ?? NaN,
+    ]);
+    expect(askedAt).toBeLessThan(firstStep!);
     // Its own chunk (the plan, the meter, the document model), not the editor's workspace chunk.
     expect(scripts.some((s) => /\/shareScreen-[0-9a-f]+\.js$/.test(s))).toBe(true);
     expect(scripts.some((s) => /\/workspace-[0-9a-f]+\.js$/.test(s))).toBe(false);
@@ -141,12 +235,23 @@ describe('first load', () => {
     // spaces CSS does not write (web/culoriCss.js).
     // Nor better-auth's client: who is signed in is read with a plain fetch (hooks/session.ts).
     expect(scripts.some((s) => /\/authClient-[0-9a-f]+\.js$/.test(s))).toBe(false);
-    for (const heavy of ['node_modules/better-auth/', 'node_modules/@better-fetch/', '/hooks/authClient.ts', '/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl']) {
+    // Nor the classes' model and page parts (the comments take an item's name from model/kinds.ts and the error
+    // words from components/errorText.ts), nor the frame's renderer (the frame worker renders; the page loads it,
+    // a chunk of its own, only without a worker: components/frame/engine.ts).
+    for (const heavy of ['node_modules/better-auth/', 'node_modules/@better-fetch/', '/hooks/authClient.ts', '/components/editor/EditorScreen', '/components/editor/Inspector', '/components/classes/LessonBuilder', '/components/classes/ReviewScreen', '/components/side/', 'react-native-gesture-handler', '@egjs/hammerjs', 'react-hook-form', 'culori/src/cubehelix', 'culori/src/okhsl', '/model/classes.ts', '/components/classes/parts.tsx', '/calc/frame/render.ts']) {
       expect(sources.filter((s) => s.includes(heavy)), heavy).toEqual([]);
     }
     // Every group layout loads on every page; what two of them share comes once (scripts/chunkTiers.cjs).
     const twice = sources.filter((s, i) => !s.includes('empty-module') && sources.indexOf(s) !== i);
     expect(twice).toEqual([]);
+    // Nor a library twice, as its ES and its CommonJS build (a `require` by a package's name resolves to the
+    // latter: components/shareScreen.ts requires only our own modules).
+    const stems = sources.map((s) => s.replace(/\.(c|m)?js$/, ''));
+    expect(sources.filter((s, i) => /\.(c|m)?js$/.test(s) && stems.indexOf(stems[i]!) !== i)).toEqual([]);
+    // The share chunk's modules evaluated in steps, each a task of its own (components/shareScreen.ts).
+    const shareMarks = await page.evaluate(() => performance.getEntriesByType('mark').map((m) => m.name).filter((n) => n.startsWith('falloff:share ')));
+    expect(shareMarks.length).toBeGreaterThan(3);
+    expect(shareMarks).toEqual(shareMarks.map((_, i) => `falloff:share ${i + 1}/${shareMarks.length}`));
     expect(errors).toEqual([]);
     await context.close();
   });

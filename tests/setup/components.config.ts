@@ -2,13 +2,19 @@
 // (react-native-web into a jsdom document), with @testing-library/react. How modules resolve is explained in
 // rn-require.ts (Metro's web resolution for library code), vite-plugin-react-native.ts (react-native is
 // react-native-web in tests and app code) and components.setup.ts.
+import { join } from 'node:path';
 import type { TestProjectInlineConfiguration } from 'vitest/config';
 import { reactNativeBridge } from './vite-plugin-react-native';
 
 export const componentsProject: TestProjectInlineConfiguration = {
   plugins: [reactNativeBridge()],
   // The app's own platform files as Metro picks them for the web: `X.web.tsx` before `X.tsx`.
-  resolve: { extensions: ['.web.tsx', '.web.ts', '.web.js', '.tsx', '.ts', '.mjs', '.js', '.jsx', '.json'] },
+  resolve: {
+    extensions: ['.web.tsx', '.web.ts', '.web.js', '.tsx', '.ts', '.mjs', '.js', '.jsx', '.json'],
+    // The share chunk's entry evaluates its modules in steps with `require`, which cannot load our TypeScript
+    // here: tests get the same two exports imported together (components/shareScreenTogether.ts).
+    alias: [{ find: /^(?:\.\.?\/)+(?:components\/)?shareScreen$/, replacement: join(__dirname, '..', '..', 'components', 'shareScreenTogether.ts') }],
+  },
   test: {
     name: 'components',
     include: ['tests/components/**/*.test.tsx'],

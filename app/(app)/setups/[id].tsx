@@ -1,6 +1,6 @@
 // One setup in the editor (crew see it read-only).
 import { useLocalSearchParams } from 'expo-router';
-import { workspaceScreen } from '../../../components/workspaceScreen';
+import { preloadWorkspace, workspaceScreen } from '../../../components/workspaceScreen';
 import { Loading } from '../../../components/Loading';
 import { SetupMissing } from '../../../components/library/SetupMissing';
 import { useMe } from '../../../hooks/me';
@@ -11,6 +11,9 @@ const EditorScreen = workspaceScreen('EditorScreen');
 
 export default function SetupEditorRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();
+  // The editor's chunks evaluate while the setup downloads (the screen would otherwise ask for them only once
+  // it arrived).
+  preloadWorkspace();
   const me = useMe();
   const setup = useSetup(id);
   if (setup.isPending || me.isPending) return <Loading />;
