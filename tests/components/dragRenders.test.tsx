@@ -98,7 +98,8 @@ const at = (editor: Editor, id: string) => {
 describe('a drag on the plan', () => {
   let meter: Meter | null = null;
   beforeEach(() => {
-    vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date'] });
+    // Animation frames too: a gesture's end lets the panels catch up after the next frame (afterPaint).
+    vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date', 'requestAnimationFrame', 'cancelAnimationFrame'] });
     glyphRenders.clear();
   });
   afterEach(() => {
