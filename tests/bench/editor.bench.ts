@@ -3,7 +3,8 @@
 //     `item-glyph-l0`, or the fresh drawing beside it while that one is hidden) moves on screen during the drag;
 //   - pointer-to-glyph lag: from the moment a pointer move is sent to the first frame whose glyph stands where
 //     that move put it (median and p90);
-//   - the meter when the hand stops: how many meter updates land after the glyph's last move, and how long after;
+//   - the meter when the hand stops: how many meter updates land after the glyph's last move, and how long after
+//     (one watcher of the meter's text at a time: each run's sampler disconnects the last run's);
 //   - the longest gap between animation frames from the press to a second after the release, and how many
 //     exceed 50 ms (the release's commit, save and catch-up included).
 // The drag comes from tests/bench/dragDriver.ts (moves at 60 Hz, not waiting for the page); the page samples the
@@ -48,11 +49,13 @@ const sampler = (glyphTestId: string, meterTestId: string) => `(() => {
   requestAnimationFrame(tick);
   const meter = document.querySelector('[data-testid="${meterTestId}"]');
   let lastText = meter ? meter.textContent : null;
-  if (meter) new MutationObserver(() => {
+  // One watcher at a time: an earlier run's would count each change again.
+  if (w.__meterWatch) w.__meterWatch.disconnect();
+  if (meter) (w.__meterWatch = new MutationObserver(() => {
     const m = document.querySelector('[data-testid="${meterTestId}"]');
     const text = m ? m.textContent : null;
     if (text !== lastText) { lastText = text; w.__meter.push({ t: performance.timeOrigin + performance.now(), text }); }
-  }).observe(document.body, { subtree: true, childList: true, characterData: true });
+  })).observe(document.body, { subtree: true, childList: true, characterData: true });
 })()`;
 
 type Run = { updatesPerS: number; lagMs: number[]; meterAfter: number; meterLagMs: number; moved: boolean; taskMsPerMove: number; scriptMsPerMove: number; longestFrameMs: number; framesOver50: number };
