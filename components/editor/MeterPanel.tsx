@@ -3,7 +3,7 @@ import { memo } from 'react';
 // ratios, background, ambient, sync and power advice. Every reading is text (never colour alone).
 import { Pressable, StyleSheet, Text, View } from 'react-native';
 import Svg, { Line, Path, Text as SvgText } from 'react-native-svg';
-import { scaleLinear } from 'd3-scale';
+import { nice, ticks } from 'd3-array';
 import { line } from 'd3-shape';
 import { inverseSquareStops, type MeterResult } from '../../calc';
 import type { Readings } from '../../canvas/useReadings';
@@ -228,6 +228,14 @@ function toneWords(t: { stops: (number | null)[]; clipped: boolean; blocked: boo
   return `${v}${t.clipped ? ' (clips)' : t.blocked ? ' (black)' : ''}`;
 }
 
+/** A linear map from `domain` to `range` (the chart's axes; d3-array gives their round ends and ticks). */
+function linear(domain: [number, number], range: [number, number]) {
+  const [d0, d1] = domain;
+  const [r0, r1] = range;
+  const k = d1 === d0 ? 0 : (r1 - r0) / (d1 - d0);
+  return Object.assign((v: number) => (k === 0 ? (r0 + r1) / 2 : r0 + (v - d0) * k), { domain });
+}
+
 /** Stops at the subject against the selected light's distance: the inverse-square curve, with where it stands. */
 function FalloffChart({ m, light, units }: { m: MeterResult; light: ItemOf<'light'>; units: Units }) {
   const reading = m.lights.find((l) => l.id === light.id);
@@ -237,10 +245,10 @@ function FalloffChart({ m, light, units }: { m: MeterResult; light: ItemOf<'ligh
   const h = 120;
   const pad = { l: 34, r: 8, t: 8, b: 22 };
   const maxD = Math.max(4, d0 * 2);
-  const x = scaleLinear().domain([0.5, maxD]).range([pad.l, w - pad.r]);
+  const x = linear([0.5, maxD], [pad.l, w - pad.r]);
   const stopsAt = (d: number) => reading.stopsVsCamera! + inverseSquareStops(d0, d);
   const ys = [stopsAt(0.5), stopsAt(maxD)];
-  const y = scaleLinear().domain([Math.min(...ys), Math.max(...ys)]).nice().range([h - pad.b, pad.t]);
+  const y = linear(nice(Math.min(...ys), Math.max(...ys), 10), [h - pad.b, pad.t]);
   const pts: [number, number][] = Array.from({ length: 40 }, (_, k) => {
     const d = 0.5 + ((maxD - 0.5) * k) / 39;
     return [x(d), y(stopsAt(d))];
@@ -253,12 +261,12 @@ function FalloffChart({ m, light, units }: { m: MeterResult; light: ItemOf<'ligh
         <Line x1={pad.l} y1={y(0)} x2={w - pad.r} y2={y(0)} stroke={colours.textFaint} strokeDasharray="3,3" />
         <Path d={path} stroke={colours.accent} strokeWidth={2} fill="none" />
         <Line x1={x(d0)} y1={pad.t} x2={x(d0)} y2={h - pad.b} stroke={colours.cool} />
-        {y.ticks(4).map((t) => (
+        {ticks(...y.domain, 4).map((t) => (
           <SvgText key={t} x={pad.l - 4} y={y(t) + 4} fontSize={10} fill={colours.textDim} textAnchor="end" fontFamily={fonts.mono}>
             {formatStops(t)}
           </SvgText>
         ))}
-        {x.ticks(4).map((t) => (
+        {ticks(...x.domain, 4).map((t) => (
           <SvgText key={t} x={x(t)} y={h - 6} fontSize={10} fill={colours.textDim} textAnchor="middle" fontFamily={fonts.mono}>
             {formatLength(t, units, 1)}
           </SvgText>

@@ -3,7 +3,7 @@ import { render, screen } from '@testing-library/react';
 import { MeterPanel } from '../../components/editor/MeterPanel';
 import { computeReadings } from '../../model/setupReadings';
 import { demoSetups } from '../../db/seed-setups';
-import { parseDocument, type SetupDocument } from '../../model/document';
+import { parseDocument, type ItemOf, type SetupDocument } from '../../model/document';
 import { formatAperture, formatStops } from '../../model/units';
 
 function show(doc: SetupDocument) {
@@ -89,5 +89,36 @@ describe('MeterPanel', () => {
     show({ ...d, items: d.items.map((i) => (i.kind === 'light' ? { ...i, stand: 'boom' as const, sandbagged: false } : i)) });
     expect(screen.getByText(/on a boom with no sandbag noted/)).toBeInTheDocument();
     expect(screen.getByText(/local electrical and venue codes/)).toBeInTheDocument();
+  });
+
+  it('draws the selected light\'s falloff: the inverse-square curve, round stops and distances on its axes', () => {
+    const doc = demoSetups[1]!.document;
+    const readings = computeReadings(doc);
+    const light = doc.items.find((i) => i.kind === 'light') as ItemOf<'light'>;
+    const reading = readings.meter!.lights.find((l) => l.id === light.id)!;
+    const { container } = render(<MeterPanel readings={readings} doc={doc} selectedLight={light} units="metric" />);
+    const chart = container.querySelector('svg')!;
+    const labels = Array.from(chart.querySelectorAll('text')).map((t) => t.textContent ?? '');
+    // Distances from 0.5 m to max(4 m, twice the light's): ticks at round metres (d3-array's ticks).
+    const maxD = Math.max(4, reading.distanceM * 2);
+    const metres = labels.filter((l) => l.endsWith(' m')).map((l) => parseFloat(l));
+    expect(metres.length).toBeGreaterThanOrEqual(3);
+    for (const d of metres) {
+      expect(d).toBeGreaterThanOrEqual(0.5);
+      expect(d).toBeLessThanOrEqual(maxD);
+      expect(Number.isInteger(d * 2)).toBe(true);
+    }
+    // Stops on the other axis: round values spanning the curve, which falls 2 stops at twice the distance
+    // (inverse-square law) — from the reading at 0.5 m to the reading at the far end.
+    const stops = labels.filter((l) => !l.endsWith(' m')).map((l) => parseFloat(l.replace('−', '-').replace('±', '')));
+    expect(stops.length).toBeGreaterThanOrEqual(2);
+    const at = (d: number) => reading.stopsVsCamera! - 2 * Math.log2(d / reading.distanceM);
+    expect(Math.min(...stops)).toBeGreaterThanOrEqual(Math.floor(at(maxD)) - 1);
+    expect(Math.max(...stops)).toBeLessThanOrEqual(Math.ceil(at(0.5)) + 1);
+    const path = chart.querySelector('path')!.getAttribute('d')!;
+    expect(path).toMatch(/^M[\d.]+,[\d.]+(L[\d.]+,[\d.]+){39}$/);
+    // The curve falls from left to right: its first point is higher on screen (smaller y) than its last.
+    const ys = path.slice(1).split('L').map((p) => Number(p.split(',')[1]));
+    expect(ys[0]!).toBeLessThan(ys.at(-1)!);
   });
 });
