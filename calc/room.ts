@@ -4,6 +4,7 @@
  * patches, every later bounce by radiosity on coarse patches. Receptors (flat discs and domes) gather from it.
  * Shared by meter.ts and field.ts.
  */
+import { contourSum, polygonFlat } from './bounce';
 import type { Rgb } from './colour';
 import { MODIFIERS, lookupProfile } from './modifiers';
 import {
@@ -262,28 +263,6 @@ const polyBuf = new Float64Array(3 * 8);
  */
 const SAMPLE_FRACTIONS: readonly (readonly [number, number])[] = [-3 / 4, -1 / 4, 1 / 4, 3 / 4].flatMap((a) => [-3 / 4, -1 / 4, 1 / 4, 3 / 4].map((b) => [a, b] as const));
 
-const clipPoly = new Float64Array(3 * 10);
-
-/** Σ γᵢ·(n·cᵢ)/|cᵢ| over the edges of the polygon q (m corners), cᵢ = qᵢ × qᵢ₊₁, γᵢ the angle between the corners. */
-function contourSum(q: Float64Array, m: number, nx: number, ny: number, nz: number): number {
-  let sum = 0;
-  for (let i = 0; i < m; i++) {
-    const j = i + 1 === m ? 0 : i + 1;
-    const ax = q[3 * i]!;
-    const ay = q[3 * i + 1]!;
-    const az = q[3 * i + 2]!;
-    const bx = q[3 * j]!;
-    const by = q[3 * j + 1]!;
-    const bz = q[3 * j + 2]!;
-    const cx = ay * bz - az * by;
-    const cy = az * bx - ax * bz;
-    const cz = ax * by - ay * bx;
-    const cl = Math.sqrt(cx * cx + cy * cy + cz * cz);
-    if (cl < 1e-15) continue; // edge through the receptor or degenerate: no contribution
-    sum += (Math.atan2(cl, ax * bx + ay * by + az * bz) * (nx * cx + ny * cy + nz * cz)) / cl;
-  }
-  return sum;
-}
 
 /** The polygon's unnormalised vector irradiance Σ γᵢ·cᵢ/|cᵢ| (its sign set by the corners' order), into vecOut. */
 const vecOut = new Float64Array(3);
@@ -314,49 +293,6 @@ function contourVector(q: Float64Array, m: number): void {
   vecOut[2] = sz;
 }
 
-/**
- * Irradiance per unit luminance from a convex polygon (corners relative to the receptor, at most 8) on a flat
- * receptor of normal n, clipped to its horizon — Lambert's contour integral over the polygon's own edges (one
- * term per edge: an octagon costs 8, where a fan of quads cost 12, its diagonals twice).
- */
-export function polygonFlat(pts: Float64Array, n: number, nx: number, ny: number, nz: number): number {
-  let behind = false;
-  let front = false;
-  for (let i = 0; i < n; i++) {
-    if (pts[3 * i]! * nx + pts[3 * i + 1]! * ny + pts[3 * i + 2]! * nz >= 0) front = true;
-    else behind = true;
-  }
-  if (!front) return 0;
-  if (!behind) return Math.abs(contourSum(pts, n, nx, ny, nz)) * 0.5;
-  // Clip against the plane n·p = 0 (Sutherland–Hodgman, one plane: at most one corner more).
-  let m = 0;
-  for (let i = 0; i < n; i++) {
-    const j = i + 1 === n ? 0 : i + 1;
-    const ax = pts[3 * i]!;
-    const ay = pts[3 * i + 1]!;
-    const az = pts[3 * i + 2]!;
-    const bx = pts[3 * j]!;
-    const by = pts[3 * j + 1]!;
-    const bz = pts[3 * j + 2]!;
-    const da = ax * nx + ay * ny + az * nz;
-    const db = bx * nx + by * ny + bz * nz;
-    if (da >= 0) {
-      clipPoly[3 * m] = ax;
-      clipPoly[3 * m + 1] = ay;
-      clipPoly[3 * m + 2] = az;
-      m++;
-    }
-    if ((da >= 0) !== (db >= 0)) {
-      const t = da / (da - db);
-      clipPoly[3 * m] = ax + (bx - ax) * t;
-      clipPoly[3 * m + 1] = ay + (by - ay) * t;
-      clipPoly[3 * m + 2] = az + (bz - az) * t;
-      m++;
-    }
-  }
-  if (m < 3) return 0;
-  return Math.abs(contourSum(clipPoly, m, nx, ny, nz)) * 0.5;
-}
 
 const lenBuf = new Float64Array(8);
 

@@ -8,8 +8,8 @@ import { createLightMapCache, lightMap, meterParsed, parseScene, type LightInput
 import { buildOccluders } from '../../../calc/flatScene';
 import { millimetres } from '../../../calc/lightmap';
 import { bounceCoarse, bounceSplit, buildGeometry, directGrid } from '../../../calc/lightmap-grid';
-import { polygonIrradiancePerLuminance } from '../../../calc/bounce';
-import { buildRoom, directLux, polygonFlat, polygonResponse, polygonSolidAngle, resetRoomCache } from '../../../calc/room';
+import { polygonFlat, polygonIrradiancePerLuminance } from '../../../calc/bounce';
+import { buildRoom, directLux, polygonResponse, polygonSolidAngle, resetRoomCache } from '../../../calc/room';
 import { castShadows, castShadowsCount, castShadowsSum } from '../../../calc/shadows';
 
 const softbox = (id: string, x: number, y: number, aimDeg: number): LightInput =>
