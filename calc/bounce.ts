@@ -74,7 +74,7 @@ export function polygonIrradiancePerLuminance(v: readonly Vec3[], n: Vec3): numb
 const clipPoly = new Float64Array(3 * 10);
 
 /** Σ γᵢ·(n·cᵢ)/|cᵢ| over the edges of the polygon q (m corners), cᵢ = qᵢ × qᵢ₊₁, γᵢ the angle between the corners. */
-export function contourSum(q: Float64Array, m: number, nx: number, ny: number, nz: number): number {
+function contourSum(q: Float64Array, m: number, nx: number, ny: number, nz: number): number {
   let sum = 0;
   for (let i = 0; i < m; i++) {
     const j = i + 1 === m ? 0 : i + 1;

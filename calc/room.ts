@@ -4,7 +4,7 @@
  * patches, every later bounce by radiosity on coarse patches. Receptors (flat discs and domes) gather from it.
  * Shared by meter.ts and field.ts.
  */
-import { contourSum, polygonFlat } from './bounce';
+import { polygonFlat } from './bounce';
 import type { Rgb } from './colour';
 import { MODIFIERS, lookupProfile } from './modifiers';
 import {
