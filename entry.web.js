@@ -33,11 +33,38 @@ function preloadLater() {
   }
 }
 
+/** On a page rendered at build time (scripts/staticPages.mjs): the route's own chunks (its layouts and its
+ *  screen, named by the server in a meta tag), run as scripts now, so that by the last step their modules are
+ *  defined and the router's lazy routes resolve at once. React then hydrates the whole page in one pass; a
+ *  route still loading would leave its part of the page waiting, and any update reaching it before it had
+ *  hydrated would make React throw the build's markup away and draw it again. A promise for all of them
+ *  (never rejected: a chunk that fails to load is asked for again by the router, as on any page). */
+function loadForHydration() {
+  if (typeof document === 'undefined') return Promise.resolve();
+  const meta = document.querySelector('meta[name="falloff-hydrate-scripts"]');
+  const srcs = (meta?.getAttribute('content') ?? '').split(' ').filter(Boolean);
+  return Promise.all(
+    srcs.map(
+      (src) =>
+        new Promise((resolve) => {
+          const script = document.createElement('script');
+          script.src = src;
+          script.onload = script.onerror = () => resolve();
+          document.head.appendChild(script);
+        }),
+    ),
+  );
+}
+
+const prerendered = typeof document !== 'undefined' && document.querySelector('meta[name="falloff-prerendered"]') !== null;
+let hydrationReady = Promise.resolve();
+
 // Groups of what the router's entry evaluates, the libraries underneath first; each step evaluates only what
 // the earlier ones have not (Metro evaluates a module once, on its first require).
 const steps = [
   () => {
     preloadLater();
+    if (prerendered) hydrationReady = loadForHydration();
     require('react-dom/client');
   },
   // react-native-web in three: its style sheet with the core views, the Animated library it vendors (with the
@@ -58,8 +85,13 @@ const steps = [
   () => require('expo-router/build/ExpoRoot'),
   () => require('expo-router/build/qualified-entry'),
   () => {
+    // A page rendered at build time (scripts/staticPages.mjs marks it) is hydrated: React takes over the markup
+    // already on screen. Every other page (the app shell's empty root) is rendered into.
+    globalThis.__EXPO_ROUTER_HYDRATE__ = prerendered;
     const { App } = require('expo-router/build/qualified-entry');
-    require('expo-router/build/renderRootComponent').renderRootComponent(App);
+    const render = () => require('expo-router/build/renderRootComponent').renderRootComponent(App);
+    if (prerendered) hydrationReady.then(render);
+    else render();
   },
 ];
 

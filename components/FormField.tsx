@@ -1,7 +1,8 @@
 // A labelled text input bound to react-hook-form; the field's error (from the shared zod schema or the
 // server) shows beside it.
+import { useEffect, useRef } from 'react';
 import { Controller, type Control, type FieldValues, type Path } from 'react-hook-form';
-import { StyleSheet, Text, TextInput, View, type TextInputProps } from 'react-native';
+import { Platform, StyleSheet, Text, TextInput, View, type TextInputProps } from 'react-native';
 import { colours, fonts, radius, space } from '../constants/theme';
 import { ErrorText } from './ui';
 
@@ -21,7 +22,7 @@ export function FormField<T extends FieldValues>({
         control={control}
         name={name}
         render={({ field }) => (
-          <TextInput
+          <BoundInput
             {...input}
             accessibilityLabel={label}
             aria-labelledby={`${name}-label`}
@@ -36,6 +37,24 @@ export function FormField<T extends FieldValues>({
       {error ? <ErrorText>{error}</ErrorText> : null}
     </View>
   );
+}
+
+/**
+ * The input, keeping what was typed before the page hydrated: a signed-out page is rendered at build time
+ * (scripts/staticPages.mjs) and its fields take keys before the scripts arrive; React keeps the field's text
+ * when it hydrates but the form's value is still empty, so the form is told once the input is mounted.
+ */
+function BoundInput(props: TextInputProps & { value: string; onChangeText: (text: string) => void }) {
+  const ref = useRef<TextInput>(null);
+  const { value, onChangeText } = props;
+  useEffect(() => {
+    if (Platform.OS !== 'web') return;
+    const typed = (ref.current as unknown as { value?: unknown } | null)?.value;
+    if (typeof typed === 'string' && typed !== value) onChangeText(typed);
+    // Once, as the field mounts: later keys reach the form through onChangeText.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
+  return <TextInput ref={ref} {...props} />;
 }
 
 const s = StyleSheet.create({

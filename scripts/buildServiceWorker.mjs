@@ -7,7 +7,9 @@ import { join } from 'node:path';
 
 /** The files of the build the worker precaches (the app shell, chunks, workers, fonts, icons). */
 export const PRECACHE_GLOBS = ['**/*.{html,js,css,ttf,otf,woff,woff2,png,svg,ico,webmanifest}'];
-const IGNORED = ['sw.js', '**/*.map', '**/*.br', '**/*.gz', '**/.falloff-*', 'assets/node_modules/expo-router/**'];
+// Not the pages rendered at build time (dist/pages/): offline, a navigation gets the app shell (index.html),
+// which renders any route.
+const IGNORED = ['sw.js', '**/*.map', '**/*.br', '**/*.gz', '**/.falloff-*', 'assets/node_modules/expo-router/**', 'pages/**'];
 
 function htmlFiles(dir) {
   const out = [];

@@ -159,7 +159,7 @@ function moveSourceMaps(from, to) {
 async function ensureWebBuild() {
   // Everything the bundle is built from (the client imports app/, components/, hooks/, constants/, canvas/, drawing/,
   // model/ and calc/).
-  const want = hashTree(['app', 'components', 'hooks', 'constants', 'canvas', 'drawing', 'calc', 'model', 'assets', 'package-lock.json', 'package.json', 'entry.js', 'entry.web.js', 'app.json', 'babel.config.js', 'metro.config.js', 'scripts/precompress.mjs', 'web', 'public', 'scripts/buildServiceWorker.mjs', 'scripts/webfonts.mjs', 'scripts/chunkTiers.cjs', 'scripts/routePreloads.mjs']);
+  const want = hashTree(['app', 'components', 'hooks', 'constants', 'canvas', 'drawing', 'calc', 'model', 'assets', 'package-lock.json', 'package.json', 'entry.js', 'entry.web.js', 'app.json', 'babel.config.js', 'metro.config.js', 'scripts/precompress.mjs', 'web', 'public', 'scripts/buildServiceWorker.mjs', 'scripts/webfonts.mjs', 'scripts/chunkTiers.cjs', 'scripts/routePreloads.mjs', 'scripts/staticPages.mjs']);
   const stamp = join(root, 'dist', '.falloff-build.sha256');
   if (readText(stamp) === want && existsSync(join(root, 'dist', 'index.html'))) return;
   log('building the web app (expo export -p web)…');
@@ -171,6 +171,10 @@ async function ensureWebBuild() {
     hint: 'the bundler names the file and line above; fix it (npx tsc --noEmit -p . helps) and run the command again.',
   });
   moveSourceMaps(join(root, 'dist'), join(root, 'dist-maps'));
+  // The app shell and the pages that paint before any script (the signed-out forms, the read-only link's shell)
+  // from the export's HTML; every other page it wrote is dropped.
+  const { staticPages } = await import('./staticPages.mjs');
+  log(`pages rendered at build time: ${Object.keys(staticPages({ webDir: join(root, 'dist') })).join(', ')}`);
   // Which scripts each route needs, for the server to preload in that page's HTML (server/web.ts, appPage).
   const { routePreloads } = await import('./routePreloads.mjs');
   log(`route preloads: ${routePreloads({ root, webDir: join(root, 'dist'), mapsDir: join(root, 'dist-maps') }).routes} routes`);

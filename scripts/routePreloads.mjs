@@ -3,14 +3,15 @@
 // first chunk, rather than one after another as the router asks for them (a round trip and a download each,
 // with the network idle while the phone's CPU works).
 //
-// From the build's source maps (dist-maps/): each route's chunk (its first source is the route file), every
+// From the build's source maps (dist-maps/): each route's chunk (the one source under app/ is the route file), every
 // layout's chunk (the router fetches every group's layout on every page), and the plan screens' lazily loaded
 // chunks for the routes that use them: `sharedSetupScreen(` in the route file needs components/shareScreen.ts,
 // `workspaceScreen(` needs it and components/workspace.ts (DEVELOPERS.md, "First load on the web").
-// Writes dist/route-preloads.json: { routes: [{ route, pattern, files, later }] }, most specific pattern first:
+// Writes dist/route-preloads.json: { routes: [{ route, pattern, files, later, page? }] }, most specific pattern first:
 // `files` (small: the layouts) for the HTML itself, `later` (the route's chunk and the plan chunks: tens to
 // a hundred and more KB) for the first chunk to ask for once it has arrived (entry.web.js), so they do not
-// share the network with it (the library's 58 KB chunk preloaded by the HTML put its first paint ~0.5 s later).
+// share the network with it (the library's 58 KB chunk preloaded by the HTML put its first paint ~0.5 s later);
+// `page`, for a route rendered at build time (scripts/staticPages.mjs), the HTML to send instead of index.html.
 import { existsSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 
@@ -42,9 +43,11 @@ export function routePreloads({ root, webDir, mapsDir }) {
     const map = join(mapsDir, `${name}.map`);
     if (!existsSync(map)) continue;
     const sources = JSON.parse(readFileSync(map, 'utf8')).sources.map((s) => s.replace(/^\/+/, ''));
-    chunks.push({ name, first: sources[0] ?? '', sources: new Set(sources) });
+    // A route's (or layout's) chunk holds its file under app/ and no other; where in the chunk depends on the
+    // export's output mode (first in a single-page export, after the modules it imports in a static one).
+    chunks.push({ name, app: sources.find((s) => s.startsWith('app/')) ?? '', sources: new Set(sources) });
   }
-  const layouts = chunks.filter((c) => /^app\/(.*\/)?_layout\.[jt]sx?$/.test(c.first)).map((c) => url(c.name));
+  const layouts = chunks.filter((c) => /^app\/(.*\/)?_layout\.[jt]sx?$/.test(c.app)).map((c) => url(c.name));
   const lazy = {};
   for (const [key, source] of Object.entries(LAZY)) {
     const c = chunks.find((x) => x.name.startsWith(`${key}-`) && x.sources.has(source));
@@ -53,13 +56,15 @@ export function routePreloads({ root, webDir, mapsDir }) {
   }
   const routes = [];
   for (const c of chunks) {
-    if (!c.first.startsWith('app/')) continue;
-    const file = c.first.slice('app/'.length);
+    if (!c.app) continue;
+    const file = c.app.slice('app/'.length);
     const pattern = routePattern(file);
     if (!pattern) continue;
-    const text = readFileSync(join(root, c.first), 'utf8');
+    const text = readFileSync(join(root, c.app), 'utf8');
     const needs = /\bworkspaceScreen\(/.test(text) ? [lazy.shareScreen, lazy.workspace] : /\bsharedSetupScreen\(/.test(text) ? [lazy.shareScreen] : [];
-    routes.push({ route: file, pattern, files: layouts, later: [url(c.name), ...needs] });
+    // The route's build-time render (scripts/staticPages.mjs), when it has one.
+    const page = `pages/${file.replace(/\.[jt]sx?$/, '')}.html`;
+    routes.push({ route: file, pattern, files: layouts, later: [url(c.name), ...needs], ...(existsSync(join(webDir, page)) ? { page: `/${page}` } : {}) });
   }
   routes.sort((a, b) => dynamics(a.pattern) - dynamics(b.pattern) || b.pattern.length - a.pattern.length);
   writeFileSync(join(webDir, 'route-preloads.json'), `${JSON.stringify({ routes }, null, 2)}\n`);

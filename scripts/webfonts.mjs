@@ -1,10 +1,10 @@
 // Build step for the web app's fonts (run by scripts/ensure.mjs after `expo export`): the five IBM Plex faces the
 // theme names, as WOFF2 subset to the characters the app can show, with content-hashed names under dist/fonts/,
-// declared in dist/index.html with `font-display: swap` (text shows at once in a fallback face and swaps when the
+// declared in every page (dist/index.html, dist/pages/) with `font-display: swap` (text shows at once in a fallback face and swaps when the
 // face arrives) and the faces the first screen uses preloaded. The app on the web never waits for a font
 // (hooks/useAppFonts.web.ts); on phones expo-font loads the same faces from the packages.
 import { createHash } from 'node:crypto';
-import { mkdirSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import subsetFont from 'subset-font';
 
@@ -54,7 +54,22 @@ export function charactersShown(root) {
   return [...chars].sort().join('');
 }
 
-/** Writes the subsets into dist/fonts and the @font-face rules and preloads into dist/index.html. Returns sizes. */
+/** dist/index.html and the pages under dist/pages/. */
+function htmlPages(distDir) {
+  const out = [join(distDir, 'index.html')];
+  const walk = (dir) => {
+    if (!existsSync(dir)) return;
+    for (const e of readdirSync(dir, { withFileTypes: true })) {
+      if (e.isDirectory()) walk(join(dir, e.name));
+      else if (e.name.endsWith('.html')) out.push(join(dir, e.name));
+    }
+  };
+  walk(join(distDir, 'pages'));
+  return out;
+}
+
+/** Writes the subsets into dist/fonts and the @font-face rules and preloads into every page (dist/index.html,
+ *  dist/pages/). Returns sizes. */
 export async function buildWebFonts(root, distDir, background = '#1d2024') {
   const text = charactersShown(root);
   mkdirSync(join(distDir, 'fonts'), { recursive: true });
@@ -69,11 +84,13 @@ export async function buildWebFonts(root, distDir, background = '#1d2024') {
   );
   const css = faces.map((f) => `@font-face{font-family:${f.family};src:url(${f.url}) format("woff2");font-display:swap}`).join('');
   const preloads = faces.filter((f) => f.preload).map((f) => `<link rel="preload" href="${f.url}" as="font" type="font/woff2" crossorigin>`).join('');
-  const indexPath = join(distDir, 'index.html');
-  const html = readFileSync(indexPath, 'utf8');
-  if (html.includes('id="falloff-fonts"')) throw new Error('dist/index.html already has the fonts (build it again)');
   // The page's own background from the first paint (the app's graphite), not white until the script runs.
   const page = `html,body{background-color:${background}}`;
-  writeFileSync(indexPath, html.replace('</head>', `${preloads}<style id="falloff-fonts">${page}${css}</style></head>`));
+  // Every page of the build: the app shell and the pages rendered at build time (scripts/staticPages.mjs).
+  for (const path of htmlPages(distDir)) {
+    const html = readFileSync(path, 'utf8');
+    if (html.includes('id="falloff-fonts"')) throw new Error(`${path} already has the fonts (build it again)`);
+    writeFileSync(path, html.replace('</head>', `${preloads}<style id="falloff-fonts">${page}${css}</style></head>`));
+  }
   return { characters: [...text].length, faces: faces.map((f) => ({ family: f.family, bytes: f.bytes })) };
 }

@@ -128,12 +128,14 @@ export function webFiles(webDir: string): RequestHandler {
   };
 }
 
-type Preloads = { routes: { route: string; pattern: string; files: string[]; later?: string[] }[] };
+type Preloads = { routes: { route: string; pattern: string; files: string[]; later?: string[]; page?: string }[] };
 type Page = { html: string; br: Buffer; gzip: Buffer };
-type PageCache = { stamp: string; routes: { re: RegExp; files: string[]; later: string[] }[]; html: string; pages: Map<number, Page> };
+type PageCache = { stamp: string; routes: { re: RegExp; files: string[]; later: string[]; page: string | null }[]; html: string; pages: Map<number, Page> };
 
 /**
- * The app's HTML for any path that is no file (a single-page app): index.html, naming with `<link rel="preload">`
+ * The app's HTML for any path that is no file (a single-page app): index.html (the app shell), or for a route
+ * rendered at build time its page (`dist/pages/…`, scripts/staticPages.mjs: the markup paints before any script
+ * runs, and the app hydrates it), naming with `<link rel="preload">`
  * the script files that path's route needs before it can show (dist/route-preloads.json, written by
  * scripts/routePreloads.mjs), so the browser fetches them while it evaluates the first chunk instead of one after
  * another as the router asks; the larger ones (`later`) are named in a meta tag for entry.web.js to preload
@@ -149,14 +151,20 @@ export function appPage(webDir: string, files: RequestHandler): RequestHandler {
     const stamp = [htmlPath, preloadsPath].map((p) => (existsSync(p) ? `${statSync(p).mtimeMs}:${statSync(p).size}` : '-')).join('|');
     if (cache?.stamp === stamp) return cache;
     const preloads: Preloads = existsSync(preloadsPath) ? JSON.parse(readFileSync(preloadsPath, 'utf8')) : { routes: [] };
-    cache = { stamp, routes: preloads.routes.map((r) => ({ re: new RegExp(r.pattern), files: r.files, later: r.later ?? [] })), html: readFileSync(htmlPath, 'utf8'), pages: new Map() };
+    const html = readFileSync(htmlPath, 'utf8');
+    const routes = preloads.routes.map((r) => {
+      // A page named by the list but missing (a build cut short) falls back to the shell.
+      const pagePath = r.page ? join(webDir, ...r.page.split('/').filter(Boolean)) : null;
+      return { re: new RegExp(r.pattern), files: r.files, later: r.later ?? [], page: pagePath && existsSync(pagePath) ? readFileSync(pagePath, 'utf8') : null };
+    });
+    cache = { stamp, routes, html, pages: new Map() };
     return cache;
   };
   return (req, res, next) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return next();
     const c = load();
     const i = c.routes.findIndex((r) => r.re.test(req.path));
-    if (i < 0 || !c.html.includes('</body>')) {
+    if (i < 0 || !(c.routes[i]!.page ?? c.html).includes('</body>')) {
       req.url = '/index.html';
       return files(req, res, next);
     }
@@ -167,7 +175,9 @@ export function appPage(webDir: string, files: RequestHandler): RequestHandler {
       const r = c.routes[i]!;
       const links = r.files.map((f) => `<link rel="preload" href="${f}" as="script" fetchpriority="low">`).join('');
       const later = r.later.length ? `<meta name="falloff-later-scripts" content="${r.later.join(' ')}">` : '';
-      const html = c.html.replace('</body>', `${links}${later}\n</body>`);
+      // A page rendered at build time hydrates once its layouts and its screen's chunk have run (entry.web.js).
+      const hydrate = r.page ? `<meta name="falloff-hydrate-scripts" content="${[...r.files, ...r.later.slice(0, 1)].join(' ')}">` : '';
+      const html = (r.page ?? c.html).replace('</body>', `${links}${later}${hydrate}\n</body>`);
       page = { html, br: brotliCompressSync(html), gzip: gzipSync(html) };
       c.pages.set(i, page);
     }

@@ -1,13 +1,14 @@
-// Signed-out screens; a signed-in visitor goes straight on (to ?next= or their setups).
+// Signed-out screens; a signed-in visitor goes straight on (to ?next= or their setups) once the session has
+// been read. Until then the page shows: it is rendered at build time (scripts/staticPages.mjs), where the
+// session is never known, and paints before any script; a signed-in visitor sees the form for the moment the
+// session takes to arrive.
 import { Redirect, Slot } from 'expo-router';
-import { Loading } from '../../components/Loading';
 import { useSession } from '../../hooks/session';
 import { useReturnPath } from '../../hooks/returnPath';
 
 export default function AuthLayout() {
-  const { data, isPending } = useSession();
+  const { data } = useSession();
   const next = useReturnPath();
-  if (isPending) return <Loading />;
   if (data) return <Redirect href={next as '/setups'} />;
   return <Slot />;
 }

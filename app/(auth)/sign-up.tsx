@@ -6,6 +6,7 @@ import { AuthFrame } from '../../components/AuthFrame';
 import { FormField } from '../../components/FormField';
 import { Body, Button, ErrorText } from '../../components/ui';
 import { loadAuthClient, useSessionChanged, useWarmAuth } from '../../hooks/auth';
+import { useHydrated } from '../../hooks/hydration';
 import { useReturnPath } from '../../hooks/returnPath';
 import { lazyResolver, useWarmForms } from '../../hooks/lazyResolver';
 import type { signUpBody } from '../../model/forms';
@@ -17,9 +18,11 @@ export default function SignUp() {
   const [failure, setFailure] = useState<string | null>(null);
   // Kept in the address too: the session is read again after a sign-up, and the signed-out layout may remount
   // this screen while it is.
+  // (Read once the page has hydrated: it is rendered at build time, without an address.)
   const { sent } = useLocalSearchParams<{ sent?: string }>();
+  const hydrated = useHydrated();
   const [sentState, setSentTo] = useState<string | null>(null);
-  const sentTo = sentState ?? (typeof sent === 'string' && sent ? sent : null);
+  const sentTo = sentState ?? (hydrated && typeof sent === 'string' && sent ? sent : null);
   useWarmForms();
   useWarmAuth();
   const sessionChanged = useSessionChanged();

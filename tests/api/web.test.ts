@@ -111,6 +111,33 @@ describe('the web app files', () => {
     expect(brotliDecompressSync((await raw(`${app.url}/s/some-token`, { 'accept-encoding': 'br' })).body).toString()).toBe(html);
   });
 
+  it('sends a route rendered at build time its own page, naming the scripts it hydrates with', async () => {
+    const layout = '/_expo/static/js/web/_layout-00112233445566778899aabbccddeeff.js';
+    const routeChunk = '/_expo/static/js/web/sign-in-00112233445566778899aabbccddeeff.js';
+    const built = `<!doctype html><html><head><meta name="falloff-prerendered" content="(auth)/sign-in"></head><body><div id="root"><h1>Sign in</h1></div><script src="${bundlePath}"></script></body></html>`;
+    mkdirSync(join(webDir, 'pages', '(auth)'), { recursive: true });
+    writeFileSync(join(webDir, 'pages', '(auth)', 'sign-in.html'), built);
+    const routes = [
+      { route: '(auth)/sign-in.tsx', pattern: '^/sign-in/?$', files: [layout], later: [routeChunk], page: '/pages/(auth)/sign-in.html' },
+      // A page the list names but the build lacks: the app shell.
+      { route: '(auth)/sign-up.tsx', pattern: '^/sign-up/?$', files: [layout], later: [routeChunk], page: '/pages/(auth)/sign-up.html' },
+    ];
+    writeFileSync(join(webDir, 'route-preloads.json'), JSON.stringify({ routes }));
+    try {
+      const page = brotliDecompressSync((await raw(`${app.url}/sign-in?next=/setups`, { 'accept-encoding': 'br' })).body).toString();
+      expect(page).toContain('<div id="root"><h1>Sign in</h1></div>');
+      expect(page).toContain(`<meta name="falloff-hydrate-scripts" content="${layout} ${routeChunk}">`);
+      expect(page).toContain(`<link rel="preload" href="${layout}" as="script" fetchpriority="low">`);
+      const shell = brotliDecompressSync((await raw(`${app.url}/sign-up`, { 'accept-encoding': 'br' })).body).toString();
+      expect(shell).not.toContain('<h1>Sign in</h1>');
+      expect(shell).not.toContain('falloff-hydrate-scripts');
+      expect(shell.replace(/<link rel="preload"[^>]*>|<meta name="falloff-later-scripts"[^>]*>/g, '').replace('\n</body>', '</body>')).toBe(html);
+    } finally {
+      rmSync(join(webDir, 'route-preloads.json'));
+      rmSync(join(webDir, 'pages'), { recursive: true });
+    }
+  });
+
   it('caches files without a content hash for an hour only', async () => {
     const r = await raw(`${app.url}/metadata.json`);
     expect(r.headers['cache-control']).toBe('public, max-age=3600');

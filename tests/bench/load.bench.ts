@@ -4,7 +4,7 @@
  * Debian's Chromium (playwright-core) with a phone profile — 390 × 844 at 3×, touch, CPU slowed 4× and the network
  * held to about 1.6 Mbps down / 750 kbps up with 150 ms round trips (both through the DevTools protocol), a fresh
  * profile and the HTTP cache off for every run — opens, against the built app (dist/, served by the real server):
- *   sign-in   /sign-in, usable when the e-mail field shows
+ *   sign-in   /sign-in, usable when the e-mail field shows and React has hydrated it (the form is in the HTML)
  *   library   /setups signed in, usable when setup cards show
  *   editor    /setups/<id> signed in, usable when the plan shows its items and the meter its subject reading
  *   share     a read-only link /s/<token> with no account, usable when the plan, the camera settings and the

@@ -32,7 +32,13 @@ export async function appPages(): Promise<{ specs: PageSpec[]; cookies: Cookie[]
     .filter(Boolean)
     .map((c) => ({ name: c.slice(0, c.indexOf('=')), value: c.slice(c.indexOf('=') + 1), url: base }));
   const specs: PageSpec[] = [
-    { name: 'sign-in', url: `${base}/sign-in`, usable: `() => ${has('input[type="email"], input[autocomplete="email"], input[aria-label="E-mail"]')}` },
+    // The form is in the page's HTML (rendered at build time): usable once React has taken the e-mail field over
+    // (hydrated), so that a press on "Sign in" does something.
+    {
+      name: 'sign-in',
+      url: `${base}/sign-in`,
+      usable: `() => { const el = ${has('input[type="email"], input[autocomplete="email"], input[aria-label="E-mail"]')}; return !!el && Object.keys(el).some((k) => k.startsWith('__reactFiber')); }`,
+    },
     { name: 'library', url: `${base}/setups`, cookies: true, usable: `() => ${has('[data-testid="setup-card"]')}` },
     {
       name: 'editor',

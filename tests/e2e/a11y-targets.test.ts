@@ -62,11 +62,17 @@ describe('touch targets at 390 × 844', () => {
     expect((await context.request.post(`${base}/api/auth/sign-in/email`, { data: { email: demoUsers.owner.email, password: DEMO_PASSWORD }, headers: { origin: base } })).status()).toBe(200);
     const page = await context.newPage();
     await page.goto(`${base}/`);
+    // The library with cards in it (searched for a demo setup by name: other test files add setups of their own,
+    // and the newest come first).
+    const search = page.getByPlaceholder('Search titles, notes and tags');
+    await expect.poll(() => search.isVisible(), { timeout: 30_000 }).toBe(true);
+    await search.fill('Clamshell headshot');
     await expect.poll(() => page.getByText('Clamshell headshot on grey').first().isVisible(), { timeout: 30_000 }).toBe(true);
     found.library = await smallTargets(page);
 
-    const list = await (await context.request.get(`${base}/api/setups`)).json();
-    const first = (list.setups ?? list.items ?? list)[0] as { id: string; title: string };
+    // A demo setup with lights (not whatever another test file made last).
+    const list = await (await context.request.get(`${base}/api/setups?q=Clamshell%20headshot`)).json();
+    const first = (list.setups as { id: string; title: string }[]).find((x) => x.title.startsWith('Clamshell headshot'))!;
     await page.goto(`${base}/setups/${first.id}`);
     await page.getByTestId('plan').first().waitFor({ timeout: 30_000 });
     await page.getByTestId('meter-peek').waitFor({ timeout: 30_000 });

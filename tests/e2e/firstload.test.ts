@@ -169,7 +169,7 @@ describe('first load', () => {
     // contentful paint), not a spinner.
     await expect.poll(() => page.getByText('Opening the shared setup…').isVisible(), { timeout: 30_000 }).toBe(true);
     expect(await page.getByText('FALLOFF · READ-ONLY').isVisible()).toBe(true);
-    expect(await page.evaluate(() => performance.getEntriesByName('first-contentful-paint').length)).toBe(1);
+    await expect.poll(() => page.evaluate(() => performance.getEntriesByName('first-contentful-paint').length), { timeout: 30_000 }).toBe(1);
     release();
     await expect.poll(() => page.getByTestId('shared-camera').isVisible(), { timeout: 30_000 }).toBe(true);
     expect(await page.getByText('Opening the shared setup…').count()).toBe(0);

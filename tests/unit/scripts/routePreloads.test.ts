@@ -42,11 +42,12 @@ describe('routePreloads', () => {
       writeFileSync(join(dir, 'app', file), text);
     };
     chunk('_layout-1.js', ['/app/_layout.tsx']);
-    chunk('_layout-2.js', ['/app/(app)/_layout.tsx', '/components/NavShell.tsx']);
+    // (A static export puts a route's file after the modules it imports.)
+    chunk('_layout-2.js', ['/components/NavShell.tsx', '/app/(app)/_layout.tsx']);
     chunk('shareScreen-3.js', ['/node_modules/zod/index.js', '/components/shareScreen.ts']);
     chunk('workspace-4.js', ['/node_modules/x.js', '/components/workspace.ts']);
     chunk('token-5.js', ['/app/s/[token].tsx']);
-    chunk('id-6.js', ['/app/(app)/setups/[id].tsx']);
+    chunk('id-6.js', ['/components/Toast.tsx', '/app/(app)/setups/[id].tsx']);
     chunk('index-7.js', ['/app/(app)/setups/index.tsx']);
     chunk('join-8.js', ['/app/(app)/setups/join.tsx']);
     chunk('entry-9.js', ['/entry.web.js']);
@@ -54,12 +55,16 @@ describe('routePreloads', () => {
     route('(app)/setups/[id].tsx', "const E = workspaceScreen('EditorScreen');\n");
     route('(app)/setups/index.tsx', 'export default function L() {}\n');
     route('(app)/setups/join.tsx', 'export default function J() {}\n');
+    // The share route was rendered at build time (scripts/staticPages.mjs).
+    mkdirSync(join(web, 'pages', 's'), { recursive: true });
+    writeFileSync(join(web, 'pages', 's', '[token].html'), '<html></html>');
     expect(routePreloads({ root: dir, webDir: web, mapsDir: maps })).toEqual({ routes: 4 });
     const { routes } = JSON.parse(readFileSync(join(web, 'route-preloads.json'), 'utf8')) as { routes: { route: string; pattern: string; files: string[]; later: string[] }[] };
     const u = (n: string) => `/_expo/static/js/web/${n}`;
     const layouts = [u('_layout-1.js'), u('_layout-2.js')];
     const byRoute = Object.fromEntries(routes.map((r) => [r.route, r]));
-    expect(byRoute['s/[token].tsx']).toMatchObject({ files: layouts, later: [u('token-5.js'), u('shareScreen-3.js')] });
+    expect(byRoute['s/[token].tsx']).toMatchObject({ files: layouts, later: [u('token-5.js'), u('shareScreen-3.js')], page: '/pages/s/[token].html' });
+    expect(byRoute['(app)/setups/index.tsx']).not.toHaveProperty('page');
     expect(byRoute['(app)/setups/[id].tsx']).toMatchObject({ files: layouts, later: [u('id-6.js'), u('shareScreen-3.js'), u('workspace-4.js')] });
     expect(byRoute['(app)/setups/index.tsx']).toMatchObject({ files: layouts, later: [u('index-7.js')] });
     // /setups/join is the static route, not /setups/[id]: the first pattern that matches wins.
