@@ -8,7 +8,7 @@ import { anchorOf, angleTo, createItem, isSegment, moveItem, withAngle, itemsInB
 import { itemSchema } from '../../model/document';
 import { clampScale, fitStage, panBy, zoomAt, type Camera } from './camera';
 import { commit, holdOrCommit, mapItems, nextId, redo, settleDrag, undo, type EditorState, type InputState } from './state';
-import { gridStepM, snapPoint, tidy } from './snap';
+import { gridStepM, nudgeStepM, snapPoint, tidy } from './snap';
 import { cameraSpot, freeSpot, initialAim, viewCentre } from './placement';
 import { insetCamera } from './inset';
 import { setHeight, setTilt } from './heights';
@@ -192,21 +192,26 @@ export const actions = {
     perform: (s, { patch, gestureKey }) => commit(s, { ...s.doc, ...patch }, gestureKey ?? null),
   }),
 
-  nudge: define<{ dx: number; dy: number }>({
+  /** Move the selection by `dx`, `dy` metres; with `step`, by that many nudge steps in the plan's units
+   *  (`nudgeStepM`: 10 cm or 3 in, with Shift 1 m or 1 ft), as the arrow keys do. */
+  nudge: define<{ dx: number; dy: number; step?: 'small' | 'large' }>({
     id: 'nudge',
     label: 'Nudge',
     shortcut: [
-      { keys: 'ArrowUp', arg: { dx: 0, dy: -0.1 } },
-      { keys: 'ArrowDown', arg: { dx: 0, dy: 0.1 } },
-      { keys: 'ArrowLeft', arg: { dx: -0.1, dy: 0 } },
-      { keys: 'ArrowRight', arg: { dx: 0.1, dy: 0 } },
-      { keys: 'Shift+ArrowUp', arg: { dx: 0, dy: -1 } },
-      { keys: 'Shift+ArrowDown', arg: { dx: 0, dy: 1 } },
-      { keys: 'Shift+ArrowLeft', arg: { dx: -1, dy: 0 } },
-      { keys: 'Shift+ArrowRight', arg: { dx: 1, dy: 0 } },
+      { keys: 'ArrowUp', arg: { dx: 0, dy: -1, step: 'small' } },
+      { keys: 'ArrowDown', arg: { dx: 0, dy: 1, step: 'small' } },
+      { keys: 'ArrowLeft', arg: { dx: -1, dy: 0, step: 'small' } },
+      { keys: 'ArrowRight', arg: { dx: 1, dy: 0, step: 'small' } },
+      { keys: 'Shift+ArrowUp', arg: { dx: 0, dy: -1, step: 'large' } },
+      { keys: 'Shift+ArrowDown', arg: { dx: 0, dy: 1, step: 'large' } },
+      { keys: 'Shift+ArrowLeft', arg: { dx: -1, dy: 0, step: 'large' } },
+      { keys: 'Shift+ArrowRight', arg: { dx: 1, dy: 0, step: 'large' } },
     ],
     enabled: hasSelection,
-    perform: (s, { dx, dy }) => commit(s, mapItems(s.doc, unlockedSelection(s), (i) => tidyItem(moveItem(i, dx, dy)))),
+    perform: (s, { dx, dy, step }) => {
+      const k = step ? nudgeStepM(s.input.units, step) : 1;
+      return commit(s, mapItems(s.doc, unlockedSelection(s), (i) => tidyItem(moveItem(i, dx * k, dy * k))));
+    },
   }),
 
   deleteSelection: define({

@@ -31,6 +31,13 @@ export function gridStepM(scale: number | null | undefined, units: Units = 'metr
   return steps.find((step) => step * scale >= GRID_MIN_PX) ?? steps[steps.length - 1]!;
 }
 
+/** One press of an arrow key: 10 cm (with Shift 1 m) in metres, 3 in (with Shift 1 ft) in feet and inches, so a
+ *  nudged item stays on the grid the plan is drawn in. */
+export function nudgeStepM(units: Units, step: 'small' | 'large'): number {
+  if (units === 'imperial') return step === 'large' ? M_PER_FT : M_PER_FT / 4;
+  return step === 'large' ? 1 : 0.1;
+}
+
 /** Round to a step, without binary fractions' dust (0.30000000000000004): to a tenth of a millimetre, so a
  *  step in inches keeps its inch (8 ft is 2.4384 m). */
 const snapToGrid = (v: number, step: number) => Math.round(Math.round(v / step) * step * 10000) / 10000;

@@ -123,6 +123,22 @@ describe('keyboard', () => {
     expect(store.getState().doc.items.length).toBe(n);
     expect(handleKey(store, press('q'))).toBe(false);
   });
+  it('in feet and inches, arrows nudge 3 in and Shift 1 ft', () => {
+    const store = createEditor(parseDocument(base()));
+    store.dispatch('setInput', { units: 'imperial' });
+    store.dispatch('select', { ids: ['key'] });
+    const at = () => store.getState().doc.items.find((i) => i.id === 'key') as { x: number; y: number };
+    const x0 = at().x;
+    const y0 = at().y;
+    // (Positions are kept to the millimetre: 3 in is 76.2 mm.)
+    handleKey(store, press('ArrowRight'));
+    expect(Math.abs(at().x - x0 - 0.0762)).toBeLessThan(0.0006);
+    handleKey(store, press('ArrowUp', { shiftKey: true }));
+    expect(Math.abs(at().y - y0 + 0.3048)).toBeLessThan(0.0006);
+    // A direct dispatch without a step still moves by metres.
+    store.dispatch('nudge', { dx: 0.5, dy: 0 });
+    expect(Math.abs(at().x - x0 - 0.5762)).toBeLessThan(0.0011);
+  });
 });
 
 describe('the key map comes from the actions', () => {
@@ -135,7 +151,7 @@ describe('the key map comes from the actions', () => {
     }
     expect(keymap.get('Mod+z')?.action).toBe('undo');
     expect(keymap.get('Mod+Shift+z')?.action).toBe('redo');
-    expect(keymap.get('Shift+ArrowLeft')).toEqual({ action: 'nudge', arg: { dx: -1, dy: 0 } });
+    expect(keymap.get('Shift+ArrowLeft')).toEqual({ action: 'nudge', arg: { dx: -1, dy: 0, step: 'large' } });
   });
 
   it('camera keys zoom and fit without entering history', () => {
