@@ -66,7 +66,7 @@ export function shellFrom(html) {
   const kept = [...out.matchAll(SCRIPT_RE)].map((m) => m[1]);
   if (kept.length !== 3) throw new Error(`static pages: expected the runtime, __common and the entry in the exported page, found ${kept.join(', ') || 'none'}`);
   // For a browser with scripts off: a line saying why the page is blank (or, on a rendered page, inert).
-  out = out.replace(ROOT_OPEN, `<noscript><p style="position:fixed;top:0;left:0;right:0;margin:0;z-index:1;color:#e9e6df;background:#1d2024;font-family:sans-serif;padding:12px 16px">Falloff needs JavaScript turned on.</p></noscript>${ROOT_OPEN}`);
+  out = out.replace(ROOT_OPEN, `<noscript><p style="position:fixed;bottom:0;left:0;right:0;margin:0;z-index:1;color:#e9e6df;background:#1d2024;font-family:sans-serif;padding:12px 16px">Falloff needs JavaScript turned on.</p></noscript>${ROOT_OPEN}`);
   return out;
 }
 
