@@ -32,7 +32,7 @@ export type Meter = StoreApi<MeterState> & {
   /** Sends the first job unless one has gone (a change sends one too). */
   start: () => void;
   /** While nothing has been shown yet and the plan is as it opened: computes the meter's numbers (no light map)
-   *  in this thread, in three short tasks from now, and shows them (a worker's answer, light map and all,
+   *  in this thread, in two short tasks from now, and shows them (a worker's answer, light map and all,
    *  replaces them when it comes). */
   readFirst: () => void;
   dispose: () => void;
@@ -133,24 +133,20 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
       if (!started && !disposed) send();
     },
     readFirst: () => {
-      // In steps, each a task of its own (a slow phone's thread is never held long): the room's geometry, the
-      // numbers, then their showing (the panels' render). Each step first checks that the numbers are still
-      // wanted: nothing shown yet, and the plan as it opened.
+      // In two tasks (a slow phone's thread is never held long): the room's geometry, then the numbers and
+      // their showing (the panels' render). Each first checks that the numbers are still wanted: nothing shown
+      // yet, and the plan as it opened.
       const wanted = () => !disposed && !store.getState().readings && liveDoc(editor.getState()) === first;
-      const mark = typeof performance !== 'undefined' && typeof performance.mark === 'function';
-      const next = (f: () => void) => setTimeout(() => wanted() && f(), 0);
+      const mark = (m: string) => typeof performance !== 'undefined' && typeof performance.mark === 'function' && performance.mark(m);
       if (!wanted()) return;
-      if (mark) performance.mark('falloff:first-reading 1/3');
+      mark('falloff:first-reading 1/2');
       warmReadings(first, { stepIndex: options.stepIndex });
-      next(() => {
-        if (mark) performance.mark('falloff:first-reading 2/3');
-        const readings = computeReadings(first, { stepIndex: options.stepIndex, lightMap: false });
-        next(() => {
-          if (mark) performance.mark('falloff:first-reading 3/3');
-          // Final for this document unless a job (the light map's) is still out.
-          show({ readings, doc: first, computing: running });
-        });
-      });
+      setTimeout(() => {
+        if (!wanted()) return;
+        mark('falloff:first-reading 2/2');
+        // Final for this document unless a job (the light map's) is still out.
+        show({ readings: computeReadings(first, { stepIndex: options.stepIndex, lightMap: false }), doc: first, computing: running });
+      }, 0);
     },
     dispose: () => {
       disposed = true;
