@@ -31,7 +31,7 @@ export type Meter = StoreApi<MeterState> & {
   setOptions: (o: Partial<MeterOptions>) => void;
   /** Sends the first job unless one has gone (a change sends one too). */
   start: () => void;
-  /** While nothing has been shown yet and the plan is as it opened: computes the meter's numbers (no light map)
+  /** While nothing has been shown yet: computes the meter's numbers (no light map) for the plan as it stands,
    *  in this thread, in two short tasks from now, and shows them (a worker's answer, light map and all,
    *  replaces them when it comes). */
   readFirst: () => void;
@@ -134,18 +134,19 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
     },
     readFirst: () => {
       // In two tasks (a slow phone's thread is never held long): the room's geometry, then the numbers and
-      // their showing (the panels' render). Each first checks that the numbers are still wanted: nothing shown
-      // yet, and the plan as it opened.
-      const wanted = () => !disposed && !store.getState().readings && liveDoc(editor.getState()) === first;
+      // their showing (the panels' render), for the plan as it stands then. Each first checks that they are
+      // still wanted: nothing shown yet (an engine's answer comes first and wins).
+      const wanted = () => !disposed && !store.getState().readings;
       const mark = (m: string) => typeof performance !== 'undefined' && typeof performance.mark === 'function' && performance.mark(m);
       if (!wanted()) return;
       mark('falloff:first-reading 1/2');
-      warmReadings(first, { stepIndex: options.stepIndex });
+      warmReadings(liveDoc(editor.getState()), { stepIndex: options.stepIndex });
       setTimeout(() => {
         if (!wanted()) return;
         mark('falloff:first-reading 2/2');
-        // Final for this document unless a job (the light map's) is still out.
-        show({ readings: computeReadings(first, { stepIndex: options.stepIndex, lightMap: false }), doc: first, computing: running });
+        const doc = liveDoc(editor.getState());
+        // Final for this document unless a job (the light map's, or a newer plan's) is still out.
+        show({ readings: computeReadings(doc, { stepIndex: options.stepIndex, lightMap: false }), doc, computing: running });
       }, 0);
     },
     dispose: () => {
