@@ -57,6 +57,7 @@ export * from './sceneSchema';
 export { BARE_REFLECTOR_BEAM_SR, lightColour } from './flatScene';
 export type { LightReading, MeterResult } from './results';
 export { meter, meterParsed } from './meter';
+export { warmRoomCache } from './room';
 export {
   type LightMapCache,
   type LightMapGrid,

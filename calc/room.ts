@@ -885,6 +885,12 @@ function lightBounce(L: RoomLight, g: GeoCache, inc: Float64Array): LightBounce 
 }
 
 /** Build the room for a validated scene. */
+/** Builds the room's geometry for `scene` into the cache now (its patches, couplings and radiosity transfer:
+ *  the bulk of a cold reading), so a reading asked for next (say, in the next task) starts from it. */
+export function warmRoomCache(scene: Scene): void {
+  buildRoom(scene);
+}
+
 export function buildRoom(scene: Scene): Room {
   // The same geometry objects as last time (a drag that moves only lights keeps them): skip the key.
   const same =

@@ -2,6 +2,7 @@
 // route first shows it (see there why they are together). The workspace always loads after the share screen's
 // chunk, which holds what the two share (scripts/chunkTiers.cjs).
 import { Suspense, lazy, type ComponentProps, type ComponentType } from 'react';
+import { startMeterWorker } from '../canvas/meter/warmWorker';
 import { Loading } from './Loading';
 import { SharedShell } from './SharedShell';
 
@@ -12,10 +13,17 @@ type ScreenName = { [K in keyof Workspace]: Workspace[K] extends ComponentType<n
  *  may start it early (`preloadWorkspace`), and the screen's lazy component then takes the same promise. A
  *  `falloff:workspace` mark says when the workspace's modules were evaluated. */
 let workspace: Promise<Workspace> | null = null;
+/** Whether the meter's worker starts once the chunks are in (preloadWorkspace with `meter`). */
+let meterWorkerWanted = false;
 const loadWorkspace = (): Promise<Workspace> =>
   (workspace ??= import('./shareScreen')
     .then((m) => m.shareModules())
-    .then(() => import('./workspace'))
+    .then(() => {
+      // The worker's script (~130 KB sent) downloads now, when the plan chunks are in, not beside them (on a
+      // slow line it would hold them up), while this thread evaluates the workspace and renders the screen.
+      if (meterWorkerWanted) startMeterWorker();
+      return import('./workspace');
+    })
     .then((w) => {
       if (typeof performance !== 'undefined' && typeof performance.mark === 'function') performance.mark('falloff:workspace');
       return w;
@@ -26,8 +34,12 @@ const loadWorkspace = (): Promise<Workspace> =>
     }));
 
 /** Starts loading and evaluating the plan screens now (a route whose data is still on its way: the editor's
- *  workspace chunk then evaluates while its setup downloads, not after). */
-export function preloadWorkspace() {
+ *  workspace chunk then evaluates while its setup downloads, not after). `meter`: the screen reads the live
+ *  meter at once (the editor), so the meter's Web Worker starts once the chunks are in (canvas/meter/warmWorker.ts),
+ *  warm by the time the setup is shown. Only while the chunks load: once they are in, the screen's engine starts
+ *  its own worker when it opens (a route calls this on every render; an early worker nobody took would idle). */
+export function preloadWorkspace(o: { meter?: boolean } = {}) {
+  if (o.meter && !workspace) meterWorkerWanted = true;
   void loadWorkspace().catch(() => {});
 }
 

@@ -1,6 +1,6 @@
 // The meter's readings for a setup document: the one call the editor, the server's /meter route, the crew
 // sheet and the lesson player make. The physics is all in calc/.
-import { createLightMapCache, meterParsed, parseScene, type LightMapCache, type LightMapResult, type MeterResult } from '../calc';
+import { createLightMapCache, meterParsed, parseScene, warmRoomCache, type LightMapCache, type LightMapResult, type MeterResult } from '../calc';
 import type { SetupDocument } from './document';
 import { sceneFromDocument, type SceneBuild } from './documentToScene';
 
@@ -29,6 +29,18 @@ export const readingsPending: Readings = {
   map: null,
   error: 'the meter is still reading the plan',
 };
+
+/** Prepares what a cold computeReadings(doc) spends most of its time on (the room's geometry, kept in calc's
+ *  room cache), so the reading itself, asked next, is short: a caller that must not hold its thread long splits
+ *  a first reading in two tasks. Changes no result; a plan the meter cannot read is left to computeReadings. */
+export function warmReadings(doc: SetupDocument, opts: { stepIndex?: number } = {}): void {
+  try {
+    const build = sceneFromDocument(doc, { stepIndex: opts.stepIndex });
+    if (build.scene) warmRoomCache(parseScene(build.scene));
+  } catch {
+    // computeReadings says what is wrong.
+  }
+}
 
 export function computeReadings(doc: SetupDocument, opts: { stepIndex?: number; lightMap?: boolean; cache?: LightMapCache } = {}): Readings {
   const build = sceneFromDocument(doc, { stepIndex: opts.stepIndex });

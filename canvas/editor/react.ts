@@ -159,6 +159,10 @@ export function usePaced<S, T>(store: StoreApi<S>, selector: (s: S) => T, everyM
           awaitingFinal = false;
         } else if (!s.gesture && inGesture) ended();
       });
+      // A change between the render that read the store and this subscription (React subscribes after it has
+      // painted; the live meter's first answer can come in between) would otherwise never show: `get` keeps
+      // what the render read. Taken now, as a change would be.
+      if (shown.current && !Object.is(shown.current.value, sel.current(store.getState()))) changed();
       return () => {
         offStore();
         offEditor();

@@ -7,12 +7,11 @@ import type { SetupDocument } from '../../model/document';
 import { computeReadings, type Readings } from '../../model/setupReadings';
 import { inlineClient, workerClient } from '../workerClient';
 import { unpackReadings, type PackedReadings } from './transfer';
+import { METER_WORKER_NAME, METER_WORKER_URL, startMeterWorker, takeMeterWorker } from './warmWorker';
 
 export type MeterJob = { doc: SetupDocument; stepIndex?: number; lightMap: boolean };
 export type MeterEngine = { compute(job: MeterJob): Promise<Readings>; dispose(): void; readonly kind: 'worker' | 'inline' };
 
-/** Where the built worker is served (scripts/ensure.mjs bundles canvas/meter/worker.ts there). */
-const WORKER_URL = '/workers/meter.js';
 
 function inlineEngine(): MeterEngine {
   const cache = createLightMapCache();
@@ -23,12 +22,13 @@ function inlineEngine(): MeterEngine {
 type Reply = { id: number; readings: PackedReadings };
 
 /** A worker engine, falling back to computing in the page if the worker cannot start (say, the dev server,
- *  which does not serve the worker bundle). */
-function workerEngine(url = WORKER_URL): MeterEngine {
+ *  which does not serve the worker bundle). It takes the worker started early (warmWorker.ts) if there is one. */
+function workerEngine(): MeterEngine {
   const cache = createLightMapCache();
   const c = workerClient<MeterJob, Readings, Reply>({
-    url,
-    name: 'falloff-meter',
+    url: METER_WORKER_URL,
+    name: METER_WORKER_NAME,
+    create: (url, name) => takeMeterWorker() ?? new Worker(url, { type: 'module', name }),
     inline: (job) => computeReadings(job.doc, { stepIndex: job.stepIndex, lightMap: job.lightMap, cache }),
     toMessage: (job, id) => ({ id, job }),
     replyId: (r) => r.id,
@@ -43,20 +43,13 @@ function workerEngine(url = WORKER_URL): MeterEngine {
   };
 }
 
-let warm: MeterEngine | null = null;
-
-/** Starts a worker engine now, where there are workers, so its script downloads and evaluates while the page
- *  does other work (the read-only link's screen, before its setup has arrived); the next defaultEngine() takes
- *  it. */
+/** Starts the meter's worker now, where there are workers, so its script downloads and evaluates while the page
+ *  does other work (the read-only link's screen, before its setup has arrived; the editor's route, while its
+ *  chunks and setup download); the next defaultEngine() takes it. */
 export function warmMeterEngine() {
-  if (!warm && typeof Worker !== 'undefined' && typeof window !== 'undefined') warm = workerEngine();
+  startMeterWorker();
 }
 
 export function defaultEngine(): MeterEngine {
-  if (warm) {
-    const e = warm;
-    warm = null;
-    return e;
-  }
   return typeof Worker !== 'undefined' && typeof window !== 'undefined' ? workerEngine() : inlineEngine();
 }

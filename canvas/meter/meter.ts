@@ -8,19 +8,36 @@
 // that rate, so their drawing does not take the frames the glyph needs. Where showing a result costs this thread
 // more (a slow phone), the gap grows with it: a result's showing (the store's listeners, then React's render and
 // commit of what reads it, which run before the next microtask) takes at most 1 / SHOW_SHARE of the time.
+// The meter opens with no readings (`readings: null`, "still reading": panels say so, never "no light"), and
+// computes nothing while it is made (that is the editor's first render). Its first job goes when the screen
+// calls start() — at once where the engine is a worker, after the first paint where it computes in the page —
+// or at the first change; readFirst() computes the numbers alone in the page, in short tasks after the first
+// paint, for the case (a cold page on a slow line) where the worker's script is still on its way.
 import { createStore, type StoreApi } from 'zustand';
 import type { SetupDocument } from '../../model/document';
-import { computeReadings, type Readings } from '../../model/setupReadings';
+import { computeReadings, warmReadings, type Readings } from '../../model/setupReadings';
 import type { Editor } from '../editor/editor';
 import { liveDoc } from '../editor/state';
 import { defaultEngine, type MeterEngine } from './engine';
 
-type MeterState = { readings: Readings; doc: SetupDocument; computing: boolean };
+/** `readings`: null until the first job's answer (the meter is still reading the plan); `doc`: the document
+ *  they were computed for (the opening document until then). */
+type MeterState = { readings: Readings | null; doc: SetupDocument; computing: boolean };
 
 /** Whether the meter's readings are final: no job is under way for a newer document. */
 export const meterSettled = (m: MeterState) => !m.computing;
 export type MeterOptions = { lightMap: boolean; stepIndex?: number };
-export type Meter = StoreApi<MeterState> & { setOptions: (o: Partial<MeterOptions>) => void; dispose: () => void; engine: MeterEngine };
+export type Meter = StoreApi<MeterState> & {
+  setOptions: (o: Partial<MeterOptions>) => void;
+  /** Sends the first job unless one has gone (a change sends one too). */
+  start: () => void;
+  /** While nothing has been shown yet: computes the meter's numbers (no light map) for the plan as it stands,
+   *  in this thread, in two short tasks from now, and shows them (a worker's answer, light map and all,
+   *  replaces them when it comes). */
+  readFirst: () => void;
+  dispose: () => void;
+  engine: MeterEngine;
+};
 
 /** A change younger than this means the hand is still moving. */
 const SETTLE_MS = 40;
@@ -32,10 +49,10 @@ export const SHOW_SHARE = 4;
 export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEngine = defaultEngine(), now: () => number = () => Date.now()): Meter {
   let options = opts;
   const first = liveDoc(editor.getState());
-  // The first reading is computed at once, so the screen opens with numbers — the meter's alone: the light map
-  // (its room geometry built cold: ~0.2 s on a desktop, four times that on a phone, in the editor's first render)
-  // comes from the engine, asked for below.
-  const store = createStore<MeterState>(() => ({ readings: computeReadings(first, { ...options, lightMap: false }), doc: first, computing: false }));
+  // No reading is computed here: this runs in the editor's first render, and the first reading (the room built
+  // cold for the bounce light: 0.2–0.27 s on a phone) was that render's longest part. The engine computes it.
+  const store = createStore<MeterState>(() => ({ readings: null, doc: first, computing: false }));
+  let started = false;
   let running = false;
   let dirty = false;
   let lastChange = now();
@@ -66,6 +83,7 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
       return;
     }
     sentAt = now();
+    started = true;
     running = true;
     dirty = false;
     const doc = liveDoc(editor.getState());
@@ -102,12 +120,34 @@ export function createMeter(editor: Editor, opts: MeterOptions, engine: MeterEng
     // Letting go is the hand stopping.
     if (prev.gesture && !s.gesture) lastChange = -Infinity;
   });
-  if (options.lightMap) send();
   return Object.assign(store, {
     engine,
     setOptions: (o: Partial<MeterOptions>) => {
+      // The same options again (a screen's effects on mount) change nothing: no job (before, each such call
+      // made the first job's answer stale and the first light map was computed twice).
+      if ((Object.keys(o) as (keyof MeterOptions)[]).every((k) => Object.is(o[k], options[k]))) return;
       options = { ...options, ...o };
       changed();
+    },
+    start: () => {
+      if (!started && !disposed) send();
+    },
+    readFirst: () => {
+      // In two tasks (a slow phone's thread is never held long): the room's geometry, then the numbers and
+      // their showing (the panels' render), for the plan as it stands then. Each first checks that they are
+      // still wanted: nothing shown yet (an engine's answer comes first and wins).
+      const wanted = () => !disposed && !store.getState().readings;
+      const mark = (m: string) => typeof performance !== 'undefined' && typeof performance.mark === 'function' && performance.mark(m);
+      if (!wanted()) return;
+      mark('falloff:first-reading 1/2');
+      warmReadings(liveDoc(editor.getState()), { stepIndex: options.stepIndex });
+      setTimeout(() => {
+        if (!wanted()) return;
+        mark('falloff:first-reading 2/2');
+        const doc = liveDoc(editor.getState());
+        // Final for this document unless a job (the light map's, or a newer plan's) is still out.
+        show({ readings: computeReadings(doc, { stepIndex: options.stepIndex, lightMap: false }), doc, computing: running });
+      }, 0);
     },
     dispose: () => {
       disposed = true;

@@ -11,7 +11,7 @@ import { PlanCanvas, type LightMapSource } from '../../canvas/PlanCanvas';
 import { createEditor, type Editor } from '../../canvas/editor/editor';
 import { liveItem } from '../../canvas/editor/state';
 import { attachToPage, createPersist, saveStatusLabel, type Persist } from '../../canvas/editor/persist';
-import { EditorContext, PANEL_PACE_MS, useEditor, useEditorApi, usePaced } from '../../canvas/editor/react';
+import { EditorContext, PANEL_PACE_MS, afterPaint, useEditor, useEditorApi, usePaced } from '../../canvas/editor/react';
 import { createMeter, meterSettled, type Meter } from '../../canvas/meter/meter';
 import { graphiteTheme } from '../../canvas/views';
 import { WIDE_MIN, colours, fonts, space } from '../../constants/theme';
@@ -31,6 +31,7 @@ import { PhotosPanel } from '../photos/PhotosPanel';
 import { SideView } from '../side/SideView';
 import { BottomSheet, PEEK_PX, type SheetRequest } from './BottomSheet';
 import { LiveMeterPanel, LiveSuggestedPower } from './LiveMeter';
+import { METER_READING } from './MeterPanel';
 import { Inspector } from './Inspector';
 import { KitAtHand } from './KitAtHand';
 import { Palette } from './Palette';
@@ -74,11 +75,20 @@ function useEditorParts(setup: SetupDetail, readOnly: boolean): Parts {
     const web = Platform.OS === 'web';
     const persist = createPersist(editor, { setup, client: persistClient, storage, queue: web ? offlineQueue : null, isOnline: isOnlineNow, ...persistCacheHooks(qc, setup.id) });
     const meter = createMeter(editor, { lightMap: true });
+    // No reading is computed in this render. A worker (started by the route) is asked now, while the page
+    // renders; the page itself computes the numbers after the first paint (below), unless the worker has
+    // answered by then (on a slow line its script arrives after the page has painted).
+    if (meter.engine.kind === 'worker') meter.start();
     return { editor, persist, meter };
   }, [setup.id]); // eslint-disable-line react-hooks/exhaustive-deps
   useEffect(() => {
     const detach = typeof window !== 'undefined' && typeof window.addEventListener === 'function' ? attachToPage(parts.persist) : () => {};
+    const cancelStart = afterPaint(() => {
+      parts.meter.readFirst();
+      parts.meter.start();
+    });
     return () => {
+      cancelStart();
       detach();
       parts.persist.dispose();
       parts.meter.dispose();
@@ -356,26 +366,28 @@ function useOpenRequests(editor: Editor, enabled: boolean, open: () => void) {
 const LiveCanvas = memo(function LiveCanvas({ meter, units, insetBottom, controls }: { meter: Meter; units: Units; insetBottom: number; controls: React.ReactNode }) {
   const map = useMemo<LightMapSource>(
     () => ({
-      get: () => meter.getState().readings.map,
-      subscribe: (onChange) => meter.subscribe((m, prev) => m.readings.map !== prev.readings.map && onChange()),
+      get: () => meter.getState().readings?.map ?? null,
+      subscribe: (onChange) => meter.subscribe((m, prev) => m.readings?.map !== prev.readings?.map && onChange()),
     }),
     [meter],
   );
   return <PlanCanvas theme={graphiteTheme} units={units} lightMap={map} insetBottom={insetBottom} controls={controls} testID="plan" />;
 });
 
+/** The phone's one line of the meter. Until the first reading: says the meter is still reading (no number, and
+ *  not "—", which means no light on the subject). */
 function MeterPeek({ meter }: { meter: Meter }) {
   const readings = usePaced(meter, (m) => m.readings, PANEL_PACE_MS, meterSettled);
-  const m = readings.meter;
+  const m = readings?.meter;
   return (
     <Text style={s.peek} testID="meter-peek" accessibilityLiveRegion="polite">
-      {m ? `Subject ${formatAperture(m.subject.aperture)} (${formatStops(m.subject.stopsVsCamera)})${m.background?.stopsVsSubject != null ? ` · background ${formatStops(m.background.stopsVsSubject)}` : ''}` : readings.build.missing.length ? `Add ${readings.build.missing.join(' and ')}` : '—'}
+      {!readings ? METER_READING : m ? `Subject ${formatAperture(m.subject.aperture)} (${formatStops(m.subject.stopsVsCamera)})${m.background?.stopsVsSubject != null ? ` · background ${formatStops(m.background.stopsVsSubject)}` : ''}` : readings.build.missing.length ? `Add ${readings.build.missing.join(' and ')}` : '—'}
     </Text>
   );
 }
 
 function LivePhotos({ meter, setupId }: { meter: Meter; setupId: string }) {
-  const aperture = usePaced(meter, (m) => m.readings.meter?.subject.aperture ?? null, PANEL_PACE_MS, meterSettled);
+  const aperture = usePaced(meter, (m) => m.readings?.meter?.subject.aperture ?? null, PANEL_PACE_MS, meterSettled);
   return <PhotosPanel setupId={setupId} predictedAperture={aperture} />;
 }
 

@@ -13,8 +13,15 @@ import { SuggestedPower } from './SuggestedPower';
 
 type MeterState = ReturnType<Meter['getState']>;
 const pairs = new WeakMap<Readings, { readings: Readings; doc: SetupDocument }>();
-/** The readings with the document they were computed for (set together by the meter), as one value. */
-function readingsAndDoc(m: MeterState): { readings: Readings; doc: SetupDocument } {
+const stillReading = new WeakMap<SetupDocument, { readings: null; doc: SetupDocument }>();
+/** The readings with the document they were computed for (set together by the meter), as one value; readings
+ *  null while the meter has not answered yet. */
+function readingsAndDoc(m: MeterState): { readings: Readings | null; doc: SetupDocument } {
+  if (!m.readings) {
+    let q = stillReading.get(m.doc);
+    if (!q) stillReading.set(m.doc, (q = { readings: null, doc: m.doc }));
+    return q;
+  }
   let p = pairs.get(m.readings);
   if (!p || p.doc !== m.doc) {
     p = { readings: m.readings, doc: m.doc };
@@ -44,6 +51,6 @@ export const LiveMeterPanel = memo(function LiveMeterPanel({ meter, units, offsc
 });
 
 export const LiveSuggestedPower = memo(function LiveSuggestedPower({ meter }: { meter: Meter }) {
-  const result = usePaced(meter, (m) => m.readings.meter, PANEL_PACE_MS, meterSettled);
+  const result = usePaced(meter, (m) => m.readings?.meter ?? null, PANEL_PACE_MS, meterSettled);
   return <SuggestedPower result={result} />;
 });

@@ -28,15 +28,25 @@ const MAP_RECEPTOR_WORDS: Record<'dome' | 'flat' | 'pointed', string> = {
   pointed: 'read at each point by a flat meter pointed at each light in turn',
 };
 
-export const MeterPanel = memo(function MeterPanel({ readings, doc, selectedLight, units, onReceptorChange }: { readings: Readings; doc: SetupDocument; selectedLight: ItemOf<'light'> | null; units: Units; onReceptorChange?: (r: MeterResult['receptor']) => void }) {
-  const m = readings.meter;
+/** What the editor's meter shows before its first reading has come (the engine computes it off the render). */
+export const METER_READING = 'Reading the plan…';
+
+/** `readings` null: the meter is still reading the plan (the panel says so; the plan's safety cautions, which
+ *  need no reading, show already). */
+export const MeterPanel = memo(function MeterPanel({ readings, doc, selectedLight, units, onReceptorChange }: { readings: Readings | null; doc: SetupDocument; selectedLight: ItemOf<'light'> | null; units: Units; onReceptorChange?: (r: MeterResult['receptor']) => void }) {
+  const m = readings?.meter;
   const cautions = planCautions(doc);
   const names = itemNames(doc.items);
   return (
     <View style={s.wrap} accessibilityLabel="Meter">
       <Text style={s.heading}>Meter</Text>
-      {readings.build.missing.length ? <Text style={s.dim}>Add {readings.build.missing.join(' and ')} to read the light.</Text> : null}
-      {readings.error ? <Text style={s.warn} accessibilityRole="alert">The meter cannot read this plan: {readings.error.split('\n')[1] ?? readings.error}</Text> : null}
+      {!readings ? (
+        <Text style={s.dim} testID="meter-pending">
+          {METER_READING}
+        </Text>
+      ) : null}
+      {readings?.build.missing.length ? <Text style={s.dim}>Add {readings.build.missing.join(' and ')} to read the light.</Text> : null}
+      {readings?.error ? <Text style={s.warn} accessibilityRole="alert">The meter cannot read this plan: {readings.error.split('\n')[1] ?? readings.error}</Text> : null}
       {m ? (
         <>
           <View style={s.block} accessibilityLabel="Receptor">

@@ -36,11 +36,12 @@ export type Opened = { context: BrowserContext; page: Page; cdp: CDPSession };
 
 /**
  * A new browser context of `viewport` signed in (the demo owner, or a fresh account of its own), `document`
- * saved as a new setup and opened in the editor; resolves once the element `ready` (a test id) is shown.
+ * saved as a new setup and opened in the editor; resolves once the element `ready` (a test id) is shown. With
+ * `cpuSlowdown`, the CPU is slowed by CDP throttling before the page is asked for (and stays slowed).
  */
 export async function openSetup(
   bench: Bench,
-  o: { viewport: { width: number; height: number }; account: 'demo' | 'fresh'; title: string; document: unknown; ready: string },
+  o: { viewport: { width: number; height: number }; account: 'demo' | 'fresh'; title: string; document: unknown; ready: string; cpuSlowdown?: number },
 ): Promise<Opened> {
   const context = await bench.browser.newContext({ viewport: o.viewport });
   const origin = { origin: bench.url };
@@ -58,9 +59,11 @@ export async function openSetup(
   if (!res.ok()) throw new Error(`making the bench's setup: ${res.status()} ${await res.text()}`);
   const { id } = (await res.json()) as { id: string };
   const page = await context.newPage();
+  const cdp = await context.newCDPSession(page);
+  // A CPU slowdown asked for here holds from the page's first byte (the setup opens on the slow CPU).
+  if (o.cpuSlowdown && o.cpuSlowdown > 1) await cdp.send('Emulation.setCPUThrottlingRate', { rate: o.cpuSlowdown });
   await page.goto(`${bench.url}/setups/${id}`);
   await page.getByTestId(o.ready).waitFor({ timeout: 60_000 });
-  const cdp = await context.newCDPSession(page);
   await cdp.send('Performance.enable');
   return { context, page, cdp };
 }

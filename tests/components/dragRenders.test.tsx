@@ -61,9 +61,10 @@ function mount() {
   editor.dispatch('toggleSnap');
   editor.dispatch('select', { ids: ['rimR'] });
   const meter = createMeter(editor, { lightMap: true });
+  meter.start();
   const renders = new Map<string, number>();
   const counted: ProfilerOnRenderCallback = (id) => renders.set(id, (renders.get(id) ?? 0) + 1);
-  const map: LightMapSource = { get: () => meter.getState().readings.map, subscribe: (f) => meter.subscribe(f) };
+  const map: LightMapSource = { get: () => meter.getState().readings?.map ?? null, subscribe: (f) => meter.subscribe(f) };
   const view = render(
     <EditorContext.Provider value={editor}>
       <Profiler id="inspector" onRender={counted}>
@@ -119,7 +120,7 @@ describe('a drag on the plan', () => {
     const transforms = () => new Set(Array.from(m.view.container.querySelectorAll('[transform]')).map((e) => e.getAttribute('transform') ?? ''));
     const before = transforms();
     // The light map's stop labels (one per contour level, drawing/contourLabels.ts) are on the plan at rest.
-    const levelWords = () => new Set((m.meter.getState().readings.map?.contours ?? []).map((c) => formatStops(c.stops)));
+    const levelWords = () => new Set((m.meter.getState().readings?.map?.contours ?? []).map((c) => formatStops(c.stops)));
     const plan = m.view.container.querySelector('[data-testid="item-glyph-rimR"]')!.closest('svg')!;
     const stopLabels = () => Array.from(plan.querySelectorAll('text')).filter((t) => levelWords().has(t.textContent ?? '')).length;
     expect(stopLabels()).toBeGreaterThan(0);

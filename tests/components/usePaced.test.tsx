@@ -1,7 +1,7 @@
 // Panels that follow an outside store during a gesture (usePaced) share one clock per pace: two panels whose
 // values change at different moments of a drag commit together, at most once a pace, not once each.
 import { act, render } from '@testing-library/react';
-import { Profiler } from 'react';
+import { Profiler, useLayoutEffect } from 'react';
 import { Text } from 'react-native';
 import { createStore, type StoreApi } from 'zustand';
 import { createEditor } from '../../canvas/editor/editor';
@@ -15,7 +15,26 @@ function Shows({ store, testID }: { store: StoreApi<{ n: number }>; testID: stri
   return <Text testID={testID}>{n}</Text>;
 }
 
+/** Changes the store in a layout effect: after the panel's render read it, before React subscribes the panel. */
+function ChangesEarly({ store }: { store: StoreApi<{ n: number }> }) {
+  useLayoutEffect(() => store.setState({ n: 7 }), [store]);
+  return null;
+}
+
 describe('usePaced', () => {
+  it('shows a change made between its render and its subscription (the meter answering before the panels subscribe)', () => {
+    const editor = createEditor(doc);
+    const store = createStore<{ n: number }>(() => ({ n: 0 }));
+    const view = render(
+      <EditorContext.Provider value={editor}>
+        <Shows store={store} testID="early" />
+        <ChangesEarly store={store} />
+      </EditorContext.Provider>,
+    );
+    expect(view.getByTestId('early')).toHaveTextContent('7');
+    view.unmount();
+  });
+
   beforeEach(() => vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date', 'requestAnimationFrame', 'cancelAnimationFrame'] }));
   afterEach(() => vi.useRealTimers());
 

@@ -76,6 +76,8 @@ describe('touch targets at 390 × 844', () => {
     await page.goto(`${base}/setups/${first.id}`);
     await page.getByTestId('plan').first().waitFor({ timeout: 30_000 });
     await page.getByTestId('meter-peek').waitFor({ timeout: 30_000 });
+    // The meter's first reading comes after the first paint: its panels' controls are there once it has.
+    await expect.poll(() => page.getByTestId('meter-peek').textContent(), { timeout: 30_000 }).not.toBe('Reading the plan…');
     found.editor = await smallTargets(page);
     // A light's settings, as a tap on it opens them (the sheet at half height, the Item tab).
     const doc = (await (await context.request.get(`${base}/api/setups/${first.id}`)).json()).document as { items: { id: string; kind: string }[] };

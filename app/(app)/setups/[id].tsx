@@ -12,8 +12,8 @@ const EditorScreen = workspaceScreen('EditorScreen');
 export default function SetupEditorRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();
   // The editor's chunks evaluate while the setup downloads (the screen would otherwise ask for them only once
-  // it arrived).
-  preloadWorkspace();
+  // it arrived), and the meter's worker starts as they arrive, for the first reading.
+  preloadWorkspace({ meter: true });
   const me = useMe();
   const setup = useSetup(id);
   if (setup.isPending || me.isPending) return <Loading />;

@@ -28,18 +28,112 @@ function meterOnPlan() {
 }
 
 describe('the live meter', () => {
-  it('opens with the meter numbers at once and asks the engine for the light map (no cold map in the first render)', async () => {
+  it('opens with no readings and computes none itself; start() sends one job, numbers and light map together', async () => {
     const e = createEditor(demoSetups[0]!.document);
     const { engine, jobs } = manualEngine();
     const m = createMeter(e, { lightMap: true }, engine, () => 0);
-    expect(m.getState().readings.meter?.subject.aperture).toBeGreaterThan(0);
-    expect(m.getState().readings.map).toBeNull();
+    // Still reading: nothing computed in the caller's task (the editor's first render), nothing asked yet.
+    expect(m.getState().readings).toBeNull();
+    expect(m.getState().doc).toBe(e.getState().doc);
+    expect(jobs).toHaveLength(0);
+    m.start();
+    m.start();
     expect(jobs).toHaveLength(1);
-    expect(jobs[0]!.job.lightMap).toBe(true);
+    expect(jobs[0]!.job).toEqual({ doc: e.getState().doc, lightMap: true, stepIndex: undefined });
+    expect(m.getState().computing).toBe(true);
+    expect(m.getState().readings).toBeNull();
     jobs[0]!.resolve();
     await flush();
-    expect(m.getState().readings.map?.stops.length).toBeGreaterThan(0);
+    expect(m.getState().readings?.meter?.subject.aperture).toBe(computeReadings(e.getState().doc).meter!.subject.aperture);
+    expect(m.getState().readings?.map?.stops.length).toBeGreaterThan(0);
     expect(m.getState().computing).toBe(false);
+    m.start();
+    expect(jobs).toHaveLength(1);
+    m.dispose();
+  });
+
+  it('readFirst computes the numbers in the page in later tasks, the same as the meter would, and sends no job', async () => {
+    const e = createEditor(demoSetups[0]!.document);
+    const { engine, jobs } = manualEngine();
+    const m = createMeter(e, { lightMap: true }, engine, () => 0);
+    m.readFirst();
+    // Not in the caller's task: its first step only prepares the room.
+    expect(m.getState().readings).toBeNull();
+    await flush();
+    await flush();
+    await flush();
+    const want = computeReadings(e.getState().doc, { lightMap: false });
+    expect(m.getState().readings?.meter).toEqual(want.meter);
+    expect(m.getState().readings?.map).toBeNull();
+    expect(m.getState().doc).toBe(e.getState().doc);
+    expect(jobs).toHaveLength(0);
+    // The light map comes from the engine, whose answer replaces the numbers.
+    m.start();
+    jobs[0]!.resolve();
+    await flush();
+    expect(m.getState().readings?.map).not.toBeNull();
+    m.dispose();
+  });
+
+  it('readFirst shows nothing once the engine has answered; after a change it reads the plan as it stands', async () => {
+    const e = createEditor(demoSetups[0]!.document);
+    const { engine, jobs } = manualEngine();
+    const m = createMeter(e, { lightMap: true }, engine, () => 0);
+    m.start();
+    m.readFirst();
+    jobs[0]!.resolve();
+    await flush();
+    const fromEngine = m.getState().readings;
+    expect(fromEngine?.map).not.toBeNull();
+    await flush();
+    await flush();
+    expect(m.getState().readings).toBe(fromEngine);
+    m.dispose();
+
+    const e2 = createEditor(demoSetups[0]!.document);
+    const held = manualEngine();
+    const m2 = createMeter(e2, { lightMap: false }, held.engine, () => 0);
+    m2.readFirst();
+    e2.dispatch('select', { ids: ['key'] });
+    e2.dispatch('nudge', { dx: 0.5, dy: 0 });
+    await flush();
+    await flush();
+    // Not the opening plan's numbers: the moved light's, and not final while the engine's job is out.
+    expect(m2.getState().doc).toBe(e2.getState().doc);
+    expect(m2.getState().readings?.meter).toEqual(computeReadings(e2.getState().doc).meter);
+    expect(m2.getState().computing).toBe(true);
+    held.jobs[0]!.resolve();
+    await flush();
+    expect(m2.getState().computing).toBe(false);
+    m2.dispose();
+  });
+
+  it('setting the options it already has sends no job (the first answer is not made stale by a screen mounting)', async () => {
+    const e = createEditor(demoSetups[0]!.document);
+    const { engine, jobs } = manualEngine();
+    const m = createMeter(e, { lightMap: true }, engine, () => 0);
+    m.start();
+    m.setOptions({ lightMap: true });
+    m.setOptions({ stepIndex: undefined });
+    jobs[0]!.resolve();
+    await flush();
+    expect(jobs).toHaveLength(1);
+    expect(m.getState().readings?.map).not.toBeNull();
+    m.setOptions({ lightMap: false });
+    expect(jobs).toHaveLength(2);
+    expect(jobs[1]!.job.lightMap).toBe(false);
+    m.dispose();
+  });
+
+  it('a change before start() sends the first job; start() then sends no second one', () => {
+    const e = createEditor(demoSetups[0]!.document);
+    const { engine, jobs } = manualEngine();
+    const m = createMeter(e, { lightMap: false }, engine, () => 0);
+    e.dispatch('select', { ids: ['key'] });
+    e.dispatch('nudge', { dx: 0.1, dy: 0 });
+    expect(jobs).toHaveLength(1);
+    m.start();
+    expect(jobs).toHaveLength(1);
     m.dispose();
   });
 
