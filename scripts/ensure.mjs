@@ -159,7 +159,7 @@ function moveSourceMaps(from, to) {
 async function ensureWebBuild() {
   // Everything the bundle is built from (the client imports app/, components/, hooks/, constants/, canvas/, drawing/,
   // model/ and calc/).
-  const want = hashTree(['app', 'components', 'hooks', 'constants', 'canvas', 'drawing', 'calc', 'model', 'assets', 'package-lock.json', 'package.json', 'entry.js', 'entry.web.js', 'app.json', 'babel.config.js', 'metro.config.js', 'scripts/precompress.mjs', 'web', 'public', 'scripts/buildServiceWorker.mjs', 'scripts/webfonts.mjs', 'scripts/chunkTiers.cjs', 'scripts/routePreloads.mjs', 'scripts/staticPages.mjs']);
+  const want = hashTree(['app', 'components', 'hooks', 'constants', 'canvas', 'drawing', 'calc', 'model', 'assets', 'package-lock.json', 'package.json', 'entry.js', 'entry.web.js', 'app.json', 'babel.config.js', 'metro.config.js', 'scripts/precompress.mjs', 'web', 'public', 'scripts/buildServiceWorker.mjs', 'scripts/webfonts.mjs', 'scripts/chunkTiers.cjs', 'scripts/routePreloads.mjs', 'scripts/staticPages.mjs', 'scripts/workerBundles.mjs']);
   const stamp = join(root, 'dist', '.falloff-build.sha256');
   if (readText(stamp) === want && existsSync(join(root, 'dist', 'index.html'))) return;
   log('building the web app (expo export -p web)…');
@@ -183,10 +183,12 @@ async function ensureWebBuild() {
   const { buildWebFonts } = await import('./webfonts.mjs');
   const fonts = await buildWebFonts(root, join(root, 'dist'));
   log(`fonts: ${fonts.faces.map((f) => `${f.family} ${kb(f.bytes)}`).join(', ')} (${fonts.characters} characters)`);
-  // The meter's Web Worker is its own small bundle (Metro bundles no workers), served at /workers/meter.js.
-  run(bin('esbuild'), ['canvas/meter/worker.ts', '--bundle', '--format=esm', '--minify', '--target=es2022', '--outfile=dist/workers/meter.js', '--log-level=warning']);
-  // The frame's Web Worker is its own small bundle (Metro bundles no workers), served at /workers/frame.js.
-  run(bin('esbuild'), ['components/frame/frame.worker.ts', '--bundle', '--format=esm', '--minify', '--target=es2022', '--outfile=dist/workers/frame.js', '--log-level=warning'], { what: 'bundling the frame worker' });
+  // The meter's and the frame's Web Workers, bundles of their own (Metro bundles no workers), served at
+  // /workers/meter.js and /workers/frame.js, with the pages' zod stand-ins (scripts/workerBundles.mjs).
+  const { bundleWorker } = await import('./workerBundles.mjs');
+  const meterBytes = await bundleWorker({ root, entry: 'canvas/meter/worker.ts', outfile: join(root, 'dist', 'workers', 'meter.js') });
+  const frameBytes = await bundleWorker({ root, entry: 'components/frame/frame.worker.ts', outfile: join(root, 'dist', 'workers', 'frame.js') });
+  log(`workers: meter ${kb(meterBytes)}, frame ${kb(frameBytes)}`);
   // The installable app: manifest, icons and the service worker (last: it lists every file of the build).
   const sw = await buildServiceWorker({ root, webDir: join(root, 'dist') });
   log(`service worker precaches ${sw.count} files (${kb(sw.size)})`);

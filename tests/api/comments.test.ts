@@ -14,7 +14,8 @@ let team: Awaited<ReturnType<typeof studioWithTeam>>;
 let setupId: string;
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
-async function waitFor<T>(f: () => Promise<T | undefined>, ms = 8000): Promise<T> {
+// Polls: generous, since the mail queue runs late on a loaded machine (it timed out at 8 s with every project running at once).
+async function waitFor<T>(f: () => Promise<T | undefined>, ms = 30_000): Promise<T> {
   const until = Date.now() + ms;
   for (;;) {
     const v = await f();

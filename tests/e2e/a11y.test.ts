@@ -66,12 +66,18 @@ describe('accessibility (axe-core, WCAG 2.2 AA rules)', () => {
     it(`library, editor, share page and lesson player on ${vp}`, async () => {
       const { context, page } = await signIn(vp, 'owner');
       const headers = { origin: base };
+      // The library with a demo setup's card (searched for by name: other test files add setups of their own,
+      // and the newest come first).
+      const search = page.getByPlaceholder('Search titles, notes and tags');
+      await expect.poll(() => search.isVisible(), { timeout: 30_000 }).toBe(true);
+      await search.fill('Clamshell headshot');
       await expect.poll(() => page.getByText('Clamshell headshot on grey').first().isVisible(), { timeout: 20_000 }).toBe(true);
       await expect.poll(() => page.title()).toMatch(/Setups/);
       await audit(page, `library-${vp}`);
 
-      const list = await (await context.request.get(`${base}/api/setups`)).json();
-      const first = (list.setups ?? list.items ?? list)[0] as { id: string; title: string };
+      // The same demo setup (not whatever another test file made last).
+      const list = await (await context.request.get(`${base}/api/setups?q=Clamshell%20headshot`)).json();
+      const first = (list.setups as { id: string; title: string }[]).find((x) => x.title.startsWith('Clamshell headshot'))!;
       await page.goto(`${base}/setups/${first.id}`);
       await expect.poll(() => page.getByTestId('plan').first().isVisible(), { timeout: 30_000 }).toBe(true);
       await expect.poll(() => page.title(), { timeout: 10_000 }).toContain(first.title);
