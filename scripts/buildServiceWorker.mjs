@@ -2,8 +2,9 @@
 // <link rel="manifest"> in every page, and the service worker (web/serviceWorker.ts bundled with esbuild, then
 // Workbox writes the precache list into it: every file of the build with a revision, so a new build is a new
 // worker whose precache replaces the old one's).
-import { copyFileSync, existsSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { copyFileSync, existsSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { htmlFiles } from './staticPages.mjs';
 
 /** The files of the build the worker precaches (the app shell, chunks, workers, fonts, icons). */
 export const PRECACHE_GLOBS = ['**/*.{html,js,css,ttf,otf,woff,woff2,png,svg,ico,webmanifest}'];
@@ -11,15 +12,6 @@ export const PRECACHE_GLOBS = ['**/*.{html,js,css,ttf,otf,woff,woff2,png,svg,ico
 // which renders any route.
 const IGNORED = ['sw.js', '**/*.map', '**/*.br', '**/*.gz', '**/.falloff-*', 'assets/node_modules/expo-router/**', 'pages/**'];
 
-function htmlFiles(dir) {
-  const out = [];
-  for (const name of readdirSync(dir)) {
-    const p = join(dir, name);
-    if (statSync(p).isDirectory()) out.push(...htmlFiles(p));
-    else if (name.endsWith('.html')) out.push(p);
-  }
-  return out;
-}
 
 const HEAD_TAGS = '<link rel="manifest" href="/manifest.webmanifest"><link rel="icon" href="/icon.svg" type="image/svg+xml"><link rel="apple-touch-icon" href="/icon-192.png"><meta name="theme-color" content="#1d2024">';
 

@@ -79,7 +79,9 @@ export function pageFrom(shell, exported, route) {
   return shell.replace('</head>', `${meta}${style[0]}</head>`).replace(`${ROOT_OPEN}</div>`, `${ROOT_OPEN}${inner}</div>`);
 }
 
-function htmlFiles(dir) {
+/** Every HTML file under `dir` (not in the bundles' and assets' folders). After staticPages: the app shell and the
+ *  pages rendered at build time; the fonts and the service worker's head tags go into each. */
+export function htmlFiles(dir) {
   const out = [];
   for (const name of readdirSync(dir)) {
     const p = join(dir, name);

@@ -4,9 +4,10 @@
 // face arrives) and the faces the first screen uses preloaded. The app on the web never waits for a font
 // (hooks/useAppFonts.web.ts); on phones expo-font loads the same faces from the packages.
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import subsetFont from 'subset-font';
+import { htmlFiles } from './staticPages.mjs';
 
 /** The faces, by the family names the styles use (constants/theme.ts), and the files they come from. */
 export const FACES = [
@@ -54,19 +55,6 @@ export function charactersShown(root) {
   return [...chars].sort().join('');
 }
 
-/** dist/index.html and the pages under dist/pages/. */
-function htmlPages(distDir) {
-  const out = [join(distDir, 'index.html')];
-  const walk = (dir) => {
-    if (!existsSync(dir)) return;
-    for (const e of readdirSync(dir, { withFileTypes: true })) {
-      if (e.isDirectory()) walk(join(dir, e.name));
-      else if (e.name.endsWith('.html')) out.push(join(dir, e.name));
-    }
-  };
-  walk(join(distDir, 'pages'));
-  return out;
-}
 
 /** Writes the subsets into dist/fonts and the @font-face rules and preloads into every page (dist/index.html,
  *  dist/pages/). Returns sizes. */
@@ -87,7 +75,7 @@ export async function buildWebFonts(root, distDir, background = '#1d2024') {
   // The page's own background from the first paint (the app's graphite), not white until the script runs.
   const page = `html,body{background-color:${background}}`;
   // Every page of the build: the app shell and the pages rendered at build time (scripts/staticPages.mjs).
-  for (const path of htmlPages(distDir)) {
+  for (const path of htmlFiles(distDir)) {
     const html = readFileSync(path, 'utf8');
     if (html.includes('id="falloff-fonts"')) throw new Error(`${path} already has the fonts (build it again)`);
     writeFileSync(path, html.replace('</head>', `${preloads}<style id="falloff-fonts">${page}${css}</style></head>`));

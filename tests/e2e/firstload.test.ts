@@ -9,7 +9,7 @@ import { basename, join } from 'node:path';
 import { describe, expect, inject, it } from 'vitest';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
 import { Client } from '../support/http';
-import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
+import { holdRequests, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
@@ -158,12 +158,7 @@ describe('first load', () => {
     const page = await context.newPage();
     const errors = watchErrors(page);
     // The share chunk is held until the test lets it go.
-    let release!: () => void;
-    const held = new Promise<void>((r) => (release = r));
-    await page.route(/\/shareScreen-[0-9a-f]+\.js$/, async (route) => {
-      await held;
-      await route.continue();
-    });
+    const release = await holdRequests(page, /\/shareScreen-[0-9a-f]+\.js$/);
     await page.goto(new URL(new URL(made.body.url).pathname, base).href, { waitUntil: 'commit' });
     // components/SharedShell.tsx: the route's fallback, painted with the first chunks (the page's first
     // contentful paint), not a spinner.

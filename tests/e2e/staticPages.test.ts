@@ -3,7 +3,7 @@
 // than drawing the page again, and what was typed before the scripts arrived is what the form sends.
 import { describe, expect, inject, it } from 'vitest';
 import { DEMO_PASSWORD, demoUsers } from '../../db/demo';
-import { sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
+import { holdRequests, sharedBrowser, shot, viewports, watchErrors } from '../support/browser';
 
 const base = inject('baseUrl');
 const browser = sharedBrowser();
@@ -48,12 +48,7 @@ describe('pages rendered at build time', () => {
     const page = await context.newPage();
     const errors = watchErrors(page);
     // The app's entry is held until the test lets it go: until then the page is the build's HTML alone.
-    let release!: () => void;
-    const held = new Promise<void>((r) => (release = r));
-    await page.route(/\/entry-[0-9a-f]+\.js$/, async (route) => {
-      await held;
-      await route.continue();
-    });
+    const release = await holdRequests(page, /\/entry-[0-9a-f]+\.js$/);
     await page.goto(`${base}/sign-in?next=/setups`, { waitUntil: 'commit' });
     const email = page.locator('input[autocomplete="email"]');
     await expect.poll(() => email.isVisible(), { timeout: 30_000 }).toBe(true);

@@ -38,6 +38,17 @@ export async function shot(page: Page, name: string) {
   await page.screenshot({ path: join(artifactsDir, `${name}.png`) });
 }
 
+/** Holds back the page's requests whose URL matches `re` until the returned function is called. */
+export async function holdRequests(page: Page, re: RegExp): Promise<() => void> {
+  let release!: () => void;
+  const held = new Promise<void>((r) => (release = r));
+  await page.route(re, async (route) => {
+    await held;
+    await route.continue();
+  });
+  return release;
+}
+
 /** Fail the test on any uncaught error in the page. */
 export function watchErrors(page: Page): string[] {
   const errors: string[] = [];
